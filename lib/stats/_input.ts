@@ -1,0 +1,119 @@
+/**
+ * Input checks shared by every statistic: finite numbers only, enough of
+ * them, not all equal. Private to `lib/stats` and `lib/reexpress`.
+ *
+ * @module
+ */
+import { PlumbError } from "../errors.ts";
+
+/** How many offending positions an error message lists at most. */
+const _SHOWN_POSITIONS = 5;
+
+/**
+ * Copy `x` into a new `Float64Array`, throwing `PlumbError("non-finite")`
+ * when any entry is NaN, ±Infinity or not a number. The message names how
+ * many entries were bad and the first positions (0-based).
+ *
+ * @param x the sample
+ * @param what the name of the method, for the message
+ */
+export function finiteCopy(x: ArrayLike<number>, what: string): Float64Array {
+  const n = x.length;
+  const out = new Float64Array(n);
+  let bad = 0;
+  const first: number[] = [];
+  for (let i = 0; i < n; i++) {
+    const v = x[i] as unknown;
+    if (typeof v !== "number" || !Number.isFinite(v)) {
+      bad++;
+      if (first.length < _SHOWN_POSITIONS) first.push(i);
+      continue;
+    }
+    out[i] = v;
+  }
+  if (bad > 0) {
+    const more = bad > first.length ? ", …" : "";
+    throw new PlumbError(
+      "non-finite",
+      `Cannot run ${what} on values that are not finite numbers: ${bad} of ${n} ` +
+        `(at position${bad === 1 ? "" : "s"} ${first.join(", ")}${more}); ` +
+        `remove or replace them first (plumb() and loadTable() drop and count missing cells)`,
+      { count: bad, positions: first },
+    );
+  }
+  return out;
+}
+
+/**
+ * Throw `PlumbError("too-few")` or `PlumbError("too-many")` when `n` is
+ * outside `[min, max]`.
+ */
+export function checkSize(n: number, min: number, max: number, what: string): void {
+  if (n < min) {
+    throw new PlumbError(
+      "too-few",
+      `Cannot run ${what} on ${n} value${n === 1 ? "" : "s"}: at least ${min} are needed`,
+      { n, min },
+    );
+  }
+  if (n > max) {
+    throw new PlumbError(
+      "too-many",
+      `Cannot run ${what} on ${n} values: the method is calibrated for at most ${max}; ` +
+        `use a test without that limit (Anderson–Darling, D'Agostino–Pearson) or a random subsample`,
+      { n, max },
+    );
+  }
+}
+
+/**
+ * Throw `PlumbError("constant")` when the sorted sample has zero range.
+ *
+ * @param sorted the sample in ascending order
+ */
+export function checkNotConstant(sorted: Float64Array, what: string): void {
+  if (sorted.length > 0 && sorted[0] === sorted[sorted.length - 1]) {
+    throw new PlumbError(
+      "constant",
+      `Cannot run ${what} on ${sorted.length} identical values (all ${sorted[0]}): ` +
+        `a sample with no spread has no shape to test; check the column or its units`,
+      { value: sorted[0] },
+    );
+  }
+}
+
+/**
+ * Validate and sort a sample in one step: finite values, size within range,
+ * not constant. Returns a new ascending `Float64Array`.
+ */
+export function sortedSample(
+  x: ArrayLike<number>,
+  what: string,
+  min: number,
+  max = Number.POSITIVE_INFINITY,
+): Float64Array {
+  checkSize(x.length, min, max, what);
+  const s = finiteCopy(x, what);
+  s.sort();
+  checkNotConstant(s, what);
+  return s;
+}
+
+/**
+ * A warning about ties, or `undefined` when ties are few. Many repeated
+ * values (rounded or discrete data) make order-statistic tests reject
+ * normality even when the underlying quantity is normal.
+ *
+ * The threshold — warn when fewer than 70% of the values are distinct — is
+ * common practice, not a published rule.
+ *
+ * @param sorted the sample in ascending order
+ */
+export function tiesWarning(sorted: Float64Array): string | undefined {
+  const n = sorted.length;
+  let distinct = n > 0 ? 1 : 0;
+  for (let i = 1; i < n; i++) if (sorted[i] !== sorted[i - 1]) distinct++;
+  if (n === 0 || distinct >= 0.7 * n) return undefined;
+  return `Only ${distinct} distinct values among ${n}: the data look rounded or discrete, ` +
+    `and ties alone can make a normality test reject; judge the QQ plot, whose steps show the rounding`;
+}

@@ -1,0 +1,19 @@
+/**
+ * plumbline: can these measurements be treated as normally distributed, and
+ * if not, which re-expression makes them so?
+ *
+ * @example
+ * ```ts
+ * import { shapiroWilk } from "./mod.ts";
+ * const r = shapiroWilk([148, 154, 158, 160, 161, 162, 166, 170, 182, 195, 236]);
+ * if (Math.abs(r.statistic - 0.7888146948353876) > 1e-12) throw new Error("W");
+ * ```
+ *
+ * @module
+ */
+export { PlumbError, type PlumbErrorCode } from "./lib/errors.ts";
+export type { TestResult } from "./lib/stats/result.ts";
+export { normalCdf, normalPdf, normalQuantile, normalSf } from "./lib/numeric/normal.ts";
+export { type RandomStream, seededRandom } from "./lib/numeric/random.ts";
+export { shapiroWilk } from "./lib/stats/shapiro_wilk.ts";
+export { shapiroFrancia } from "./lib/stats/shapiro_francia.ts";
