@@ -5,6 +5,7 @@
  * @module
  */
 import { PlumbError } from "../errors.ts";
+import { sortFloat64 } from "../numeric/sort.ts";
 
 /** How many offending positions an error message lists at most. */
 const _SHOWN_POSITIONS = 5;
@@ -93,8 +94,7 @@ export function sortedSample(
   max = Number.POSITIVE_INFINITY,
 ): Float64Array {
   checkSize(x.length, min, max, what);
-  const s = finiteCopy(x, what);
-  s.sort();
+  const s = sortFloat64(finiteCopy(x, what));
   checkNotConstant(s, what);
   return s;
 }
