@@ -17,3 +17,15 @@ export { normalCdf, normalPdf, normalQuantile, normalSf } from "./lib/numeric/no
 export { type RandomStream, seededRandom } from "./lib/numeric/random.ts";
 export { shapiroWilk } from "./lib/stats/shapiro_wilk.ts";
 export { shapiroFrancia } from "./lib/stats/shapiro_francia.ts";
+export { type Moments, moments } from "./lib/stats/moments.ts";
+export { andersonDarling, type AndersonDarlingResult } from "./lib/stats/anderson_darling.ts";
+export { lilliefors, type LillieforsResult } from "./lib/stats/lilliefors.ts";
+export { dagostinoPearson, type DagostinoPearsonResult } from "./lib/stats/dagostino_pearson.ts";
+export { jarqueBera } from "./lib/stats/jarque_bera.ts";
+export {
+  type Adjustment,
+  adjustPValues,
+  benjaminiHochbergAdjust,
+  holmAdjust,
+} from "./lib/stats/multiplicity.ts";
+export { sortFloat64 } from "./lib/numeric/sort.ts";
