@@ -1,0 +1,109 @@
+/**
+ * A chart as a display bundle: the Vega-Lite spec for front ends that run
+ * Vega, the same chart as static SVG inside `text/html` for those that do
+ * not (code hosts, exported HTML), and a plain-text summary.
+ *
+ * @module
+ */
+import type { TopLevelSpec } from "vega-lite";
+import {
+  type Displayable,
+  lazyDisplayable,
+  type MimeBundle,
+  type ReadyDisplayable,
+  VEGALITE_MIME,
+} from "./display.ts";
+import { plainText } from "./escape.ts";
+import { accessibleSvg, renderSvg } from "./svg.ts";
+
+/** Options for {@linkcode chartBundle} and {@linkcode chart}. */
+export interface ChartMeta {
+  /**
+   * Short name of the chart.
+   * @default the spec's title text (and subtitle), or "Chart"
+   */
+  readonly title?: string;
+  /**
+   * What the chart shows, in sentences.
+   * @default the spec's `description`, or the title
+   */
+  readonly description?: string;
+}
+
+function _text(t: unknown): string {
+  if (typeof t === "string") return t;
+  if (Array.isArray(t)) return t.map(String).join(" ");
+  return "";
+}
+
+/** The title of a spec, as one line of text (title text, then subtitle). */
+export function _specTitle(spec: TopLevelSpec): string {
+  const t = (spec as { title?: unknown }).title;
+  if (t === undefined) return "";
+  if (typeof t === "string" || Array.isArray(t)) return _text(t);
+  const o = t as { text?: unknown; subtitle?: unknown };
+  const sub = _text(o.subtitle);
+  return _text(o.text) + (sub ? ` — ${sub}` : "");
+}
+
+/**
+ * Build the bundle of a chart: `application/vnd.vegalite.v5+json`,
+ * `text/html` (a `<div>` holding vega's static SVG with `<title>` and
+ * `<desc>`) and `text/plain`.
+ *
+ * @param spec a Vega-Lite 5 spec with inline data
+ * @param meta title and description (defaults from the spec)
+ * @example
+ * ```ts
+ * import { chartBundle } from "./chart_bundle.ts";
+ * const b = await chartBundle({
+ *   $schema: "https://vega.github.io/schema/vega-lite/v5.json",
+ *   data: { values: [{ a: 1 }] },
+ *   mark: "tick",
+ *   encoding: { x: { field: "a", type: "quantitative" } },
+ * }, { title: "One tick", description: "A single tick at 1." });
+ * if (!b["text/html"]?.includes("<desc")) throw new Error("html");
+ * ```
+ */
+export async function chartBundle(spec: TopLevelSpec, meta: ChartMeta = {}): Promise<MimeBundle> {
+  const title = meta.title ?? (_specTitle(spec) || "Chart");
+  const description = meta.description ??
+    ((spec as { description?: string }).description ?? title);
+  const svg = accessibleSvg(await renderSvg(spec), { title, description });
+  const html = `<div class="plumbline-chart" style="display:inline-block;max-width:100%;` +
+    `overflow-x:auto;background:#ffffff;border-radius:4px">${svg}</div>`;
+  return Object.freeze({
+    [VEGALITE_MIME]: spec,
+    "text/html": html,
+    "text/plain": plainText(`${title}\n${description}`),
+  });
+}
+
+/** A chart that notebooks can display, with its spec. */
+export interface Chart extends Displayable {
+  /** The Vega-Lite spec. */
+  readonly spec: TopLevelSpec;
+  /** Render now; the result displays without further work. */
+  prepare(): Promise<ReadyDisplayable>;
+}
+
+/**
+ * A displayable chart: its bundle is rendered on first display (the Deno
+ * kernel awaits the async display method) and cached; `await c.prepare()`
+ * renders ahead of time and returns an object whose display is synchronous.
+ *
+ * @param spec a Vega-Lite 5 spec with inline data
+ * @param meta title and description (defaults from the spec)
+ * @example
+ * ```ts
+ * import { chart } from "./chart_bundle.ts";
+ * import { DISPLAY } from "./display.ts";
+ * const c = chart({ data: { values: [{ a: 1 }] }, mark: "tick", encoding: { x: { field: "a", type: "quantitative" } } });
+ * const ready = await c.prepare();
+ * if (!ready[DISPLAY]()["text/html"]) throw new Error("prepared");
+ * ```
+ */
+export function chart(spec: TopLevelSpec, meta: ChartMeta = {}): Chart {
+  const lazy = lazyDisplayable(() => chartBundle(spec, meta));
+  return Object.freeze({ spec, ...lazy, prepare: lazy.prepare });
+}

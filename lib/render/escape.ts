@@ -1,0 +1,92 @@
+/**
+ * Escaping for every string that reaches a display: HTML and SVG text and
+ * attributes, Markdown table cells, plain text, and Vega expression string
+ * literals.
+ *
+ * @module
+ */
+
+const _HTML: Readonly<Record<string, string>> = {
+  "&": "&amp;",
+  "<": "&lt;",
+  ">": "&gt;",
+  '"': "&quot;",
+  "'": "&#39;",
+};
+
+/**
+ * Escape text for HTML or SVG element content and quoted attribute values.
+ * Also replaces C0 control characters other than tab and newline (which
+ * XML 1.0 forbids) with U+FFFD.
+ *
+ * @param s any string
+ * @example
+ * ```ts
+ * import { escapeHtml } from "./escape.ts";
+ * if (escapeHtml(`<b a="1">&'`) !== "&lt;b a=&quot;1&quot;&gt;&amp;&#39;") throw new Error("html");
+ * ```
+ */
+export function escapeHtml(s: string): string {
+  return String(s)
+    .replace(/[&<>"']/g, (c) => _HTML[c])
+    // deno-lint-ignore no-control-regex
+    .replace(/[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f]/g, "\ufffd");
+}
+
+/**
+ * Make a string safe as plain text output: removes ANSI escape sequences
+ * and replaces other control characters (except newline) with U+FFFD, and
+ * tabs with a space.
+ *
+ * @param s any string
+ * @example
+ * ```ts
+ * import { plainText } from "./escape.ts";
+ * if (plainText("\u001b[31mred\u001b[0m\tok") !== "red ok") throw new Error("ansi");
+ * ```
+ */
+export function plainText(s: string): string {
+  return String(s)
+    // deno-lint-ignore no-control-regex
+    .replace(/\u001b\[[0-9;?]*[ -\/]*[@-~]/g, "")
+    // deno-lint-ignore no-control-regex
+    .replace(/\u001b\][^\u0007\u001b]*(\u0007|\u001b\\)?/g, "")
+    .replace(/\t/g, " ")
+    // deno-lint-ignore no-control-regex
+    .replace(/[\u0000-\u0009\u000b-\u001f\u007f]/g, "\ufffd");
+}
+
+/**
+ * Escape text for one line of Markdown (a heading or a table cell): every
+ * character with Markdown meaning is backslash-escaped, `<` and `&` become
+ * entities (Markdown passes HTML through), and line breaks become spaces.
+ *
+ * @param s any string
+ * @example
+ * ```ts
+ * import { escapeMarkdown } from "./escape.ts";
+ * if (escapeMarkdown("a|b *c* <i>") !== "a\\|b \\*c\\* &lt;i&gt;") throw new Error("md");
+ * ```
+ */
+export function escapeMarkdown(s: string): string {
+  return plainText(String(s).replace(/\r?\n|\r/g, " "))
+    .replace(/&/g, "&amp;")
+    .replace(/</g, "&lt;")
+    .replace(/>/g, "&gt;")
+    .replace(/[\\`*_{}\[\]()#+\-.!|~]/g, (c) => "\\" + c);
+}
+
+/**
+ * A Vega expression string literal holding `s` exactly: JSON quoting, with
+ * the line and paragraph separators escaped too.
+ *
+ * @param s any string
+ * @example
+ * ```ts
+ * import { vegaString } from "./escape.ts";
+ * if (vegaString(`it's "x"`) !== `"it's \\"x\\""`) throw new Error("vega");
+ * ```
+ */
+export function vegaString(s: string): string {
+  return JSON.stringify(String(s)).replace(/\u2028/g, "\\u2028").replace(/\u2029/g, "\\u2029");
+}

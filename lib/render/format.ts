@@ -1,0 +1,97 @@
+/**
+ * Number formatting for chart labels, tables and plain text: fixed rules so
+ * the same number always prints the same way.
+ *
+ * @module
+ */
+
+/**
+ * A count with comma thousands separators, e.g. `1,000,000`.
+ *
+ * @param n a whole number
+ * @example
+ * ```ts
+ * import { formatCount } from "./format.ts";
+ * if (formatCount(1234567) !== "1,234,567") throw new Error("count");
+ * ```
+ */
+export function formatCount(n: number): string {
+  if (!Number.isFinite(n)) return String(n);
+  const s = Math.round(Math.abs(n)).toString().replace(/\B(?=(\d{3})+(?!\d))/g, ",");
+  return n < 0 ? "−" + s : s;
+}
+
+/**
+ * A number to `digits` significant digits, trailing zeros kept, with a
+ * minus sign (U+2212), and exponent form outside [1e-4, 1e6).
+ *
+ * @param x the number
+ * @param digits significant digits, default 4
+ * @example
+ * ```ts
+ * import { formatNumber } from "./format.ts";
+ * if (formatNumber(-0.0123456) !== "−0.01235") throw new Error("sig");
+ * if (formatNumber(1234567) !== "1.235e6") throw new Error("exp");
+ * ```
+ */
+export function formatNumber(x: number, digits = 4): string {
+  if (Number.isNaN(x)) return "NaN";
+  if (x === Infinity) return "∞";
+  if (x === -Infinity) return "−∞";
+  if (x === 0) return "0";
+  const a = Math.abs(x);
+  let s: string;
+  if (a >= 1e-4 && a < 1e6) s = a.toPrecision(digits);
+  else s = a.toExponential(digits - 1).replace("e+", "e");
+  // toPrecision may itself switch to exponent form near the limits
+  s = s.replace("e+", "e");
+  return x < 0 ? "−" + s : s;
+}
+
+/**
+ * A p-value: four decimals, `< 0.0001` below that.
+ *
+ * @param p the p-value in [0, 1]
+ * @example
+ * ```ts
+ * import { formatP } from "./format.ts";
+ * if (formatP(0.04567) !== "0.0457" || formatP(1e-9) !== "< 0.0001") throw new Error("p");
+ * ```
+ */
+export function formatP(p: number): string {
+  if (Number.isNaN(p)) return "NaN";
+  if (p < 0.0001) return "< 0.0001";
+  return p.toFixed(4);
+}
+
+/**
+ * Round a number to `digits` significant digits for storage in a chart
+ * spec (smaller JSON); not for values a reader is shown exactly.
+ *
+ * @param x the number
+ * @param digits significant digits, default 6
+ * @example
+ * ```ts
+ * import { roundSig } from "./format.ts";
+ * if (roundSig(1.23456789, 4) !== 1.235) throw new Error("round");
+ * ```
+ */
+export function roundSig(x: number, digits = 6): number {
+  if (!Number.isFinite(x) || x === 0) return x;
+  return Number(x.toPrecision(digits));
+}
+
+/**
+ * A p-value as a clause: `p = 0.0457`, or `p < 0.0001`.
+ *
+ * @param p the p-value in [0, 1]
+ * @example
+ * ```ts
+ * import { formatPClause } from "./format.ts";
+ * if (formatPClause(0.5) !== "p = 0.5000" || formatPClause(0) !== "p < 0.0001") throw new Error("p");
+ * ```
+ */
+export function formatPClause(p: number): string {
+  const s = formatP(p);
+  return s.startsWith("<") ? `p ${s}` : `p = ${s}`;
+}

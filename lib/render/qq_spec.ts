@@ -1,0 +1,251 @@
+/**
+ * Vega-Lite specs for the normal QQ plot and its detrended form, from
+ * {@linkcode QqData}: ordered values (y, data units) against normal scores
+ * (x), the fitted line mean + sd·z, and the envelope as a band; points
+ * outside the band change colour and shape.
+ *
+ * Data reach the spec under fixed field names (`z`, `v`, `lo`, `hi`, `rk`,
+ * `row`, `out`); the variable's own name appears only in titles and
+ * tooltip labels, which Vega treats as text, so any characters are safe.
+ *
+ * @module
+ */
+import type { TopLevelSpec } from "vega-lite";
+import { _keptRanks, type QqData } from "../stats/qq_data.ts";
+import { formatCount, formatNumber, roundSig } from "./format.ts";
+import { CHART_CONFIG, PALETTE, PANEL } from "./theme.ts";
+
+/** Vega-Lite 5 schema URL. */
+export const VEGALITE_SCHEMA = "https://vega.github.io/schema/vega-lite/v5.json";
+
+/** Options for {@linkcode qqSpec} and {@linkcode detrendedSpec}. */
+export interface QqSpecOptions {
+  /**
+   * The variable's name, shown in the title and on the value axis.
+   * @default "value"
+   */
+  readonly name?: string;
+  /**
+   * Plot width in pixels.
+   * @default 320
+   */
+  readonly width?: number;
+  /**
+   * Plot height in pixels.
+   * @default 260
+   */
+  readonly height?: number;
+}
+
+/** Legend labels of the three point states (constant text, no user input). */
+export const POINT_STATES = Object.freeze(["inside band", "below band", "above band"] as const);
+
+/** The calculate expression that names each point's state from `out`. */
+const _STATE_EXPR = `datum.out === 0 ? '${POINT_STATES[0]}' : datum.out < 0 ? '${
+  POINT_STATES[1]
+}' : '${POINT_STATES[2]}'`;
+
+/**
+ * One record per point, under the fixed field names; `pick` (indices into
+ * the QQ data's arrays) thins further, for small panels.
+ */
+export function _qqRecords(
+  q: QqData,
+  detrended: boolean,
+  pick?: readonly number[],
+): Record<string, number>[] {
+  const idx = pick ?? Array.from({ length: q.shown }, (_, k) => k);
+  const rows: Record<string, number>[] = new Array(idx.length);
+  for (let t = 0; t < idx.length; t++) {
+    const k = idx[t];
+    const fit = detrended ? q.mean + q.sd * q.z[k] : 0;
+    rows[t] = {
+      z: roundSig(q.z[k], 5),
+      v: detrended ? roundSig(q.value[k] - fit, 7) : q.value[k],
+      lo: roundSig(q.lower[k] - fit, 6),
+      hi: roundSig(q.upper[k] - fit, 6),
+      rk: q.rank[k],
+      row: q.row[k],
+      out: q.outside[k],
+    };
+  }
+  return rows;
+}
+
+/** The envelope band, the reference line and the points, as layers (data supplied by the parent). */
+// deno-lint-ignore no-explicit-any
+export function _qqLayers(q: QqData, name: string, detrended: boolean, valueTitle: string): any[] {
+  const x = { field: "z", type: "quantitative", title: "normal score z" } as const;
+  const yScale = { zero: false };
+  const zs = [q.z[0], q.z[q.shown - 1]];
+  const line = detrended
+    ? { data: { values: [{ z: roundSig(zs[0], 5), v: 0 }, { z: roundSig(zs[1], 5), v: 0 }] } }
+    : {
+      data: {
+        values: zs.map((z) => ({ z: roundSig(z, 5), v: roundSig(q.mean + q.sd * z, 8) })),
+      },
+    };
+  return [
+    {
+      mark: { type: "area", color: PALETTE.band, opacity: 0.35, tooltip: false, aria: false },
+      encoding: {
+        x,
+        y: { field: "lo", type: "quantitative", title: valueTitle, scale: yScale },
+        y2: { field: "hi" },
+      },
+    },
+    {
+      ...line,
+      mark: { type: "line", color: PALETTE.line, strokeWidth: 1.5, tooltip: false, aria: false },
+      encoding: { x, y: { field: "v", type: "quantitative", title: valueTitle, scale: yScale } },
+    },
+    {
+      transform: [{ calculate: _STATE_EXPR, as: "state" }],
+      mark: { type: "point", filled: true, size: 24, opacity: 0.9, aria: false },
+      encoding: {
+        x,
+        y: { field: "v", type: "quantitative", title: valueTitle, scale: yScale },
+        color: {
+          field: "state",
+          type: "nominal",
+          scale: {
+            domain: [...POINT_STATES],
+            range: [PALETTE.point, PALETTE.outside, PALETTE.outside],
+          },
+          legend: { title: null },
+        },
+        shape: {
+          field: "state",
+          type: "nominal",
+          scale: { domain: [...POINT_STATES], range: ["circle", "triangle-down", "triangle-up"] },
+          legend: { title: null },
+        },
+        tooltip: [
+          {
+            field: "v",
+            type: "quantitative",
+            title: detrended ? `${name} − line` : name,
+            format: ".7~g",
+          },
+          { field: "rk", type: "quantitative", title: "rank" },
+          { field: "row", type: "quantitative", title: "row" },
+          { field: "z", type: "quantitative", title: "normal score", format: ".3f" },
+        ],
+      },
+    },
+  ];
+}
+
+/** The subtitle lines shared by both QQ forms. */
+export function _qqSubtitle(q: QqData, detrended: boolean): string[] {
+  const shown = q.shown === q.n
+    ? `all ${formatCount(q.n)} points`
+    : `${formatCount(q.shown)} of ${formatCount(q.n)} points shown (tails in full)`;
+  const band = `${q.envelope} ${Math.round(q.level * 1000) / 10}% envelope`;
+  return [
+    `${detrended ? "detrended normal QQ plot" : "normal QQ plot"} · ${shown}`,
+    `line: ${formatNumber(q.mean)} + ${formatNumber(q.sd)}·z (mean, sd) · band: ${band}`,
+  ];
+}
+
+/** A description of the chart for screen readers and plain text. */
+export function _qqDescription(q: QqData, name: string, detrended: boolean): string {
+  const below = q.outside.filter((o) => o < 0).length;
+  const above = q.outside.filter((o) => o > 0).length;
+  const what = detrended
+    ? `Detrended normal QQ plot of ${name}: each ordered value minus the fitted line ` +
+      `${formatNumber(q.mean)} + ${formatNumber(q.sd)}·z, against its normal score z`
+    : `Normal QQ plot of ${name}: ordered values against normal scores z, with the line ` +
+      `${formatNumber(q.mean)} + ${
+        formatNumber(q.sd)
+      }·z (intercept the mean, slope the standard deviation)`;
+  return `${what}. Normal scores use ${q.positions}. ${q.thinning[0].toUpperCase()}${
+    q.thinning.slice(1)
+  }. ` +
+    `The band is the ${q.envelopeMethod}. ` +
+    `${formatCount(below + above)} of the ${formatCount(q.shown)} points shown lie outside it ` +
+    `(${formatCount(below)} below, ${formatCount(above)} above).`;
+}
+
+function _spec(q: QqData, options: QqSpecOptions, detrended: boolean): TopLevelSpec {
+  const name = options.name ?? "value";
+  const valueTitle = detrended ? `${name} − line` : name;
+  return {
+    $schema: VEGALITE_SCHEMA,
+    description: _qqDescription(q, name, detrended),
+    title: { text: name, subtitle: _qqSubtitle(q, detrended) },
+    config: CHART_CONFIG,
+    width: options.width ?? PANEL.width,
+    height: options.height ?? PANEL.height,
+    data: { values: _qqRecords(q, detrended) },
+    layer: detrended ? _qqLayers(q, name, true, valueTitle) : _qqLayers(q, name, false, valueTitle),
+  } as TopLevelSpec;
+}
+
+/**
+ * The normal QQ plot of one sample.
+ *
+ * @param q the QQ data (see `qqData`)
+ * @param options name and size
+ * @example
+ * ```ts
+ * import { qqData } from "../stats/qq_data.ts";
+ * import { qqSpec } from "./qq_spec.ts";
+ * const spec = qqSpec(qqData([5.1, 4.9, 5.3, 5.0, 5.2, 4.7]), { name: "fill (mL)" });
+ * if (!JSON.stringify(spec).includes("fill (mL)")) throw new Error("title");
+ * ```
+ */
+export function qqSpec(q: QqData, options: QqSpecOptions = {}): TopLevelSpec {
+  return _spec(q, options, false);
+}
+
+/**
+ * The detrended QQ plot: each ordered value minus the fitted line, with the
+ * envelope minus the line, around a zero line; subtle tail departures that
+ * hug the line in the plain QQ plot become visible.
+ *
+ * @param q the QQ data (see `qqData`)
+ * @param options name and size
+ * @example
+ * ```ts
+ * import { qqData } from "../stats/qq_data.ts";
+ * import { detrendedSpec } from "./qq_spec.ts";
+ * const spec = detrendedSpec(qqData([5.1, 4.9, 5.3, 5.0, 5.2, 4.7]));
+ * if (!JSON.stringify(spec).includes("detrended")) throw new Error("detrended");
+ * ```
+ */
+export function detrendedSpec(q: QqData, options: QqSpecOptions = {}): TopLevelSpec {
+  return _spec(q, options, true);
+}
+
+/**
+ * Indices into a QQ data's arrays that keep at most `max` points: both ends
+ * in full (a quarter of the budget each), the middle evenly spaced.
+ */
+export function _pickIndices(shown: number, max: number): number[] {
+  if (shown <= max) return Array.from({ length: shown }, (_, k) => k);
+  return _keptRanks(shown, max, Math.floor(max / 4)).map((r) => r - 1);
+}
+
+/** Options of one small QQ panel inside a composed chart. */
+export interface _PanelOptions {
+  readonly name: string;
+  readonly title: string;
+  readonly subtitle: string[];
+  readonly width: number;
+  readonly height: number;
+  readonly maxPoints: number;
+}
+
+/** One QQ panel (own data, own title) for concatenated charts. */
+// deno-lint-ignore no-explicit-any
+export function _qqPanel(q: QqData, o: _PanelOptions): any {
+  const pick = _pickIndices(q.shown, o.maxPoints);
+  return {
+    title: { text: o.title, subtitle: o.subtitle },
+    width: o.width,
+    height: o.height,
+    data: { values: _qqRecords(q, false, pick) },
+    layer: _qqLayers(q, o.name, false, o.name),
+  };
+}

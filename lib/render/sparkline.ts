@@ -1,0 +1,91 @@
+/**
+ * A QQ sparkline: a tiny static SVG of ordered values against normal
+ * scores with the fitted line, for one row of a screening table. Drawn
+ * directly (no Vega) so that a 20-row table stays small and fast.
+ *
+ * @module
+ */
+import { escapeHtml } from "./escape.ts";
+import { PALETTE } from "./theme.ts";
+
+/** The points of a sparkline: normal scores and values, aligned. */
+export interface SparklineData {
+  /** Normal scores (x). */
+  readonly z: readonly number[];
+  /** Ordered values (y). */
+  readonly value: readonly number[];
+  /** Line intercept (mean) and slope (sd). */
+  readonly mean: number;
+  readonly sd: number;
+  /** −1/0/1 per point: below, inside, above the envelope. */
+  readonly outside?: readonly number[];
+}
+
+/** Options for {@linkcode qqSparkline}. */
+export interface SparklineOptions {
+  /**
+   * Width in pixels.
+   * @default 90
+   */
+  readonly width?: number;
+  /**
+   * Height in pixels.
+   * @default 36
+   */
+  readonly height?: number;
+  /**
+   * Accessible title.
+   * @default "QQ sparkline"
+   */
+  readonly title?: string;
+  /**
+   * At most this many points are drawn (evenly spaced by rank).
+   * @default 60
+   */
+  readonly maxPoints?: number;
+}
+
+const _r = (v: number) => (Math.round(v * 10) / 10).toString();
+
+/**
+ * A QQ sparkline as an SVG string, with `<title>`; deterministic.
+ *
+ * @param d the points
+ * @param options size and title
+ *
+ * @example
+ * ```ts
+ * import { qqSparkline } from "./sparkline.ts";
+ * const s = qqSparkline({ z: [-1, 0, 1], value: [1, 2, 3], mean: 2, sd: 1 });
+ * if (!s.startsWith("<svg") || !s.includes("<title>QQ sparkline</title>")) throw new Error(s);
+ * ```
+ */
+export function qqSparkline(d: SparklineData, options: SparklineOptions = {}): string {
+  const w = options.width ?? 90;
+  const h = options.height ?? 36;
+  const max = options.maxPoints ?? 60;
+  const m = d.z.length;
+  const pick: number[] = [];
+  if (m <= max) { for (let i = 0; i < m; i++) pick.push(i); }
+  else for (let k = 0; k < max; k++) pick.push(Math.round((k * (m - 1)) / (max - 1)));
+  const zs = pick.map((i) => d.z[i]);
+  const vs = pick.map((i) => d.value[i]);
+  const zMin = Math.min(...zs), zMax = Math.max(...zs);
+  const line = [zMin, zMax].map((z) => d.mean + d.sd * z);
+  const vMin = Math.min(...vs, ...line), vMax = Math.max(...vs, ...line);
+  const sx = (z: number) => 3 + ((z - zMin) / (zMax - zMin || 1)) * (w - 6);
+  const sy = (v: number) => h - 3 - ((v - vMin) / (vMax - vMin || 1)) * (h - 6);
+  const dots = pick.map((i, k) => {
+    const out = d.outside?.[i] ?? 0;
+    return `<circle cx="${_r(sx(zs[k]))}" cy="${_r(sy(vs[k]))}" r="1.6" fill="${
+      out ? PALETTE.outside : PALETTE.point
+    }"/>`;
+  }).join("");
+  const title = escapeHtml(options.title ?? "QQ sparkline");
+  return `<svg xmlns="http://www.w3.org/2000/svg" width="${w}" height="${h}" viewBox="0 0 ${w} ${h}" role="img">` +
+    `<title>${title}</title><rect width="${w}" height="${h}" fill="#ffffff"/>` +
+    `<line x1="${_r(sx(zMin))}" y1="${_r(sy(line[0]))}" x2="${_r(sx(zMax))}" y2="${
+      _r(sy(line[1]))
+    }" ` +
+    `stroke="${PALETTE.line}" stroke-width="1"/>${dots}</svg>`;
+}

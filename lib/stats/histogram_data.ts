@@ -1,0 +1,234 @@
+/**
+ * Data for a histogram with the fitted normal curve: bin counts under a
+ * named bin-width rule, and the normal density with the sample mean and
+ * standard deviation scaled to counts (n · bin width · density), so that
+ * curve and bars share one axis.
+ *
+ * Bin-width rules:
+ * - `"freedman-diaconis"` (default): h = 2 · IQR · n^(−1/3) (Freedman &
+ *   Diaconis 1981, "On the histogram as a density estimator: L2 theory",
+ *   Zeitschrift für Wahrscheinlichkeitstheorie und verwandte Gebiete
+ *   57:453–476). The quartiles are Hyndman & Fan's (1996, The American
+ *   Statistician 50:361–365) type 7, found by selection (Hoare 1961,
+ *   Communications of the ACM 4:321, Algorithm 65 FIND) in linear time.
+ *   When the IQR is 0 the Scott rule is used instead, and the result says so.
+ * - `"scott"`: h = 3.49 · sd · n^(−1/3) (Scott 1979, "On optimal and
+ *   data-based histograms", Biometrika 66:605–610).
+ * - `"sturges"`: ⌈log₂ n⌉ + 1 bins (Sturges 1926, Journal of the American
+ *   Statistical Association 21:65–66).
+ *
+ * The bins split [min, max] into k equal parts, k = ⌈range / h⌉ capped at
+ * `maxBins`; a value equal to the maximum falls in the last bin.
+ *
+ * @module
+ */
+import { PlumbError } from "../errors.ts";
+import { normalPdf } from "../numeric/normal.ts";
+import { checkNotConstant, checkSize, finiteCopy } from "./_input.ts";
+
+/** A bin-width rule. */
+export type BinRule = "freedman-diaconis" | "scott" | "sturges";
+
+/** Options for {@linkcode histogramData}. */
+export interface HistogramOptions {
+  /**
+   * How the bin width is chosen.
+   * @default "freedman-diaconis"
+   */
+  readonly rule?: BinRule;
+  /**
+   * Upper limit on the number of bins.
+   * @default 200
+   */
+  readonly maxBins?: number;
+  /**
+   * Number of points on the fitted normal curve.
+   * @default 121
+   */
+  readonly curvePoints?: number;
+}
+
+/** A histogram and its fitted normal curve, as frozen plain data. */
+export interface HistogramData {
+  /** Number of values. */
+  readonly n: number;
+  /** The rule that set the width (after any fallback). */
+  readonly rule: BinRule;
+  /** The rule and its source, in words, with any fallback explained. */
+  readonly ruleNote: string;
+  /** Width of every bin. */
+  readonly binWidth: number;
+  /** k + 1 bin edges, ascending. */
+  readonly edges: readonly number[];
+  /** k counts. */
+  readonly counts: readonly number[];
+  /** Sample mean of the fitted normal. */
+  readonly mean: number;
+  /** Sample standard deviation (divisor n − 1) of the fitted normal. */
+  readonly sd: number;
+  /** Curve abscissae. */
+  readonly curveX: readonly number[];
+  /** Curve ordinates in counts per bin: n · binWidth · φ((x − mean)/sd)/sd. */
+  readonly curveY: readonly number[];
+}
+
+/** k-th smallest (0-based) of a, rearranging a in place (Hoare's FIND). */
+function _select(a: Float64Array, k: number): number {
+  let lo = 0;
+  let hi = a.length - 1;
+  while (lo < hi) {
+    const pivot = a[(lo + hi) >>> 1];
+    let i = lo;
+    let j = hi;
+    while (i <= j) {
+      while (a[i] < pivot) i++;
+      while (a[j] > pivot) j--;
+      if (i <= j) {
+        const t = a[i];
+        a[i] = a[j];
+        a[j] = t;
+        i++;
+        j--;
+      }
+    }
+    if (k <= j) hi = j;
+    else if (k >= i) lo = i;
+    else return a[k];
+  }
+  return a[k];
+}
+
+/** Type-7 quantile at probability p, using selection on a scratch copy. */
+export function _quantile7(scratch: Float64Array, p: number): number {
+  const h = (scratch.length - 1) * p;
+  const lo = Math.floor(h);
+  const v = _select(scratch, lo);
+  if (h === lo) return v;
+  // the next order statistic is the minimum of the part above lo
+  let next = Infinity;
+  for (let i = lo + 1; i < scratch.length; i++) if (scratch[i] < next) next = scratch[i];
+  return v + (h - lo) * (next - v);
+}
+
+function _meanSd(x: Float64Array): [number, number] {
+  let s = 0;
+  for (let i = 0; i < x.length; i++) s += x[i];
+  const m0 = s / x.length;
+  let c = 0;
+  let ss = 0;
+  for (let i = 0; i < x.length; i++) {
+    const d = x[i] - m0;
+    c += d;
+    ss += d * d;
+  }
+  const n = x.length;
+  return [m0 + c / n, Math.sqrt(Math.max(0, (ss - (c * c) / n) / (n - 1)))];
+}
+
+/**
+ * Bin a sample and fit the normal curve to it.
+ *
+ * @param x the sample (finite numbers, at least 2, not all equal)
+ * @param options rule, bin cap, curve resolution
+ * @example
+ * ```ts
+ * import { histogramData } from "./histogram_data.ts";
+ * const h = histogramData([1, 2, 2, 3, 3, 3, 4, 4, 5, 9]);
+ * const total = h.counts.reduce((s, c) => s + c, 0);
+ * if (total !== 10 || h.edges[0] !== 1 || h.edges[h.edges.length - 1] !== 9) throw new Error("bins");
+ * ```
+ */
+export function histogramData(x: ArrayLike<number>, options: HistogramOptions = {}): HistogramData {
+  const what = "a histogram";
+  checkSize(x.length, 2, Infinity, what);
+  const data = finiteCopy(x, what);
+  const n = data.length;
+  let min = Infinity;
+  let max = -Infinity;
+  for (let i = 0; i < n; i++) {
+    if (data[i] < min) min = data[i];
+    if (data[i] > max) max = data[i];
+  }
+  checkNotConstant(Float64Array.of(min, max), what);
+  const maxBins = options.maxBins ?? 200;
+  const curvePoints = options.curvePoints ?? 121;
+  if (!Number.isInteger(maxBins) || maxBins < 1) {
+    throw new PlumbError(
+      "bad-option",
+      `Cannot use maxBins = ${maxBins}: use a whole number of at least 1`,
+    );
+  }
+  if (!Number.isInteger(curvePoints) || curvePoints < 2) {
+    throw new PlumbError(
+      "bad-option",
+      `Cannot use curvePoints = ${curvePoints}: use a whole number of at least 2`,
+    );
+  }
+  const [mean, sd] = _meanSd(data);
+  let rule: BinRule = options.rule ?? "freedman-diaconis";
+  const range = max - min;
+  const cube = Math.cbrt(n);
+  let k: number;
+  let ruleNote: string;
+  if (rule === "freedman-diaconis") {
+    const scratch = data.slice();
+    const iqr = _quantile7(scratch, 0.75) - _quantile7(scratch, 0.25);
+    if (iqr > 0) {
+      k = Math.ceil(range / ((2 * iqr) / cube));
+      ruleNote = "Freedman–Diaconis bin width 2·IQR·n^(−1/3) (Freedman & Diaconis 1981)";
+    } else {
+      rule = "scott";
+      k = Math.ceil(range / ((3.49 * sd) / cube));
+      ruleNote = "Scott bin width 3.49·sd·n^(−1/3) (Scott 1979), because the interquartile " +
+        "range is 0 and the Freedman–Diaconis width would be 0";
+    }
+  } else if (rule === "scott") {
+    k = Math.ceil(range / ((3.49 * sd) / cube));
+    ruleNote = "Scott bin width 3.49·sd·n^(−1/3) (Scott 1979)";
+  } else if (rule === "sturges") {
+    k = Math.ceil(Math.log2(n)) + 1;
+    ruleNote = "Sturges's ⌈log₂ n⌉ + 1 bins (Sturges 1926)";
+  } else {
+    throw new PlumbError(
+      "bad-option",
+      `Cannot bin with rule ${JSON.stringify(rule)}: use "freedman-diaconis", "scott" or "sturges"`,
+    );
+  }
+  if (k > maxBins) {
+    k = maxBins;
+    ruleNote += `, capped at ${maxBins} bins`;
+  }
+  k = Math.max(1, k);
+  const width = range / k;
+  const edges: number[] = new Array(k + 1);
+  for (let j = 0; j <= k; j++) edges[j] = j === k ? max : min + j * width;
+  const counts: number[] = new Array(k).fill(0);
+  for (let i = 0; i < n; i++) {
+    let b = Math.floor((data[i] - min) / width);
+    if (b >= k) b = k - 1;
+    // guard against rounding at an interior edge: place by the stored edges
+    if (b > 0 && data[i] < edges[b]) b--;
+    else if (b < k - 1 && data[i] >= edges[b + 1]) b++;
+    counts[b]++;
+  }
+  const curveX: number[] = new Array(curvePoints);
+  const curveY: number[] = new Array(curvePoints);
+  const scale = (n * width) / sd;
+  for (let j = 0; j < curvePoints; j++) {
+    const t = j === curvePoints - 1 ? max : min + (j * range) / (curvePoints - 1);
+    curveX[j] = t;
+    curveY[j] = scale * normalPdf((t - mean) / sd);
+  }
+  return Object.freeze({
+    n,
+    rule,
+    ruleNote,
+    binWidth: width,
+    edges: Object.freeze(edges),
+    counts: Object.freeze(counts),
+    mean,
+    sd,
+    curveX: Object.freeze(curveX),
+    curveY: Object.freeze(curveY),
+  });
+}

@@ -1,0 +1,44 @@
+import assert from "node:assert/strict";
+import { chart, chartBundle } from "../../lib/render/chart_bundle.ts";
+import { DISPLAY, displayable, lazyDisplayable, VEGALITE_MIME } from "../../lib/render/display.ts";
+import { qqSpec } from "../../lib/render/qq_spec.ts";
+import { qqData } from "../../lib/stats/qq_data.ts";
+
+const spec = qqSpec(qqData([5.1, 4.9, 5.3, 5.0, 5.2, 4.7, 5.6, 4.8]), { name: "fill" });
+
+Deno.test("DISPLAY is the symbol the Deno kernel looks for", () => {
+  assert.equal(DISPLAY, Symbol.for("Jupyter.display"));
+});
+
+Deno.test("a chart displays asynchronously, renders once, and can be prepared", async () => {
+  const c = chart(spec);
+  const pending = c[DISPLAY]();
+  assert.ok(pending instanceof Promise, "the display method is async (the kernel awaits it)");
+  const first = await pending;
+  const second = await c[DISPLAY]();
+  assert.equal(first, second, "rendered once and cached");
+  const ready = await c.prepare();
+  assert.equal(ready[DISPLAY](), ready.bundle, "a prepared chart displays synchronously");
+  assert.deepEqual(Object.keys(first).sort(), [VEGALITE_MIME, "text/html", "text/plain"].sort());
+  assert.ok(Object.isFrozen(c) && Object.isFrozen(first));
+});
+
+Deno.test("chartBundle's text/plain is the title line and the description", async () => {
+  const b = await chartBundle(spec);
+  const [title, description] = b["text/plain"].split("\n");
+  assert.equal(
+    title,
+    "fill — normal QQ plot · all 8 points line: 5.075 + 0.2915·z (mean, sd) · band: pointwise 95% envelope",
+  );
+  assert.equal(description, (spec as { description: string }).description);
+  const custom = await chartBundle(spec, { title: "T", description: "D" });
+  assert.equal(custom["text/plain"], "T\nD");
+  assert.match(custom["text/html"]!, /<title id="[^"]+">T<\/title><desc id="[^"]+">D<\/desc>/);
+});
+
+Deno.test("displayable and lazyDisplayable freeze their bundles", async () => {
+  const d = displayable({ "text/plain": "x" });
+  assert.ok(Object.isFrozen(d.bundle));
+  const l = lazyDisplayable(() => Promise.resolve({ "text/plain": "y" }));
+  assert.equal((await l[DISPLAY]())["text/plain"], "y");
+});

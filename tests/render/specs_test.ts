@@ -1,0 +1,63 @@
+import assert from "node:assert/strict";
+import { compile } from "vega-lite";
+import { chartBundle } from "../../lib/render/chart_bundle.ts";
+import { VEGALITE_MIME } from "../../lib/render/display.ts";
+import { renderSvg } from "../../lib/render/svg.ts";
+import { KINDS, specsFor } from "./_samples.ts";
+
+const specs = specsFor(500, "fill volume (mL)");
+
+for (const kind of KINDS) {
+  Deno.test(`${kind}: the spec compiles with vega-lite 5 and renders with vega, without warnings`, async () => {
+    const spec = specs[kind];
+    assert.equal(
+      (spec as { $schema?: string }).$schema,
+      "https://vega.github.io/schema/vega-lite/v5.json",
+    );
+    const warnings: string[] = [];
+    const logger = {
+      level: () => logger,
+      warn: (...a: unknown[]) => (warnings.push(a.join(" ")), logger),
+      error: (...a: unknown[]) => (warnings.push(a.join(" ")), logger),
+      info: () => logger,
+      debug: () => logger,
+    };
+    // deno-lint-ignore no-explicit-any
+    const vg = compile(spec, { logger: logger as any }).spec;
+    assert.ok(vg.marks !== undefined && vg.marks.length > 0);
+    const svg = await renderSvg(spec, { warnings });
+    assert.deepEqual(warnings, []);
+    assert.ok(svg.startsWith("<svg"));
+    assert.ok(svg.endsWith("</svg>"));
+  });
+
+  Deno.test(`${kind}: the bundle holds Vega-Lite, HTML with an accessible SVG, and plain text`, async () => {
+    const b = await chartBundle(specs[kind]);
+    assert.deepEqual(Object.keys(b).sort(), [VEGALITE_MIME, "text/html", "text/plain"].sort());
+    const html = b["text/html"]!;
+    assert.match(
+      html,
+      /^<div class="plumbline-chart"[^>]*><svg [^>]*role="img" aria-labelledby="([^"]+)-title \1-desc"><title id="\1-title">/,
+    );
+    assert.match(html, /<desc id="[^"]+-desc">[^<]{40,}<\/desc>/);
+    assert.ok(!b["text/plain"].includes("\u001b"), "no ANSI codes");
+    assert.ok(b["text/plain"].startsWith("fill volume (mL)"));
+    assert.equal(b[VEGALITE_MIME], specs[kind]);
+  });
+}
+
+Deno.test("every chart draws its own white background (legible on a dark theme)", async () => {
+  for (const kind of KINDS) {
+    const svg = await renderSvg(specs[kind]);
+    assert.match(svg, /^<svg[^>]*><rect width="\d+" height="\d+" fill="#ffffff"\/>/, kind);
+  }
+});
+
+Deno.test("the QQ chart says how many points it shows and names its methods", () => {
+  const t = JSON.stringify(specs.qq);
+  assert.ok(t.includes("normal QQ plot · all 500 points"));
+  assert.ok(t.includes("band: pointwise 95% envelope"));
+  assert.ok(t.includes("Blom's plotting positions (i − 3/8)/(n + 1/4)"));
+  const big = JSON.stringify(specsFor(5000, "x").qq);
+  assert.ok(big.includes("800 of 5,000 points shown (tails in full)"));
+});

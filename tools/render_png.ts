@@ -1,0 +1,107 @@
+/**
+ * Render one chart of every kind (QQ, detrended QQ, histogram, comparison
+ * panel, QQ by group, λ explorer) from invented, seeded data to SVG, and to
+ * PNG with `rsvg-convert` (Debian package `librsvg2-bin`) when it is
+ * installed, for looking at by eye. Not used by the tests.
+ *
+ * Run: `deno run --allow-read --allow-write --allow-run --allow-env tools/render_png.ts [outdir]`
+ * (default outdir: `out/charts`).
+ *
+ * @module
+ */
+import type { TopLevelSpec } from "vega-lite";
+import { chartBundle } from "../lib/render/chart_bundle.ts";
+import { comparisonSpec } from "../lib/render/comparison_spec.ts";
+import { groupSpec } from "../lib/render/group_spec.ts";
+import { histogramSpec } from "../lib/render/histogram_spec.ts";
+import { lambdaExplorerSpec } from "../lib/render/lambda_explorer_spec.ts";
+import { detrendedSpec, qqSpec } from "../lib/render/qq_spec.ts";
+import { histogramData } from "../lib/stats/histogram_data.ts";
+import { qqData } from "../lib/stats/qq_data.ts";
+
+/** Invented data: standard normals from xorshift32 and Box–Muller, seeded. */
+function normals(n: number, seed: number): Float64Array {
+  let s = seed >>> 0 || 1;
+  const u = () => {
+    s ^= s << 13;
+    s ^= s >>> 17;
+    s ^= s << 5;
+    return ((s >>> 0) + 0.5) / 4294967296;
+  };
+  return Float64Array.from(
+    { length: n },
+    () => Math.sqrt(-2 * Math.log(u())) * Math.cos(2 * Math.PI * u()),
+  );
+}
+
+const boxCox = (x: Float64Array, l: number) =>
+  x.map((v) => (l === 0 ? Math.log(v) : (v ** l - 1) / l));
+
+/** Specs of every chart kind, on an invented bottling-plant sample. */
+function specs(): Record<string, TopLevelSpec> {
+  const oxygen = normals(400, 11).map((z) => Math.exp(0.9 + 0.55 * z)); // right skewed
+  const q = qqData(oxygen);
+  const lambdas = Array.from({ length: 31 }, (_, k) => Math.round((-1.5 + k * 0.1) * 10) / 10);
+  let logSum = 0;
+  for (const v of oxygen) logSum += Math.log(v);
+  const logLik = lambdas.map((l) => {
+    const y = boxCox(oxygen, l);
+    const m = y.reduce((a, b) => a + b, 0) / y.length;
+    const ss = y.reduce((a, b) => a + (b - m) ** 2, 0);
+    return (-y.length / 2) * Math.log(ss / y.length) + (l - 1) * logSum;
+  });
+  const fills = [0, 1, 2].map((k) =>
+    normals(80 + 30 * k, 20 + k).map((z) => 500 + 0.4 * k + (0.6 + 0.2 * k) * z)
+  );
+  return {
+    qq: qqSpec(q, { name: "dissolved oxygen (mg/L)" }),
+    detrended: detrendedSpec(q, { name: "dissolved oxygen (mg/L)" }),
+    histogram: histogramSpec(histogramData(oxygen), { name: "dissolved oxygen (mg/L)" }),
+    comparison: comparisonSpec([
+      { label: "as measured", qq: q, W: 0.89, p: 1e-9 },
+      { label: "square root", qq: qqData(oxygen.map(Math.sqrt)), W: 0.975, p: 0.0002 },
+      { label: "log", qq: qqData(oxygen.map(Math.log)), W: 0.997, p: 0.61, note: "best" },
+    ], { name: "dissolved oxygen (mg/L)" }),
+    groups: groupSpec(
+      fills.map((f, k) => ({ group: `filler ${["A", "B", "C"][k]}`, qq: qqData(f) })),
+      { name: "net fill (mL)", by: "filler line" },
+    ),
+    lambda: lambdaExplorerSpec({
+      lambdas,
+      logLik,
+      lambdaHat: 0.04,
+      ci: [-0.08, 0.16],
+      perLambda: lambdas.map((l, k) => ({
+        W: 0.9 + 0.003 * (15 - Math.abs(k - 15)),
+        p: 0.01 * (15 - Math.abs(k - 15)) / 15,
+        qq: qqData(boxCox(oxygen, l)),
+      })),
+    }, { name: "dissolved oxygen (mg/L)" }),
+  };
+}
+
+if (import.meta.main) {
+  const out = Deno.args[0] ?? "out/charts";
+  await Deno.mkdir(out, { recursive: true });
+  let rsvg = true;
+  for (const [kind, spec] of Object.entries(specs())) {
+    const html = (await chartBundle(spec))["text/html"]!;
+    const svg = html.slice(html.indexOf("<svg"), html.lastIndexOf("</svg>") + 6);
+    const svgPath = `${out}/${kind}.svg`;
+    await Deno.writeTextFile(svgPath, svg);
+    if (rsvg) {
+      try {
+        const r = await new Deno.Command("rsvg-convert", {
+          args: ["--zoom", "1.5", "--output", `${out}/${kind}.png`, svgPath],
+        }).output();
+        if (!r.success) throw new Error(new TextDecoder().decode(r.stderr));
+      } catch (e) {
+        rsvg = false;
+        console.error(
+          `No PNG: rsvg-convert failed or is missing (apt-get install librsvg2-bin): ${e}`,
+        );
+      }
+    }
+    console.log(`${svgPath}${rsvg ? ` and ${out}/${kind}.png` : ""}`);
+  }
+}
