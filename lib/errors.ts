@@ -25,6 +25,8 @@ export type PlumbErrorCode =
   | "non-numeric"
   /** A CSV source that cannot be read as a table. */
   | "malformed"
+  /** A file that does not exist. */
+  | "not-found"
   /** A column or group that the table does not have. */
   | "unknown-column"
   /** An option outside its allowed values. */

@@ -1,0 +1,104 @@
+/**
+ * Assemble a frozen {@linkcode Table} from raw columns: classify each column,
+ * count its cells and wire up the accessors.
+ *
+ * @module
+ */
+import type { ColumnInfo, ColumnKind, HeaderRename, NumericColumnOptions, Table } from "./table.ts";
+import { _rawColumn, _remember } from "./_table_store.ts";
+import { type _RawColumn, CELL_MISSING, CELL_NUMBER } from "./_raw_column.ts";
+import { numericCells, numericColumn } from "./numeric_column.ts";
+import { textColumn } from "./text_column.ts";
+import { parseNumber } from "./number_parse.ts";
+
+/** What a reader knows about the source besides its columns. */
+export interface _TableMeta {
+  readonly source: string;
+  readonly rowCount: number;
+  readonly renamed: readonly HeaderRename[];
+  readonly delimiter: string | null;
+  readonly decimal: "." | ",";
+}
+
+/**
+ * The kind rule (see `ColumnKind`): numeric when there is at least one number
+ * and fewer text cells than numbers; empty when every cell is missing; text
+ * otherwise.
+ */
+export function _kind(numbers: number, text: number): ColumnKind {
+  if (numbers === 0 && text === 0) return "empty";
+  return numbers > 0 && text < numbers ? "numeric" : "text";
+}
+
+/** Build the table; the raw columns must already carry unique names. */
+export function _buildTable(columns: readonly _RawColumn[], meta: _TableMeta): Table {
+  const byName = new Map<string, _RawColumn>();
+  const infos: ColumnInfo[] = [];
+  for (const col of columns) {
+    byName.set(col.name, col);
+    let numbers = 0;
+    let missing = 0;
+    const status = col.status;
+    for (let i = 0; i < status.length; i++) {
+      const s = status[i];
+      if (s === CELL_NUMBER) numbers++;
+      else if (s === CELL_MISSING) missing++;
+    }
+    const nonNumeric = status.length - numbers - missing;
+    const kind = _kind(numbers, nonNumeric);
+    infos.push(Object.freeze({
+      name: col.name,
+      kind,
+      hint: kind === "text" ? _decimalHint(col, meta.decimal, nonNumeric) : null,
+      provenance: Object.freeze({
+        source: meta.source,
+        column: col.name,
+        originalName: col.originalName,
+        rowsRead: meta.rowCount,
+        numbers,
+        missing,
+        nonNumeric,
+        nonNumericCells: Object.freeze(col.notes.slice()),
+      }),
+    }));
+  }
+  const infoByName = new Map(infos.map((c) => [c.name, c]));
+  const table: Table = Object.freeze({
+    source: meta.source,
+    rowCount: meta.rowCount,
+    columns: Object.freeze(infos),
+    renamed: meta.renamed,
+    delimiter: meta.delimiter,
+    decimal: meta.decimal,
+    has: (name: string) => byName.has(name),
+    info: (name: string) => infoByName.get(_rawColumn(table, name).name) as ColumnInfo,
+    numericNames: () => infos.filter((c) => c.kind === "numeric").map((c) => c.name),
+    textNames: () => infos.filter((c) => c.kind === "text").map((c) => c.name),
+    numeric: (name: string, options?: NumericColumnOptions) => numericColumn(table, name, options),
+    numericCells: (name: string) => numericCells(table, name),
+    text: (name: string) => textColumn(table, name),
+    toJSON: () => ({
+      source: meta.source,
+      rowCount: meta.rowCount,
+      columns: infos,
+      renamed: meta.renamed,
+      delimiter: meta.delimiter,
+      decimal: meta.decimal,
+    }),
+  });
+  _remember(table, { byName, order: columns.map((c) => c.name) });
+  return table;
+}
+
+/** The remark for a text column that the other decimal mark would read as numbers. */
+function _decimalHint(col: _RawColumn, decimal: "." | ",", nonNumeric: number): string | null {
+  const other = decimal === "." ? "," : ".";
+  const notes = col.notes;
+  if (notes.length === 0) return null;
+  for (const n of notes) if (Number.isNaN(parseNumber(n.text, { decimal: other }))) return null;
+  return `Read as text with decimal: ${JSON.stringify(decimal)}, but ${
+    notes.length === nonNumeric ? "all" : `the first ${notes.length}`
+  } of its ${nonNumeric} text cells read as numbers with decimal: ${
+    JSON.stringify(other)
+  }; pass that option if the column holds measurements`;
+}

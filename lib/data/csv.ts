@@ -1,0 +1,114 @@
+/**
+ * The general CSV reader, built on csv-parse: quoted fields (with delimiters,
+ * quotes and line breaks inside), any of `\n`, `\r\n` or `\r` line ends.
+ *
+ * @module
+ */
+import { parse } from "csv-parse/sync";
+import { type _CellRules, _newColumn, _storeTextCell } from "./_raw_column.ts";
+import {
+  type _CsvRead,
+  _malformed,
+  _noHeader,
+  _ragged,
+  _unclosedQuoteLine,
+} from "./_csv_common.ts";
+import { uniqueNames } from "./header.ts";
+
+interface _Parsed {
+  readonly record: string[];
+  readonly raw: string;
+  readonly info: { readonly lines: number };
+}
+
+/**
+ * Read a CSV text with csv-parse.
+ *
+ * @param text the text, without a byte-order mark
+ * @param delimiter one character
+ * @param rules how cells are read
+ * @param source the source's name for messages
+ */
+export function _readCsv(
+  text: string,
+  delimiter: string,
+  rules: _CellRules,
+  source: string,
+): _CsvRead {
+  let all: _Parsed[];
+  try {
+    all = parse(text, {
+      delimiter,
+      skip_empty_lines: false,
+      trim: true,
+      info: true,
+      raw: true,
+      relax_column_count: true,
+    }) as unknown as _Parsed[];
+  } catch (e) {
+    throw _fromParser(e, text, source);
+  }
+  // Blank lines: skipped before the header and, when the header has several
+  // columns, everywhere; in a one-column table a blank line after the header
+  // is a missing cell. Same rule as the quick reader.
+  const blank = (p: _Parsed) => p.raw.replace(/[\r\n]/g, "") === "";
+  let first = 0;
+  while (first < all.length && blank(all[first])) first++;
+  if (first === all.length) throw _noHeader(source);
+  const end = all.length;
+  const header = all[first].record;
+  const parsed = [all[first]];
+  for (let r = first + 1; r < end; r++) {
+    if (header.length === 1 || !blank(all[r])) parsed.push(all[r]);
+  }
+  const { names, renamed } = uniqueNames(header);
+  const rows = parsed.length - 1;
+  const strings: string[][] = names.map(() => new Array(rows));
+  const lines = new Int32Array(rows);
+  const lineOf = (row: number) => lines[row];
+  const columns = names.map((name, j) =>
+    Object.assign(_newColumn(name, rows, () => strings[j], lineOf), {
+      originalName: header[j].trim(),
+    })
+  );
+  for (let r = 0; r < rows; r++) {
+    const { record, info } = parsed[r + 1];
+    // info.lines is the line where the record ends; a quoted field may span lines.
+    let breaks = 0;
+    for (const cell of record) {
+      for (let i = cell.indexOf("\n"); i !== -1; i = cell.indexOf("\n", i + 1)) {
+        breaks++;
+      }
+    }
+    const line = info.lines - breaks;
+    lines[r] = line;
+    if (record.length !== names.length) throw _ragged(source, line, record.length, names.length);
+    for (let j = 0; j < record.length; j++) {
+      const cell = record[j];
+      const trimmed = cell.trim();
+      strings[j][r] = rules.missing.has(trimmed.toLowerCase()) ? "" : cell;
+      _storeTextCell(columns[j], r, trimmed, line, rules);
+    }
+  }
+  return { columns, rowCount: rows, renamed };
+}
+
+/** Turn a csv-parse error into a `"malformed"` PlumbError naming the line. */
+function _fromParser(e: unknown, text: string, source: string) {
+  const err = e as { code?: string; lines?: number; message?: string };
+  if (err.code === "CSV_QUOTE_NOT_CLOSED") {
+    return _malformed(
+      source,
+      _unclosedQuoteLine(text) ?? err.lines ?? null,
+      "a quoted field opens on this line and is never closed",
+      "add the closing double quote",
+    );
+  }
+  const detail = String(err.message ?? e).split(":")[0].trim();
+  return _malformed(
+    source,
+    err.lines ?? null,
+    `the quoting cannot be read (${detail})`,
+    'put quotes only around whole fields and write a quote inside a quoted field as ""',
+  );
+}

@@ -1,0 +1,294 @@
+/**
+ * The quick CSV reader, for UTF-8 bytes without any double quote.
+ *
+ * Most measurement files have no quoted fields at all. For them this reader
+ * walks the bytes once, reading each field as a number while it looks for
+ * the field's end, and only turns a cell into a string when it is not a
+ * plain number (missing tokens, text, numbers with a thousands separator,
+ * numbers beyond the exact cases of `number_parse.ts`). That is several times
+ * faster than decoding the text and handing it to csv-parse, and the tests
+ * check that both readers give the same table on every fixture: the same
+ * cells, missing and text cells, line numbers and malformed-line errors.
+ *
+ * Blank lines are skipped, except in a one-column table, where a blank
+ * line after the header is a missing cell (counted like any other);
+ * `\r\n` and `\n` end lines; spaces (and tabs,
+ * unless tab is the delimiter) around each field are ignored. Numbers are
+ * read as in `number_parse.ts`: the same strict grammar, the same exact
+ * cases (Clinger 1990; Dekker 1971 double-double), `Number()` otherwise.
+ *
+ * Cell text is not kept as strings: each row's start offset is, and a
+ * column's text is cut from the bytes when it is first asked for.
+ *
+ * @module
+ */
+import { _cached, type _CellRules, type _RawColumn, _storeTextCell } from "./_raw_column.ts";
+import { type _CsvRead, _noHeader, _ragged } from "./_csv_common.ts";
+import { uniqueNames } from "./header.ts";
+import { _wideDecimal } from "./number_parse.ts";
+
+// Powers of ten that are exact in binary64 (10^0 … 10^22).
+const _POW10 = Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
+const _utf8 = new TextDecoder();
+
+type _Mutable = { -readonly [K in keyof _RawColumn]: _RawColumn[K] };
+
+/** Decode bytes[a, b) as UTF-8 (a cheap path for ASCII cells). */
+function _decode(bytes: Uint8Array, a: number, b: number): string {
+  if (b - a <= 64) {
+    let ascii = true;
+    for (let i = a; i < b; i++) {
+      if (bytes[i] > 127) {
+        ascii = false;
+        break;
+      }
+    }
+    if (ascii) return String.fromCharCode.apply(null, bytes.subarray(a, b) as unknown as number[]);
+  }
+  return _utf8.decode(bytes.subarray(a, b));
+}
+
+/**
+ * Read a quote-free CSV held as UTF-8 bytes; `null` as soon as a double
+ * quote or a lone `\r` shows that the general reader is needed.
+ *
+ * @param bytes the text's bytes, without a byte-order mark
+ * @param delimiter one ASCII character
+ * @param rules how cells are read
+ * @param source the source's name for messages
+ */
+export function _readSimpleCsv(
+  bytes: Uint8Array,
+  delimiter: string,
+  rules: _CellRules,
+  source: string,
+): _CsvRead | null {
+  // A final "\n" is a sentinel: every scan below stops at one, so none needs
+  // a bounds check. Adding it changes no row, cell or line number.
+  if (bytes.length > 0 && bytes[bytes.length - 1] !== 10) {
+    const padded = new Uint8Array(bytes.length + 1);
+    padded.set(bytes);
+    padded[bytes.length] = 10;
+    bytes = padded;
+  }
+  const n = bytes.length;
+  const dc = delimiter.charCodeAt(0);
+  const tabIsSpace = dc !== 9;
+  const decimalCode = rules.decimalCode;
+  let pos = 0;
+  let line = 1;
+  // Header: the first non-blank line.
+  let headerEnd = 0;
+  let contentEnd = 0;
+  for (;;) {
+    if (pos >= n) throw _noHeader(source);
+    headerEnd = bytes.indexOf(10, pos);
+    if (headerEnd === -1) headerEnd = n;
+    contentEnd = headerEnd > pos && bytes[headerEnd - 1] === 13 ? headerEnd - 1 : headerEnd;
+    if (contentEnd > pos) break;
+    pos = headerEnd + 1;
+    line++;
+  }
+  const headerText = _utf8.decode(bytes.subarray(pos, contentEnd));
+  if (headerText.indexOf('"') !== -1 || headerText.indexOf("\r") !== -1) return null;
+  const header = headerText.split(delimiter);
+  const { names, renamed } = uniqueNames(header);
+  const ncol = names.length;
+  const last = ncol - 1;
+  pos = headerEnd + 1;
+  line++;
+
+  // Room for rows: an estimate from the first data line, doubled when short.
+  // Pages of a fresh buffer that are never written cost nothing.
+  let firstLine = bytes.indexOf(10, pos) - pos;
+  if (firstLine <= 0) firstLine = Math.max(1, n - pos);
+  let capacity = Math.ceil((n - pos) / firstLine * 1.25) + 16;
+  let starts = new Int32Array(capacity);
+  let lines = new Int32Array(capacity);
+  const lineOf = (row: number) => lines[row];
+  const values: Float64Array[] = [];
+  const statuses: Uint8Array[] = [];
+  let rowCount = 0;
+  const columns: _Mutable[] = names.map((name, j) => {
+    const col: _Mutable = {
+      name,
+      originalName: header[j].trim(),
+      values: new Float64Array(capacity),
+      status: new Uint8Array(capacity),
+      notes: [],
+      texts: _cached(() => _columnTexts(bytes, starts.subarray(0, rowCount), j, last, dc)),
+      lineOf,
+    };
+    values.push(col.values);
+    statuses.push(col.status);
+    return col;
+  });
+  const grow = () => {
+    capacity *= 2;
+    const more = <T extends Float64Array | Uint8Array | Int32Array>(
+      a: T,
+      make: (k: number) => T,
+    ): T => {
+      const b = make(capacity);
+      b.set(a);
+      return b;
+    };
+    starts = more(starts, (k) => new Int32Array(k));
+    lines = more(lines, (k) => new Int32Array(k));
+    for (let j = 0; j < ncol; j++) {
+      values[j] = columns[j].values = more(values[j], (k) => new Float64Array(k));
+      statuses[j] = columns[j].status = more(statuses[j], (k) => new Uint8Array(k));
+    }
+  };
+
+  const skipBlank = ncol > 1;
+  let wide = 0;
+  let row = 0;
+  while (pos < n) {
+    let c = bytes[pos];
+    if (skipBlank && (c === 10 || (c === 13 && bytes[pos + 1] === 10))) {
+      pos += c === 10 ? 1 : 2;
+      line++;
+      continue;
+    }
+    if (row === capacity) grow();
+    starts[row] = pos;
+    lines[row] = line;
+    for (let j = 0; j < ncol; j++) {
+      // Leading spaces.
+      let i = pos;
+      c = bytes[i];
+      while (c === 32 || (c === 9 && tabIsSpace)) c = bytes[++i];
+      const a = i;
+      // A number, read while looking for the end of the field.
+      let negative = false;
+      if (c === 45 || c === 43) {
+        negative = c === 45;
+        c = bytes[++i];
+      }
+      let mantissa = 0; // the first 15 significant digits
+      let low = 0; // significant digits 16 to 19
+      let significant = 0;
+      let digits = 0;
+      let scale = 0;
+      while (c >= 48 && c <= 57) {
+        if (significant > 0 || c !== 48) {
+          if (significant < 15) mantissa = mantissa * 10 + (c - 48);
+          else if (significant < 19) low = low * 10 + (c - 48);
+          significant++;
+        }
+        digits++;
+        c = bytes[++i];
+      }
+      if (c === decimalCode) {
+        c = bytes[++i];
+        while (c >= 48 && c <= 57) {
+          if (significant > 0 || c !== 48) {
+            if (significant < 15) mantissa = mantissa * 10 + (c - 48);
+            else if (significant < 19) low = low * 10 + (c - 48);
+            significant++;
+          }
+          scale--;
+          digits++;
+          c = bytes[++i];
+        }
+      }
+      let ok = digits > 0;
+      let exponent = 0;
+      if (ok && (c === 101 || c === 69)) {
+        c = bytes[++i];
+        let expNegative = false;
+        if (c === 45 || c === 43) {
+          expNegative = c === 45;
+          c = bytes[++i];
+        }
+        const expStart = i;
+        while (c >= 48 && c <= 57) {
+          if (exponent < 100000) exponent = exponent * 10 + (c - 48);
+          c = bytes[++i];
+        }
+        if (i === expStart) ok = false;
+        if (expNegative) exponent = -exponent;
+      }
+      let b = i;
+      // Trailing spaces, then the field must end here.
+      while (c === 32 || (c === 9 && tabIsSpace)) c = bytes[++i];
+      if (!(c === dc || c === 10 || (c === 13 && bytes[i + 1] === 10))) {
+        ok = false;
+        while (!(c === dc || c === 10 || (c === 13 && bytes[i + 1] === 10))) {
+          c = bytes[++i];
+        }
+        b = i;
+        while (b > a && (bytes[b - 1] === 32 || (bytes[b - 1] === 9 && tabIsSpace))) b--;
+      }
+      const k = exponent + scale;
+      if (ok && significant <= 15 && k >= -22 && k <= 22) {
+        // Clinger's exact case: mantissa and 10^|k| are exact, one rounding.
+        const v = k >= 0 ? mantissa * _POW10[k] : mantissa / _POW10[-k];
+        values[j][row] = negative ? -v : v;
+      } else if (
+        ok && significant <= 19 && k >= -22 && k <= 22 &&
+        (wide = _wideDecimal(mantissa, low, significant - 15, k)) === wide
+      ) {
+        values[j][row] = negative ? -wide : wide;
+      } else {
+        const cell = _decode(bytes, a, b);
+        // A quote or a lone "\r": this text is for the general reader.
+        if (cell.indexOf('"') !== -1 || cell.indexOf("\r") !== -1) return null;
+        _storeTextCell(columns[j], row, cell, line, rules);
+      }
+      // Field separator or line end.
+      if (c === dc) {
+        if (j === last) throw _ragged(source, line, _fieldsOnLine(bytes, starts[row], dc), ncol);
+        pos = i + 1;
+      } else {
+        if (j < last) throw _ragged(source, line, _fieldsOnLine(bytes, starts[row], dc), ncol);
+        pos = c === 13 ? i + 2 : i + 1;
+      }
+    }
+    row++;
+    line++;
+  }
+  rowCount = row;
+  const trimmed: _RawColumn[] = columns.map((c) => ({
+    ...c,
+    values: c.values.subarray(0, row),
+    status: c.status.subarray(0, row),
+  }));
+  return { columns: trimmed, rowCount, renamed };
+}
+
+/** How many fields the line starting at `start` has. */
+function _fieldsOnLine(bytes: Uint8Array, start: number, dc: number): number {
+  let fields = 1;
+  for (let i = start; i < bytes.length && bytes[i] !== 10; i++) if (bytes[i] === dc) fields++;
+  return fields;
+}
+
+/** Cut one column's cells out of the bytes, row by row, trimmed. */
+function _columnTexts(
+  bytes: Uint8Array,
+  starts: Int32Array,
+  j: number,
+  last: number,
+  dc: number,
+): string[] {
+  const isSpace = (c: number) => c === 32 || (c === 9 && dc !== 9);
+  const out: string[] = new Array(starts.length);
+  for (let r = 0; r < starts.length; r++) {
+    let a = starts[r];
+    for (let k = 0; k < j; k++) a = bytes.indexOf(dc, a) + 1;
+    let b: number;
+    if (j < last) {
+      b = bytes.indexOf(dc, a);
+    } else {
+      b = bytes.indexOf(10, a);
+      if (b === -1) b = bytes.length;
+      if (b > a && bytes[b - 1] === 13) b--;
+    }
+    while (a < b && isSpace(bytes[a])) a++;
+    while (b > a && isSpace(bytes[b - 1])) b--;
+    out[r] = _decode(bytes, a, b);
+  }
+  return out;
+}
