@@ -1,6 +1,6 @@
 /**
  * Static SVG from a Vega-Lite spec, rendered by vega without a browser or
- * canvas (`renderer: "none"`; text widths are vega's estimates), and made
+ * canvas (`renderer: "none"`; text widths from per-character metrics, see text_width.ts), and made
  * accessible with a `<title>` and a `<desc>`.
  *
  * @module
@@ -9,6 +9,12 @@ import * as vega from "vega";
 import { compile } from "vega-lite";
 import type { TopLevelSpec } from "vega-lite";
 import { escapeHtml } from "./escape.ts";
+import { vegaTextWidth } from "./text_width.ts";
+
+// Without a canvas vega estimates 0.8 em per character, which makes charts
+// wider and taller than their text; measure with per-character widths instead.
+(vega as unknown as { textMetrics: { width: typeof vegaTextWidth } }).textMetrics.width =
+  vegaTextWidth;
 
 /** Options for {@linkcode renderSvg}. */
 export interface RenderOptions {
