@@ -10,6 +10,8 @@ import { type _RawColumn, CELL_MISSING, CELL_NUMBER } from "./_raw_column.ts";
 import { numericCells, numericColumn } from "./numeric_column.ts";
 import { textColumn } from "./text_column.ts";
 import { parseNumber } from "./number_parse.ts";
+import { DISPLAY } from "../render/display.ts";
+import { tableSummaryBundle } from "../render/table_summary.ts";
 
 /** What a reader knows about the source besides its columns. */
 export interface _TableMeta {
@@ -63,6 +65,14 @@ export function _buildTable(columns: readonly _RawColumn[], meta: _TableMeta): T
     }));
   }
   const infoByName = new Map(infos.map((c) => [c.name, c]));
+  const summary = Object.freeze({
+    source: meta.source,
+    rowCount: meta.rowCount,
+    columns: Object.freeze(infos),
+    renamed: meta.renamed,
+    delimiter: meta.delimiter,
+    decimal: meta.decimal,
+  });
   const table: Table = Object.freeze({
     source: meta.source,
     rowCount: meta.rowCount,
@@ -77,14 +87,9 @@ export function _buildTable(columns: readonly _RawColumn[], meta: _TableMeta): T
     numeric: (name: string, options?: NumericColumnOptions) => numericColumn(table, name, options),
     numericCells: (name: string) => numericCells(table, name),
     text: (name: string) => textColumn(table, name),
-    toJSON: () => ({
-      source: meta.source,
-      rowCount: meta.rowCount,
-      columns: infos,
-      renamed: meta.renamed,
-      delimiter: meta.delimiter,
-      decimal: meta.decimal,
-    }),
+    toJSON: () => summary,
+    // Shown by notebook front ends: the columns with their counts and first text cells.
+    [DISPLAY]: () => tableSummaryBundle(summary),
   });
   _remember(table, { byName, order: columns.map((c) => c.name) });
   return table;
