@@ -29,3 +29,23 @@ export {
   holmAdjust,
 } from "./lib/stats/multiplicity.ts";
 export { sortFloat64 } from "./lib/numeric/sort.ts";
+export { loadTable, type LoadTableOptions, type TableSource } from "./lib/data/load_table.ts";
+export type { ColumnInfo, NumericColumn, Table, TextColumn } from "./lib/data/table.ts";
+export { Plumb, plumb, type PlumbOptions, type Sentence } from "./lib/plumb/plumb.ts";
+export { Survey, survey, type SurveyOptions } from "./lib/plumb/survey.ts";
+export { type GroupOptions, PlumbGroups } from "./lib/plumb/groups.ts";
+export type { Analysis, TestOutcome } from "./lib/plumb/analysis.ts";
+export type { Reading, Verdict } from "./lib/plumb/reading.ts";
+export type { ReexpressRequest } from "./lib/plumb/steps.ts";
+export { boxCoxFit } from "./lib/reexpress/box_cox_fit.ts";
+export { yeoJohnsonFit } from "./lib/reexpress/yeo_johnson_fit.ts";
+export type { LambdaFit, LambdaFitOptions } from "./lib/reexpress/lambda_fit.ts";
+export { boxCox, boxCoxInverse } from "./lib/reexpress/box_cox.ts";
+export { yeoJohnson, yeoJohnsonInverse } from "./lib/reexpress/yeo_johnson.ts";
+export { logInverse, logShift, logTransform } from "./lib/reexpress/log.ts";
+export { squareRoot, squareRootInverse } from "./lib/reexpress/square_root.ts";
+export { reciprocal, reciprocalInverse } from "./lib/reexpress/reciprocal.ts";
+export { searchReexpressions } from "./lib/reexpress/search.ts";
+export { backTransformMean } from "./lib/reexpress/back_transform.ts";
+export { qqData } from "./lib/stats/qq_data.ts";
+export { histogramData } from "./lib/stats/histogram_data.ts";

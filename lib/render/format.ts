@@ -95,3 +95,21 @@ export function formatPClause(p: number): string {
   const s = formatP(p);
   return s.startsWith("<") ? `p ${s}` : `p = ${s}`;
 }
+
+/**
+ * A mean (or other centre) beside its spread: `0` when it is rounding noise
+ * next to the standard deviation (|mean| ≤ 1e-9·sd, as for residuals), else
+ * {@linkcode formatNumber}.
+ *
+ * @param mean the centre
+ * @param sd the spread
+ * @param digits significant digits, default 4
+ * @example
+ * ```ts
+ * import { formatCentre } from "./format.ts";
+ * if (formatCentre(-7.6e-14, 1.3) !== "0" || formatCentre(2.5, 1) !== "2.500") throw new Error("centre");
+ * ```
+ */
+export function formatCentre(mean: number, sd: number, digits = 4): string {
+  return Math.abs(mean) <= 1e-9 * Math.abs(sd) ? "0" : formatNumber(mean, digits);
+}

@@ -7,7 +7,7 @@
 import type { TopLevelSpec } from "vega-lite";
 import type { QqData } from "../stats/qq_data.ts";
 import { _defaultPerPanel, _gridCheck } from "./comparison_spec.ts";
-import { formatCount, formatNumber } from "./format.ts";
+import { formatCentre, formatCount, formatNumber } from "./format.ts";
 import { _qqPanel, VEGALITE_SCHEMA } from "./qq_spec.ts";
 import { CHART_CONFIG, PANEL } from "./theme.ts";
 
@@ -73,7 +73,7 @@ export function groupSpec(
       name,
       title: g.group,
       subtitle: [
-        `n = ${formatCount(g.qq.n)} · mean ${formatNumber(g.qq.mean)} · sd ${
+        `n = ${formatCount(g.qq.n)} · mean ${formatCentre(g.qq.mean, g.qq.sd)} · sd ${
           formatNumber(g.qq.sd)
         }`,
         `${formatCount(g.qq.outsideCount)} of ${formatCount(g.qq.shown)} shown outside band`,

@@ -10,7 +10,7 @@
  */
 import type { TopLevelSpec } from "vega-lite";
 import type { HistogramData } from "../stats/histogram_data.ts";
-import { formatCount, formatNumber, roundSig } from "./format.ts";
+import { formatCentre, formatCount, formatNumber, roundSig } from "./format.ts";
 import { VEGALITE_SCHEMA } from "./qq_spec.ts";
 import { CHART_CONFIG, PALETTE, PANEL } from "./theme.ts";
 
@@ -42,7 +42,9 @@ export function _histogramDescription(h: HistogramData, name: string): string {
     `${formatNumber(h.edges[h.edges.length - 1])}; bins by the ${h.ruleNote}. The tallest bin, ` +
     `${formatNumber(h.edges[peak])} to ${formatNumber(h.edges[peak + 1])}, holds ` +
     `${formatCount(h.counts[peak])} values. The curve is the normal density with mean ` +
-    `${formatNumber(h.mean)} and standard deviation ${formatNumber(h.sd)}, scaled to counts ` +
+    `${formatCentre(h.mean, h.sd)} and standard deviation ${
+      formatNumber(h.sd)
+    }, scaled to counts ` +
     `(n × bin width × density).`;
 }
 
@@ -77,7 +79,9 @@ export function histogramSpec(h: HistogramData, options: HistogramSpecOptions = 
         `histogram · ${formatCount(h.n)} values · ${h.counts.length} bins of width ${
           formatNumber(h.binWidth)
         }`,
-        `normal curve: mean ${formatNumber(h.mean)}, sd ${formatNumber(h.sd)}, scaled to counts`,
+        `normal curve: mean ${formatCentre(h.mean, h.sd)}, sd ${
+          formatNumber(h.sd)
+        }, scaled to counts`,
       ],
     },
     config: CHART_CONFIG,

@@ -12,7 +12,7 @@
  */
 import type { TopLevelSpec } from "vega-lite";
 import { _keptRanks, type QqData } from "../stats/qq_data.ts";
-import { formatCount, formatNumber, roundSig } from "./format.ts";
+import { formatCentre, formatCount, formatNumber, roundSig } from "./format.ts";
 import { CHART_CONFIG, PALETTE, PANEL } from "./theme.ts";
 
 /** Vega-Lite 5 schema URL. */
@@ -144,7 +144,7 @@ export function _qqSubtitle(q: QqData, detrended: boolean): string[] {
   const band = `${q.envelope} ${Math.round(q.level * 1000) / 10}% envelope`;
   return [
     `${detrended ? "detrended normal QQ plot" : "normal QQ plot"} · ${shown}`,
-    `line: ${formatNumber(q.mean)} + ${formatNumber(q.sd)}·z (mean, sd) · band: ${band}`,
+    `line: ${formatCentre(q.mean, q.sd)} + ${formatNumber(q.sd)}·z (mean, sd) · band: ${band}`,
   ];
 }
 
@@ -154,9 +154,9 @@ export function _qqDescription(q: QqData, name: string, detrended: boolean): str
   const above = q.outside.filter((o) => o > 0).length;
   const what = detrended
     ? `Detrended normal QQ plot of ${name}: each ordered value minus the fitted line ` +
-      `${formatNumber(q.mean)} + ${formatNumber(q.sd)}·z, against its normal score z`
+      `${formatCentre(q.mean, q.sd)} + ${formatNumber(q.sd)}·z, against its normal score z`
     : `Normal QQ plot of ${name}: ordered values against normal scores z, with the line ` +
-      `${formatNumber(q.mean)} + ${
+      `${formatCentre(q.mean, q.sd)} + ${
         formatNumber(q.sd)
       }·z (intercept the mean, slope the standard deviation)`;
   return `${what}. Normal scores use ${q.positions}. ${q.thinning[0].toUpperCase()}${

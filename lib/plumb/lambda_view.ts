@@ -1,0 +1,76 @@
+/**
+ * The λ explorer of a chain: Box–Cox (positive data) or Yeo–Johnson (data
+ * with zeros or negatives) over a λ grid, with the profile log-likelihood,
+ * λ̂ and its interval, and for each λ the QQ plot, W and p — all precomputed
+ * into one Vega-Lite spec with a slider.
+ *
+ * @module
+ */
+import { boxCoxFit } from "../reexpress/box_cox_fit.ts";
+import { boxCoxProfile } from "../reexpress/box_cox_profile.ts";
+import { applyReexpression, reexpression } from "../reexpress/reexpression.ts";
+import { yeoJohnsonFit } from "../reexpress/yeo_johnson_fit.ts";
+import { yeoJohnsonProfile } from "../reexpress/yeo_johnson_profile.ts";
+import { type Chart, chart } from "../render/chart_bundle.ts";
+import { lambdaExplorerSpec } from "../render/lambda_explorer_spec.ts";
+import { qqData } from "../stats/qq_data.ts";
+import { SHAPIRO_WILK_MAX_N, shapiroWilk } from "../stats/shapiro_wilk.ts";
+import { _subsample } from "./analysis.ts";
+
+/** Grid points of the explorer. */
+export const LAMBDA_GRID_POINTS = 41;
+
+/**
+ * Build the λ explorer chart for a sample. Above 5000 values the grid is
+ * computed on a seeded random subsample of 5000 (the fit itself uses all
+ * values), and the chart's title says so.
+ *
+ * @param values the sample
+ * @param name what it is (for titles)
+ *
+ * @example
+ * ```ts
+ * import { lambdaExplorer } from "./lambda_view.ts";
+ * const c = lambdaExplorer(new Float64Array([1.1, 1.9, 2.3, 2.8, 3.9, 4.4, 5.6, 7.7, 9.8, 14.1]), "gap");
+ * if (!JSON.stringify(c.spec).includes("range")) throw new Error("slider");
+ * ```
+ */
+export function lambdaExplorer(values: Float64Array, name: string): Chart {
+  let positive = true;
+  for (const v of values) if (!(v > 0)) positive = false;
+  const fit = positive ? boxCoxFit(values) : yeoJohnsonFit(values);
+  const kind = positive ? "box-cox" : "yeo-johnson";
+  const lo0 = fit.ci[0] ?? fit.range[0];
+  const hi0 = fit.ci[1] ?? fit.range[1];
+  const lo = Math.max(fit.range[0], Math.min(-2, Math.floor(2 * lo0) / 2 - 0.5));
+  const hi = Math.min(fit.range[1], Math.max(2, Math.ceil(2 * hi0) / 2 + 0.5));
+  const m = LAMBDA_GRID_POINTS;
+  const lambdas = Array.from(
+    { length: m },
+    (_, k) => +(lo + ((hi - lo) * k) / (m - 1)).toPrecision(12),
+  );
+  const sample = values.length > SHAPIRO_WILK_MAX_N
+    ? _subsample(values, SHAPIRO_WILK_MAX_N, 1)
+    : values;
+  const logLik = Array.from(
+    positive ? boxCoxProfile(values, lambdas) : yeoJohnsonProfile(values, lambdas),
+  );
+  const perLambda = lambdas.map((l) => {
+    const y = applyReexpression(sample, reexpression(kind, { lambda: l }));
+    const w = shapiroWilk(y);
+    return { W: w.statistic, p: w.pValue, qq: qqData(y, { maxPoints: 60, tailPoints: 15 }) };
+  });
+  const family = positive ? "Box–Cox" : "Yeo–Johnson";
+  const label = values.length > SHAPIRO_WILK_MAX_N
+    ? `${name} (${family}; QQ, W and p on a seeded subsample of ${SHAPIRO_WILK_MAX_N})`
+    : `${name} (${family})`;
+  const spec = lambdaExplorerSpec({
+    lambdas,
+    logLik,
+    lambdaHat: fit.lambda,
+    ci: [fit.ci[0] ?? -Infinity, fit.ci[1] ?? Infinity],
+    ciLevel: fit.level,
+    perLambda,
+  }, { name: label });
+  return chart(spec);
+}

@@ -1,0 +1,181 @@
+/**
+ * The re-expression view of a chain: the ranked candidates, each re-tested,
+ * the side-by-side QQ panel, and the back-transformed summary of the chosen
+ * one.
+ *
+ * @module
+ */
+import { backTransformMean } from "../reexpress/back_transform.ts";
+import { applyReexpression } from "../reexpress/reexpression.ts";
+import { type ReexpressionSearch, searchReexpressions } from "../reexpress/search.ts";
+import { chartBundle } from "../render/chart_bundle.ts";
+import { comparisonSpec } from "../render/comparison_spec.ts";
+import { DISPLAY, type Displayable, type MimeBundle } from "../render/display.ts";
+import { escapeHtml, escapeMarkdown, plainText } from "../render/escape.ts";
+import { formatNumber, formatP } from "../render/format.ts";
+import { tableHtml, tableMarkdown, type TableModel, tableText } from "../render/table.ts";
+import { qqData } from "../stats/qq_data.ts";
+import { type Step, stepLabel, stepOf } from "./steps.ts";
+import { _csv } from "./_csv.ts";
+
+/** The ranked candidates as a table model. */
+export function candidatesTable(s: ReexpressionSearch, name: string): TableModel {
+  const rows = s.candidates.map((c) => {
+    const sw = c.tests.find((t) => t.test === "Shapiro–Wilk")?.result;
+    const label = stepLabel(name, [stepOf(c.reexpression)]);
+    return [
+      String(c.rank),
+      label,
+      formatNumber(c.departure, 3),
+      sw ? formatNumber(sw.statistic, 4) : "",
+      sw ? formatP(sw.pValue) : "not run",
+      c.skewness === null ? "" : formatNumber(c.skewness, 3),
+      c.excessKurtosis === null ? "" : formatNumber(c.excessKurtosis, 3),
+      c.rank === 1 ? "chosen" : c.closeToBest ? "as good as the best" : "",
+    ];
+  });
+  return {
+    caption: `Re-expressions of ${name}, ranked`,
+    columns: [
+      { title: "rank", align: "right" },
+      { title: "re-expression" },
+      { title: "1 − W′", align: "right" },
+      { title: "W", align: "right" },
+      { title: "p", align: "right" },
+      { title: "g1", align: "right" },
+      { title: "g2", align: "right" },
+      { title: "" },
+    ],
+    rows,
+    notes: [s.reason, `Ranking: ${s.rule}.`, ...s.skipped.map((k) => `Not tried: ${k}.`)],
+  };
+}
+
+/** The back-transform lines for the chosen candidate. */
+function _backLines(values: Float64Array, s: ReexpressionSearch): string[] {
+  if (values.length < 2) return [];
+  const b = backTransformMean(values, s.chosen.reexpression);
+  const iv = (v: number | null) => (v === null ? "no value" : formatNumber(v, 5));
+  const lines = [
+    `On the original scale: ${b.estimateName} ${formatNumber(b.estimate, 5)}, ${b.intervalName} ${
+      iv(b.interval[0])
+    } to ${iv(b.interval[1])}` +
+    (b.ratio !== null ? ` (×/÷ ${formatNumber(b.ratio, 4)})` : ""),
+    ...b.cautions,
+  ];
+  return lines;
+}
+
+/** The ranked candidates, displayable and exportable. */
+export interface CandidatesView extends Displayable {
+  /** The search as plain data. */
+  toJSON(): ReexpressionSearch;
+  /** The ranked table as Markdown. */
+  toMarkdown(): string;
+  /** The ranked table as CSV (numbers unrounded). */
+  toCSV(): string;
+}
+
+/**
+ * The ranked candidates of a sample, displayable: table, QQ panel of the
+ * top candidates, reason, back-transformed summary.
+ *
+ * @param values the sample
+ * @param name what it is (for titles)
+ *
+ * @example
+ * ```ts
+ * import { reexpressionTable } from "./reexpress_view.ts";
+ * const v = reexpressionTable(new Float64Array([1.1, 1.9, 2.3, 2.8, 3.9, 4.4, 5.6, 7.7, 9.8, 14.1, 19.5, 31.2]), "gap");
+ * if (!v.toMarkdown().includes("chosen")) throw new Error("table");
+ * ```
+ */
+export function reexpressionTable(
+  values: Float64Array,
+  name: string,
+): CandidatesView {
+  const s = searchReexpressions(values);
+  const model = candidatesTable(s, name);
+  const back = _backLines(values, s);
+  let bundle: Promise<MimeBundle> | undefined;
+  const show = () =>
+    bundle ??= (async () => {
+      const top = s.candidates.slice(0, 6);
+      const spec = comparisonSpec(
+        top.map((c) => {
+          const sw = c.tests.find((t) => t.test === "Shapiro–Wilk")?.result;
+          return {
+            label: stepLabel(name, [stepOf(c.reexpression)]),
+            qq: qqData(applyReexpression(values, c.reexpression)),
+            W: sw?.statistic ?? 1 - c.departure,
+            p: sw?.pValue ?? NaN,
+            note: c.rank === 1 ? "chosen" : undefined,
+          };
+        }),
+        { name },
+      );
+      const panel = await chartBundle(spec);
+      const backHtml = back.map((l) => `<p style="margin:2px 0">${escapeHtml(l)}</p>`).join("");
+      return Object.freeze({
+        "text/html":
+          `<div style="background:#fff;color:#111;font-family:sans-serif;padding:6px">${
+            tableHtml(model)
+          }` +
+          `<div style="margin:8px 0">${panel["text/html"] ?? ""}</div>${backHtml}</div>`,
+        "text/markdown": `${tableMarkdown(model)}\n\n${back.map(escapeMarkdown).join("\n\n")}`,
+        "text/plain": plainText(`${tableText(model)}\n\n${back.join("\n")}`),
+      });
+    })();
+  return Object.freeze({
+    [DISPLAY]: show,
+    toJSON: () => s,
+    toMarkdown: () => tableMarkdown(model),
+    toCSV: () =>
+      _csv(
+        [
+          "rank",
+          "reexpression",
+          "kind",
+          "lambda",
+          "shift",
+          "departure",
+          "W",
+          "p",
+          "g1",
+          "g2",
+          "close_to_best",
+        ],
+        s.candidates.map((c) => {
+          const sw = c.tests.find((t) => t.test === "Shapiro–Wilk")?.result;
+          return [
+            c.rank,
+            c.reexpression.label,
+            c.reexpression.kind,
+            c.reexpression.lambda ?? "",
+            c.reexpression.shift,
+            c.departure,
+            sw?.statistic ?? "",
+            sw?.pValue ?? "",
+            c.skewness ?? "",
+            c.excessKurtosis ?? "",
+            c.closeToBest,
+          ];
+        }),
+      ),
+  }) as never;
+}
+
+/** The chosen candidate as a step, or `undefined` when it is "as measured". */
+export function chooseBest(values: Float64Array, _name: string): Step | undefined {
+  const s = searchReexpressions(values);
+  if (s.chosen.reexpression.kind === "identity") return undefined;
+  return stepOf(s.chosen.reexpression, s.reason);
+}
+
+/** The chosen candidate's formula in `x` for a survey row (`"none better than x"` when none helps). */
+export function suggestReexpression(values: Float64Array, name: string): string {
+  const s = searchReexpressions(values);
+  void name;
+  if (s.chosen.reexpression.kind === "identity") return "none better than x";
+  return stepOf(s.chosen.reexpression).formula;
+}

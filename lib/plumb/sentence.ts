@@ -1,0 +1,105 @@
+/**
+ * The write-up: one paragraph a user can paste into a report, with the
+ * variable, n, W and p, the reading, and the cautions that apply.
+ *
+ * @module
+ */
+import { formatCount, formatNumber } from "../render/format.ts";
+import type { Analysis } from "./analysis.ts";
+import { VERDICT_WORDS } from "./reading.ts";
+
+/** A p-value for prose: `p < 0.001` below 0.001, otherwise three decimals. */
+export function proseP(p: number): string {
+  if (p < 0.001) return "p < 0.001";
+  return `p = ${p.toFixed(3)}`;
+}
+
+/** A shape statistic for prose: three significant digits, and 0 when it rounds to 0 at 3 decimals. */
+export function proseShape(v: number): string {
+  return Math.abs(v) < 0.0005 ? "0.000" : formatNumber(v, 3);
+}
+
+/** Options for {@linkcode writeSentence}. */
+export interface SentenceOptions {
+  /**
+   * A multiplicity-adjusted p-value to report beside the raw one, and the
+   * method's name (e.g. `{ p: 0.03, method: "Holm", family: 12 }`).
+   * @default undefined
+   */
+  readonly adjusted?: { readonly p: number; readonly method: string; readonly family: number };
+}
+
+/**
+ * The pasteable paragraph for one analysis.
+ *
+ * @param a the analysis
+ * @param options an adjusted p-value to include
+ *
+ * @example
+ * ```ts
+ * import { analyse } from "./analysis.ts";
+ * import { writeSentence } from "./sentence.ts";
+ * const x = new Float64Array([4.1, 3.9, 4.4, 4.0, 4.2, 3.7, 4.6, 4.3, 3.8, 4.1, 4.0, 4.5]);
+ * const s = writeSentence(analyse(x, { label: "fill (L)", column: "fill", missingDropped: 0, textDropped: 0 }));
+ * if (!s.startsWith("fill (L): n = 12.")) throw new Error(s);
+ * ```
+ */
+export function writeSentence(a: Analysis, options: SentenceOptions = {}): string {
+  const { origin, n, primary, moments: m, reading } = a;
+  const dropped: string[] = [];
+  if (origin.missingDropped > 0) {
+    dropped.push(
+      `${formatCount(origin.missingDropped)} missing cell${origin.missingDropped === 1 ? "" : "s"}`,
+    );
+  }
+  if (origin.textDropped > 0) {
+    dropped.push(
+      `${formatCount(origin.textDropped)} non-numeric cell${origin.textDropped === 1 ? "" : "s"}`,
+    );
+  }
+  const parts: string[] = [];
+  parts.push(
+    `${origin.label}: n = ${formatCount(n)}${
+      dropped.length ? ` (${dropped.join(" and ")} left out)` : ""
+    }.`,
+  );
+  let test = `Shapiro–Wilk W = ${formatNumber(primary.statistic, 4)}, ${proseP(primary.pValue)}`;
+  if (options.adjusted) {
+    const adj = options.adjusted;
+    test += ` (${proseP(adj.p).replace("p", `${adj.method}-adjusted p`)} over ${adj.family} tests)`;
+  }
+  parts.push(
+    `${test}; skewness G1 = ${proseShape(m.G1)}, excess kurtosis G2 = ${proseShape(m.G2)}.`,
+  );
+  parts.push(`Reading: ${VERDICT_WORDS[reading.verdict]}.`);
+  if (n > 5000) {
+    parts.push(
+      "W and p come from a seeded random subsample of 5000 values, the limit of Royston's calibration.",
+    );
+  }
+  if (origin.transform) {
+    parts.push(
+      `The values were re-expressed as ${origin.transform} before testing, so these statements apply on that scale.`,
+    );
+  }
+  if (primary.pValue >= 0.05) {
+    parts.push(
+      `A large p does not show that the data are normal, only that this sample cannot tell them apart from a normal distribution${
+        n < 50 ? `, and with ${n} values that is weak evidence` : ""
+      }.`,
+    );
+  } else if (n > 2000) {
+    parts.push(
+      `With ${
+        formatCount(n)
+      } values a small p can reflect a departure too small to matter; weigh G1, G2 and the QQ plot.`,
+    );
+  }
+  parts.push(
+    "Before a t-test or ANOVA, judge normality from the residuals' QQ plot rather than using this test as a gate.",
+  );
+  parts.push(
+    "Where this result feeds a clinical, safety or product-release decision, that decision follows your organisation's own procedures and the applicable standards; a normality check is one input to it.",
+  );
+  return parts.join(" ");
+}

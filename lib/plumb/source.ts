@@ -1,0 +1,54 @@
+/**
+ * Turning whatever a user hands to `plumb` or `survey` into a table and one
+ * numeric column's values, with their provenance.
+ *
+ * @module
+ */
+import { PlumbError } from "../errors.ts";
+import { _isTable } from "../data/_table_store.ts";
+import { tableFromMemory } from "../data/in_memory.ts";
+import type { NumericColumn, Table } from "../data/table.ts";
+
+/** What `plumb` and `survey` accept: a loaded table, or in-memory data. */
+export type PlumbSource = Table | ArrayLike<number> | object;
+
+/** Resolve a source to a table (in-memory data are loaded synchronously). */
+export function toTable(source: PlumbSource, name = "value"): Table {
+  if (_isTable(source)) return source as Table;
+  if (typeof source === "string") {
+    throw new PlumbError(
+      "bad-option",
+      "Cannot read a file or CSV text synchronously: load it first with `const t = await loadTable(path)` and pass the table",
+    );
+  }
+  return tableFromMemory(source, { name });
+}
+
+/** Pick the column to analyse: the one named, or the only numeric one. */
+export function pickColumn(table: Table, column: string | undefined): string {
+  if (column !== undefined) {
+    if (!table.has(column)) {
+      const names = table.columns.map((c) => JSON.stringify(c.name)).join(", ");
+      throw new PlumbError(
+        "unknown-column",
+        `No column named ${JSON.stringify(column)}: the table has ${names}`,
+      );
+    }
+    return column;
+  }
+  const numeric = table.numericNames();
+  if (numeric.length === 1) return numeric[0];
+  throw new PlumbError(
+    "bad-option",
+    numeric.length === 0
+      ? "The table has no numeric column to analyse"
+      : `The table has ${numeric.length} numeric columns (${
+        numeric.join(", ")
+      }): name the one to analyse, e.g. plumb(table, "${numeric[0]}")`,
+  );
+}
+
+/** The column's used values and provenance, dropping text cells only when asked. */
+export function columnValues(table: Table, column: string, dropText: boolean): NumericColumn {
+  return table.numeric(column, { dropText });
+}

@@ -1,0 +1,128 @@
+/**
+ * Re-expression steps carried by a chain: what the user asked for, resolved
+ * against the data into a concrete {@linkcode Reexpression} with a formula.
+ *
+ * @module
+ */
+import { PlumbError } from "../errors.ts";
+import { logShift } from "../reexpress/log.ts";
+import { applyReexpression, type Reexpression, reexpression } from "../reexpress/reexpression.ts";
+
+/**
+ * A re-expression request: a named transformation, a power with its family,
+ * or `"best"` (the top of the ranked candidates).
+ */
+export type ReexpressRequest =
+  | "log"
+  | "log10"
+  | "sqrt"
+  | "reciprocal"
+  | "best"
+  | { readonly boxCox: number }
+  | { readonly yeoJohnson: number }
+  | { readonly log: { readonly shift?: number; readonly base?: "e" | 10 } };
+
+/** A resolved step: the re-expression, how to write it, and why its parameters. */
+export interface Step {
+  /** The re-expression (plain data). */
+  readonly reexpression: Reexpression;
+  /** The formula with `x` for the input, e.g. `"ln(x + 0.2)"`. */
+  readonly formula: string;
+  /** Why a parameter has its value (e.g. the shift rule), if any. */
+  readonly note?: string;
+  /** Apply to values. */
+  readonly apply: (x: Float64Array) => Float64Array;
+}
+
+const _num = (v: number) => String(+v.toPrecision(4));
+
+/** The formula of a re-expression, with `x` for the input. */
+export function formulaOf(r: Reexpression): string {
+  const inner = r.shift === 0
+    ? "x"
+    : r.shift > 0
+    ? `x + ${_num(r.shift)}`
+    : `x − ${_num(-r.shift)}`;
+  switch (r.kind) {
+    case "identity":
+      return "x";
+    case "log":
+      return `${r.base === 10 ? "log10" : "ln"}(${inner})`;
+    case "square-root":
+      return `√(${inner})`;
+    case "reciprocal":
+      return "1/x";
+    case "box-cox":
+      return `Box–Cox[λ = ${_num(r.lambda!)}](x)`;
+    case "yeo-johnson":
+      return `Yeo–Johnson[λ = ${_num(r.lambda!)}](x)`;
+  }
+}
+
+/** A step from a re-expression. */
+export function stepOf(r: Reexpression, note?: string): Step {
+  return Object.freeze({
+    reexpression: r,
+    formula: formulaOf(r),
+    note,
+    apply: (v: Float64Array) => applyReexpression(v, r),
+  });
+}
+
+/**
+ * Resolve a request (other than `"best"`) against the data it will apply to.
+ * `"log"` on data with zeros or negatives takes the shift chosen by
+ * {@linkcode logShift} and says so in `note`.
+ *
+ * @param request what the user asked for
+ * @param x the values the step will apply to
+ *
+ * @example
+ * ```ts
+ * import { resolveStep } from "./steps.ts";
+ * const s = resolveStep("log", new Float64Array([0, 0.4, 2, 7]));
+ * if (s.formula !== "ln(x + 0.2)") throw new Error(s.formula);
+ * ```
+ */
+export function resolveStep(request: Exclude<ReexpressRequest, "best">, x: Float64Array): Step {
+  if (
+    request === "log" || request === "log10" ||
+    (typeof request === "object" && request !== null && "log" in request)
+  ) {
+    const base = request === "log10"
+      ? 10
+      : typeof request === "object"
+      ? request.log.base ?? "e"
+      : "e";
+    let shift = typeof request === "object" ? request.log.shift : undefined;
+    let note: string | undefined;
+    if (shift === undefined) {
+      const s = logShift(x);
+      shift = s.shift;
+      if (shift !== 0) note = s.rule;
+    }
+    return stepOf(reexpression("log", { base, shift }), note);
+  }
+  if (request === "sqrt") return stepOf(reexpression("square-root"));
+  if (request === "reciprocal") return stepOf(reexpression("reciprocal"));
+  if (typeof request === "object" && request !== null && "boxCox" in request) {
+    return stepOf(reexpression("box-cox", { lambda: request.boxCox }));
+  }
+  if (typeof request === "object" && request !== null && "yeoJohnson" in request) {
+    return stepOf(reexpression("yeo-johnson", { lambda: request.yeoJohnson }));
+  }
+  throw new PlumbError(
+    "bad-option",
+    `Unknown re-expression ${
+      JSON.stringify(request)
+    }: use "log", "log10", "sqrt", "reciprocal", "best", ` +
+      "{ boxCox: λ }, { yeoJohnson: λ } or { log: { shift, base } }",
+  );
+}
+
+/** The label of a column after its steps, e.g. `"ln(oxygen_ppb + 2)"`. */
+export function stepLabel(name: string, steps: readonly Step[]): string {
+  let label = name;
+  for (const s of steps) label = s.formula.replace(/\bx\b/, () => label);
+  return label;
+}

@@ -1,0 +1,119 @@
+#!/usr/bin/python3
+"""Write the demo notebooks' cells (without outputs) from the texts below.
+
+The outputs are then filled by the runner:
+  /usr/bin/python3 tools/notebooks/make_notebooks.py
+  npx -y deno@2.9.6 fmt notebooks/
+  /usr/bin/python3 tools/notebooks/run_notebooks.py --write notebooks/
+Cell ids are derived from the notebook name and position, so the files are stable.
+"""
+import hashlib
+from pathlib import Path
+
+import nbformat
+
+ROOT = Path(__file__).resolve().parents[2]
+INVENTED = (
+    "*The data are invented*: a seeded simulation of a fictional bottling plant's quality lab "
+    "(`demo/bottling_lab.csv`, written by `tools/make_demo_data.ts`). No real measurement is shown."
+)
+
+NOTEBOOKS = {
+    "01_first_look.ipynb": [
+        ("md", "# A first look: can these measurements be treated as normal?\n\n" + INVENTED + "\n\n"
+         "Four filler lines, two shifts, and four measured quantities per bottle. Before we compute "
+         "t-based intervals or control limits for any of them, we check each one's shape."),
+        ("code", 'import { loadTable, plumb, survey } from "../mod.ts";'),
+        ("md", "## Load the table\n\nLoading never coerces silently: every column reports how many cells "
+         "were numbers, missing, or text, and the first text cells with their rows. Look for "
+         "mistyped entries before anything else."),
+        ("code", 'const table = await loadTable("../demo/bottling_lab.csv");\ntable;'),
+        ("md", "## Screen every numeric column\n\nOne row per column, sorted so the clearest departures come "
+         "first. `dropText: true` leaves the few mistyped cells out, and the counts say how many. "
+         "The p-values are adjusted (Holm) because four columns are tested at once. Read the effect "
+         "sizes (G1 for skew, G2 for tails) beside W and p."),
+        ("code", "survey(table, { dropText: true });"),
+        ("md", "## Inspect one column\n\nCap torque looked skewed in the survey. The card shows the reading "
+         "in words, the QQ plot with its envelope beside the histogram, and every test."),
+        ("code", 'const torque = plumb(table, "cap_torque_nm", { dropText: true });\ntorque;'),
+        ("md", "## Reading the QQ plot\n\nEach point is one ordered value (y, in N·m) against the normal "
+         "score it would have in a perfectly normal sample (x). The line's intercept is the mean and its "
+         "slope the standard deviation, so a normal sample hugs the line. The shaded band is where 95% of "
+         "points would fall, point by point, if the data were normal. Points curving up at the right end "
+         "mean a long right tail: the skew the reading reports."),
+        ("code", "torque.qq();"),
+        ("md", "The detrended view subtracts the line, so small, systematic bends in the tails are easier "
+         "to see."),
+        ("code", "torque.detrended();"),
+        ("md", "Net fill volume, by contrast, shows no clear departure. With about 240 values that is "
+         "reasonable evidence, but a large p never proves normality."),
+        ("code", 'plumb(table, "fill_ml", { dropText: true }).sentence();'),
+    ],
+    "02_reexpression.ipynb": [
+        ("md", "# Re-expression: which transformation makes a skewed column normal?\n\n" + INVENTED),
+        ("code", 'import { loadTable, plumb } from "../mod.ts";\n'
+                 'const table = await loadTable("../demo/bottling_lab.csv");'),
+        ("md", "## A right-skewed column\n\nMinutes between stoppages behave like waiting times: many short "
+         "gaps, a few long ones."),
+        ("code", 'const gaps = plumb(table, "minutes_between_stops");\ngaps;'),
+        ("md", "## The ranked candidates\n\nEach candidate is applied and re-tested with every test. The "
+         "ranking prefers the simplest re-expression whose departure (1 − W′) is within chance of the "
+         "best one, and says why it chose it. Below the table: the chosen candidate's mean and interval "
+         "mapped back to minutes, under the name of what it now estimates."),
+        ("code", "gaps.reexpress();"),
+        ("md", "## The λ explorer\n\nBox–Cox λ sweeps the ladder of powers: λ = 1 leaves the data as they are, "
+         "½ is a square root, 0 a log, −1 a reciprocal. The strip shows the profile log-likelihood with "
+         "λ̂ and its 95% interval; where Vega runs, the slider redraws the QQ plot and W for each λ "
+         "without a round trip to the kernel. The static picture shows λ̂."),
+        ("code", "gaps.lambda();"),
+        ("md", "## Carry the chosen one forward\n\n`reexpress(\"best\")` returns a new chain on the "
+         "transformed values, labelled with the transformation everywhere it appears."),
+        ("code", 'const best = gaps.reexpress("best");\nbest;'),
+        ("code", "best.sentence();"),
+        ("md", "## When no re-expression can help\n\nDissolved oxygen has readings at 0: values below the "
+         "detection limit. A log needs a shift (chosen by a stated rule and reported), and the pile-up at "
+         "the floor stays a pile-up whatever the power. The reading says so."),
+        ("code", 'plumb(table, "oxygen_ppb", { dropText: true }).reexpress("log");'),
+    ],
+    "03_groups_and_writeup.ipynb": [
+        ("md", "# Groups and the write-up\n\n" + INVENTED),
+        ("code", 'import { loadTable, plumb, survey } from "../mod.ts";\n'
+                 'const table = await loadTable("../demo/bottling_lab.csv");'),
+        ("md", "## Per-line checks\n\nThe four filler lines have slightly different mean fill volumes, so the "
+         "pooled column mixes four normals. For an ANOVA or a t-test the assumption concerns the "
+         "residuals (each value minus its line's mean): they are pooled below the per-line rows, with "
+         "their own QQ plot and tests. p-values across lines are Holm-adjusted."),
+        ("code", 'const fill = plumb(table, "fill_ml", { dropText: true }).by("line");\nfill;'),
+        ("md", "## Sentences to paste\n\nEach sentence carries the variable, n, W and p, and the cautions "
+         "that apply."),
+        ("code", "fill.sentences();"),
+        ("md", "A re-expressed column's sentence says which scale its statements apply to."),
+        ("code", 'plumb(table, "cap_torque_nm", { dropText: true }).reexpress("best").sentence();'),
+        ("md", "## Export the tables\n\nEvery table exports as CSV (numbers unrounded) and Markdown."),
+        ("code", 'console.log(fill.toCSV());'),
+        ("code", 'console.log(survey(table, { dropText: true }).toMarkdown());'),
+    ],
+}
+
+
+def cell_id(name, k):
+    return hashlib.sha256(f"{name}:{k}".encode()).hexdigest()[:8]
+
+
+def main():
+    for name, cells in NOTEBOOKS.items():
+        nb = nbformat.v4.new_notebook()
+        nb.metadata = {
+            "kernelspec": {"display_name": "Deno", "language": "typescript", "name": "deno"},
+            "language_info": {"name": "typescript"},
+        }
+        for k, (kind, text) in enumerate(cells):
+            c = nbformat.v4.new_markdown_cell(text) if kind == "md" else nbformat.v4.new_code_cell(text)
+            c["id"] = cell_id(name, k)
+            nb.cells.append(c)
+        nbformat.write(nb, str(ROOT / "notebooks" / name))
+        print(f"wrote notebooks/{name} ({len(cells)} cells)")
+
+
+if __name__ == "__main__":
+    main()
