@@ -15,7 +15,9 @@ Deno.test("text widths: proportional, bold wider, non-ASCII counted", () => {
 
 Deno.test("a QQ plot with a long title stays near its 320 px panel (no 0.8 em estimate)", async () => {
   const x = Array.from({ length: 100 }, (_, i) => Math.exp((i + 0.5) / 40));
-  const svg = await renderSvg(qqSpec(qqData(x), { name: "Box–Cox[λ = 0.2399](minutes_between_stops)" }));
+  const svg = await renderSvg(
+    qqSpec(qqData(x), { name: "Box–Cox[λ = 0.2399](minutes_between_stops)" }),
+  );
   const width = Number(/width="(\d+)"/.exec(svg)![1]);
   ok(width < 430, `width ${width}`);
 });
