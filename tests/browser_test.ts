@@ -10,6 +10,9 @@ import { Browser } from "../tools/notebooks/_cdp.ts";
 import { checkNotebookPage, SLIDER_SAMPLE_SPEC } from "../tools/notebooks/browser_check.ts";
 import { missingBrowserTools, skipUnless } from "../tools/notebooks/requirements.ts";
 import { loadVegaBundles, renderVegaLite, type VegaBundles } from "../tools/notebooks/vega_page.ts";
+import { loadTable } from "../lib/data/load_table.ts";
+import { lambdaExplorer } from "../lib/plumb/lambda_view.ts";
+import { shapiroWilk } from "../lib/stats/shapiro_wilk.ts";
 
 const NOTEBOOKS = new URL("../notebooks", import.meta.url).pathname;
 const skip = skipUnless("Browser tests", missingBrowserTools());
@@ -146,6 +149,39 @@ Deno.test({
           await assertPng(report.screenshot);
           const html = await Deno.readTextFile(report.html);
           assert.ok(!/<script[^>]+src=/.test(html), "the page must inline its scripts");
+        },
+      );
+      await t.step(
+        "the λ explorer's slider redraws W for the chosen λ (vega-embed, no CDN)",
+        async () => {
+          // Invented demo data: minutes between stoppages (exponential-like).
+          const values = (await loadTable(`${NOTEBOOKS}/../demo/bottling_lab.csv`))
+            .numeric("minutes_between_stops").values;
+          const spec = lambdaExplorer(values, "minutes_between_stops").spec;
+          const report = await renderVegaLite(browser, spec, {
+            bundles,
+            sliderValues: [1, 0],
+            param: "sel",
+            outDir: dir,
+            name: "lambda_explorer",
+          });
+          console.log(`screenshot: ${report.screenshot}`);
+          const wText = (texts: string[]) => texts.find((x) => x.includes("W = ")) ?? "";
+          // λ = 1 is the data as measured (Box–Cox shifts by −1, W unchanged); λ = 0 is the log.
+          const w1 = shapiroWilk(values).statistic.toFixed(4);
+          const w0 = shapiroWilk(values.map(Math.log)).statistic.toFixed(4);
+          assert.ok(
+            wText(report.steps[0].texts).includes(`W = ${w1}`),
+            report.steps[0].texts.join(" | "),
+          );
+          assert.ok(
+            wText(report.steps[1].texts).includes(`W = ${w0}`),
+            report.steps[1].texts.join(" | "),
+          );
+          assert.notEqual(wText(report.initialTexts), wText(report.steps[0].texts));
+          assert.deepEqual(report.record.errors, []);
+          assert.deepEqual(report.record.blocked, []);
+          await assertPng(report.screenshot);
         },
       );
       await t.step("renderVegaLite fails clearly when the chart has no slider", async () => {
