@@ -57,9 +57,12 @@ export function plainText(s: string): string {
 }
 
 /**
- * Escape text for one line of Markdown (a heading or a table cell): every
- * character with Markdown meaning is backslash-escaped, `<` and `&` become
- * entities (Markdown passes HTML through), and line breaks become spaces.
+ * Escape text for one line of Markdown (a heading, a list item or a table
+ * cell): the characters that start emphasis, code, links and table cells
+ * anywhere in a line are backslash-escaped; the line-start markers (`#`,
+ * `-`, `+`, `>`, `1.`) are escaped only at the start, so numbers like
+ * `0.25` and `−1.5` stay readable; `<` and `&` become entities (Markdown
+ * passes HTML through), and line breaks become spaces.
  *
  * @param s any string
  * @example
@@ -73,7 +76,9 @@ export function escapeMarkdown(s: string): string {
     .replace(/&/g, "&amp;")
     .replace(/</g, "&lt;")
     .replace(/>/g, "&gt;")
-    .replace(/[\\`*_{}\[\]()#+\-.!|~]/g, (c) => "\\" + c);
+    .replace(/[\\`*_\[\]|~]/g, (c) => "\\" + c)
+    .replace(/^(\s*)([#+\-])/, "$1\\$2")
+    .replace(/^(\s*\d+)([.)])(?=\s|$)/, "$1\\$2");
 }
 
 /**

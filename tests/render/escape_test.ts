@@ -19,10 +19,15 @@ Deno.test("plainText strips ANSI sequences and control characters", () => {
 Deno.test("escapeMarkdown escapes Markdown and HTML and flattens line breaks", () => {
   assert.equal(
     escapeMarkdown("*a* _b_ `c` [d](e) #f |g| <h> &i"),
-    "\\*a\\* \\_b\\_ \\`c\\` \\[d\\]\\(e\\) \\#f \\|g\\| &lt;h&gt; &amp;i",
+    "\\*a\\* \\_b\\_ \\`c\\` \\[d\\](e) #f \\|g\\| &lt;h&gt; &amp;i",
   );
   assert.equal(escapeMarkdown("one\ntwo\r\nthree"), "one two three");
-  assert.equal(escapeMarkdown("1. x - y + z!"), "1\\. x \\- y \\+ z\\!");
+  // Line-start markers are escaped only where they would act: at the start.
+  assert.equal(escapeMarkdown("1. x - y + z!"), "1\\. x - y + z!");
+  assert.equal(escapeMarkdown("- item"), "\\- item");
+  assert.equal(escapeMarkdown("# heading"), "\\# heading");
+  assert.equal(escapeMarkdown("+ 1"), "\\+ 1");
+  assert.equal(escapeMarkdown("0.25 and −1.5 (n = 3)"), "0.25 and −1.5 (n = 3)");
 });
 
 Deno.test("vegaString gives a Vega string literal that reads back exactly", () => {

@@ -17,6 +17,6 @@ Deno.test("a loaded table displays its columns, counts and first text cells (exa
   );
   equal(
     b["text/markdown"]!.split("\n")[0],
-    '**text: 4 rows, 2 columns \\(delimiter ",", decimal "\\."\\)**',
+    '**text: 4 rows, 2 columns (delimiter ",", decimal ".")**',
   );
 });

@@ -29,7 +29,7 @@ Deno.test("tableMarkdown: exact output", () => {
   assert.equal(
     tableMarkdown(t),
     "**Tests &lt;n = 12&gt;**\n\n| test | p |\n| :--- | ---: |\n" +
-      "| K² \\| D'Agostino | 0\\.4100 |\n| A\\* | &lt; 0\\.0001 |\n\nTies: 3 values repeat\\.",
+      "| K² \\| D'Agostino | 0.4100 |\n| A\\* | &lt; 0.0001 |\n\nTies: 3 values repeat.",
   );
 });
 
