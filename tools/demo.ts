@@ -11,7 +11,7 @@
 import { loadTable } from "../lib/data/load_table.ts";
 import { writeReport } from "../lib/plumb/report.ts";
 import { survey } from "../lib/plumb/survey.ts";
-import { formatP } from "../lib/render/format.ts";
+import { proseP } from "../lib/plumb/sentence.ts";
 import { VERDICT_WORDS } from "../lib/plumb/reading.ts";
 import { demoCsv } from "./make_demo_data.ts";
 
@@ -53,8 +53,8 @@ if (import.meta.main) {
     if (!r.analysis) continue;
     const a = r.analysis;
     console.log(
-      `  ${r.column.padEnd(22)} W = ${a.primary.statistic.toFixed(4)}  p = ${
-        formatP(a.primary.pValue).padEnd(8)
+      `  ${r.column.padEnd(22)} W = ${a.primary.statistic.toFixed(4)}  ${
+        proseP(a.primary.pValue).padEnd(9)
       }  ` +
         `${VERDICT_WORDS[a.reading.verdict].padEnd(31)} suggested: ${r.suggestion}`,
     );
