@@ -107,7 +107,7 @@ export async function writeReport(table: Table, options: ReportOptions = {}): Pr
   const html = `<!DOCTYPE html>
 <html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
 <title>${escapeHtml(title)}</title>
-<style>body{font-family:sans-serif;background:#ffffff;color:#111111;margin:24px;max-width:1100px}h2{border-bottom:1px solid #ccc;padding-bottom:4px;margin-top:32px}</style>
+<style>body{font-family:sans-serif;background:#ffffff;color:#111111;margin:24px;max-width:1400px}h2{border-bottom:1px solid #ccc;padding-bottom:4px;margin-top:32px}</style>
 </head><body>
 <h1>${escapeHtml(title)}</h1>
 ${options.note ? `<p><em>${escapeHtml(options.note)}</em></p>` : ""}
