@@ -11,7 +11,7 @@ import { cardBundle } from "../render/card.ts";
 import { chartBundle } from "../render/chart_bundle.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../render/display.ts";
 import { escapeHtml, escapeMarkdown, plainText } from "../render/escape.ts";
-import { formatCount, formatNumber, formatP } from "../render/format.ts";
+import { formatCount, formatP } from "../render/format.ts";
 import { histogramSpec } from "../render/histogram_spec.ts";
 import { groupSpec } from "../render/group_spec.ts";
 import { qqSpec } from "../render/qq_spec.ts";
@@ -22,6 +22,7 @@ import { analyse, ANALYSE_MIN_N, type Analysis } from "./analysis.ts";
 import { VERDICT_SHORT } from "./reading.ts";
 import { writeSentence } from "./sentence.ts";
 import { _csv } from "./_csv.ts";
+import { blanks, SUMMARY_COLUMNS, SUMMARY_HEAD, summaryCells, summaryValues } from "./_rows.ts";
 import type { Step } from "./steps.ts";
 import { stepLabel } from "./steps.ts";
 
@@ -209,30 +210,13 @@ export class PlumbGroups implements Displayable {
     const rows = r.groups.map((g) => {
       const a = g.analysis;
       if (!a) {
-        return [
-          g.group,
-          formatCount(g.n),
-          "",
-          "",
-          "",
-          "",
-          "",
-          "",
-          "",
-          `not screened: ${g.skipped}`,
-          "",
-        ];
+        return [g.group, formatCount(g.n), ...blanks(7), `not screened: ${g.skipped}`, ""];
       }
       const spark = qqSparkline(a.qq, { title: `QQ sparkline of ${a.origin.label}` });
       return [
         g.group,
         formatCount(a.n),
-        formatNumber(a.moments.mean, 5),
-        formatNumber(a.moments.sd, 4),
-        formatNumber(a.moments.G1, 3),
-        formatNumber(a.moments.G2, 3),
-        formatNumber(a.primary.statistic, 4),
-        formatP(a.primary.pValue),
+        ...summaryCells(a),
         formatP(g.adjustedP!),
         VERDICT_SHORT[a.reading.verdict],
         { text: "", html: spark },
@@ -267,12 +251,7 @@ export class PlumbGroups implements Displayable {
       columns: [
         { title: r.groupBy },
         { title: "n", align: "right" },
-        { title: "mean", align: "right" },
-        { title: "sd", align: "right" },
-        { title: "G1", align: "right" },
-        { title: "G2", align: "right" },
-        { title: "W", align: "right" },
-        { title: "p", align: "right" },
+        ...SUMMARY_COLUMNS,
         { title: `${r.adjust === "none" ? "" : "adj. "}p (${adjName})`, align: "right" },
         { title: "reading" },
         { title: "QQ" },
@@ -311,38 +290,12 @@ export class PlumbGroups implements Displayable {
   /** The per-group table as CSV (numbers unrounded). */
   toCSV(): string {
     const r = this.result();
-    const head = [
-      "group",
-      "n",
-      "mean",
-      "sd",
-      "G1",
-      "G2",
-      "W",
-      "p",
-      "adjusted_p",
-      "adjustment",
-      "verdict",
-      "note",
-    ];
+    const head = ["group", "n", ...SUMMARY_HEAD, "adjusted_p", "adjustment", "verdict", "note"];
     const lines = r.groups.map((g) => {
       const a = g.analysis;
       return a
-        ? [
-          g.group,
-          a.n,
-          a.moments.mean,
-          a.moments.sd,
-          a.moments.G1,
-          a.moments.G2,
-          a.primary.statistic,
-          a.primary.pValue,
-          g.adjustedP,
-          r.adjust,
-          a.reading.verdict,
-          "",
-        ]
-        : [g.group, g.n, "", "", "", "", "", "", "", r.adjust, "", g.skipped];
+        ? [g.group, a.n, ...summaryValues(a), g.adjustedP, r.adjust, a.reading.verdict, ""]
+        : [g.group, g.n, ...blanks(7), r.adjust, "", g.skipped];
     });
     return _csv(head, lines);
   }

@@ -7,14 +7,21 @@
 import type { Table } from "../data/table.ts";
 import { PlumbError } from "../errors.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../render/display.ts";
-import { plainText } from "../render/escape.ts";
-import { formatCount, formatNumber, formatP } from "../render/format.ts";
+import { formatCount, formatP } from "../render/format.ts";
 import { qqSparkline } from "../render/sparkline.ts";
-import { tableHtml, tableMarkdown, type TableModel, tableText } from "../render/table.ts";
+import { tableMarkdown, type TableModel } from "../render/table.ts";
 import { type Adjustment, adjustPValues } from "../stats/multiplicity.ts";
 import { analyse, ANALYSE_MIN_N, type Analysis } from "./analysis.ts";
 import { VERDICT_SHORT } from "./reading.ts";
 import { _csv } from "./_csv.ts";
+import {
+  blanks,
+  SUMMARY_COLUMNS,
+  SUMMARY_HEAD,
+  summaryCells,
+  summaryValues,
+  tableBundle,
+} from "./_rows.ts";
 import { suggestReexpression } from "./reexpress_view.ts";
 import { type PlumbSource, toTable } from "./source.ts";
 
@@ -190,13 +197,7 @@ export class Survey implements Displayable {
           row.column,
           "",
           formatCount(row.missing),
-          "",
-          "",
-          "",
-          "",
-          "",
-          "",
-          "",
+          ...blanks(7),
           `not screened: ${row.skipped}`,
           "",
           "",
@@ -206,12 +207,7 @@ export class Survey implements Displayable {
         row.column,
         formatCount(a.n),
         formatCount(row.missing) + (row.textDropped ? ` + ${row.textDropped} text` : ""),
-        formatNumber(a.moments.mean, 5),
-        formatNumber(a.moments.sd, 4),
-        formatNumber(a.moments.G1, 3),
-        formatNumber(a.moments.G2, 3),
-        formatNumber(a.primary.statistic, 4),
-        formatP(a.primary.pValue),
+        ...summaryCells(a),
         formatP(row.adjustedP!),
         VERDICT_SHORT[a.reading.verdict],
         row.suggestion ?? "",
@@ -234,12 +230,7 @@ export class Survey implements Displayable {
         { title: "column" },
         { title: "n", align: "right" },
         { title: "missing", align: "right" },
-        { title: "mean", align: "right" },
-        { title: "sd", align: "right" },
-        { title: "G1", align: "right" },
-        { title: "G2", align: "right" },
-        { title: "W", align: "right" },
-        { title: "p", align: "right" },
+        ...SUMMARY_COLUMNS,
         { title: `adj. p`, align: "right" },
         { title: "reading" },
         { title: "suggested re-expression of x" },
@@ -258,12 +249,7 @@ export class Survey implements Displayable {
       "n",
       "missing",
       "text_dropped",
-      "mean",
-      "sd",
-      "G1",
-      "G2",
-      "W",
-      "p",
+      ...SUMMARY_HEAD,
       "adjusted_p",
       "adjustment",
       "verdict",
@@ -272,41 +258,18 @@ export class Survey implements Displayable {
     ];
     const lines = r.rows.map((row) => {
       const a = row.analysis;
+      const start = [row.column, a ? a.n : "", row.missing, row.textDropped];
       return a
         ? [
-          row.column,
-          a.n,
-          row.missing,
-          row.textDropped,
-          a.moments.mean,
-          a.moments.sd,
-          a.moments.G1,
-          a.moments.G2,
-          a.primary.statistic,
-          a.primary.pValue,
+          ...start,
+          ...summaryValues(a),
           row.adjustedP,
           r.adjust,
           a.reading.verdict,
           row.suggestion,
           "",
         ]
-        : [
-          row.column,
-          "",
-          row.missing,
-          row.textDropped,
-          "",
-          "",
-          "",
-          "",
-          "",
-          "",
-          "",
-          r.adjust,
-          "",
-          "",
-          row.skipped,
-        ];
+        : [...start, ...blanks(7), r.adjust, "", "", row.skipped];
     });
     return _csv(head, lines);
   }
@@ -323,15 +286,7 @@ export class Survey implements Displayable {
 
   /** The table, with a sparkline per row. */
   [DISPLAY](): MimeBundle {
-    const t = this.table();
-    return Object.freeze({
-      "text/html":
-        `<div style="background:#fff;color:#111;font-family:sans-serif;padding:6px;overflow-x:auto">${
-          tableHtml(t)
-        }</div>`,
-      "text/markdown": tableMarkdown(t),
-      "text/plain": plainText(tableText(t)),
-    });
+    return tableBundle(this.table());
   }
 }
 

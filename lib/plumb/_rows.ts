@@ -1,0 +1,69 @@
+/**
+ * The columns that every one-row-per-sample table shares (survey rows and
+ * group rows): mean, sd, G1, G2, W and p, formatted for display or raw for
+ * CSV, and the display bundle of such a table.
+ *
+ * @module
+ */
+import type { MimeBundle } from "../render/display.ts";
+import { plainText } from "../render/escape.ts";
+import { formatNumber, formatP } from "../render/format.ts";
+import {
+  type TableColumn,
+  tableHtml,
+  tableMarkdown,
+  type TableModel,
+  tableText,
+} from "../render/table.ts";
+import type { Analysis } from "./analysis.ts";
+
+/** Headings of the shared columns, for display. */
+export const SUMMARY_COLUMNS: readonly TableColumn[] = Object.freeze(
+  ["mean", "sd", "G1", "G2", "W", "p"].map((title) => ({ title, align: "right" as const })),
+);
+
+/** Headings of the shared columns, for CSV. */
+export const SUMMARY_HEAD: readonly string[] = Object.freeze(["mean", "sd", "G1", "G2", "W", "p"]);
+
+/** The shared cells, formatted. */
+export function summaryCells(a: Analysis): string[] {
+  return [
+    formatNumber(a.moments.mean, 5),
+    formatNumber(a.moments.sd, 4),
+    formatNumber(a.moments.G1, 3),
+    formatNumber(a.moments.G2, 3),
+    formatNumber(a.primary.statistic, 4),
+    formatP(a.primary.pValue),
+  ];
+}
+
+/** The shared values, unrounded (CSV). */
+export function summaryValues(a: Analysis): number[] {
+  return [
+    a.moments.mean,
+    a.moments.sd,
+    a.moments.G1,
+    a.moments.G2,
+    a.primary.statistic,
+    a.primary.pValue,
+  ];
+}
+
+/** `k` empty cells. */
+export function blanks(k: number): string[] {
+  return new Array<string>(k).fill("");
+}
+
+/** The bundle of a table, with optional HTML after it (charts, cards). */
+export function tableBundle(
+  model: TableModel,
+  after: { html?: string; markdown?: string; text?: string } = {},
+): MimeBundle {
+  return Object.freeze({
+    "text/html":
+      `<div style="background:#fff;color:#111;font-family:sans-serif;padding:6px;overflow-x:auto">` +
+      `${tableHtml(model)}${after.html ?? ""}</div>`,
+    "text/markdown": tableMarkdown(model) + (after.markdown ? `\n\n${after.markdown}` : ""),
+    "text/plain": plainText(tableText(model) + (after.text ? `\n\n${after.text}` : "")),
+  });
+}
