@@ -66,7 +66,9 @@ export function _unclosedQuoteLine(text: string): number | null {
     if (c === 34) {
       open = !open;
       if (open) openedAt = line;
-    } else if (c === 10) {
+    } else if (c === 10 || c === 13) {
+      // "\r\n", "\n" and a lone "\r" each end one line
+      if (c === 13 && text.charCodeAt(i + 1) === 10) i++;
       line++;
     }
   }

@@ -35,10 +35,16 @@ export function _readCsv(
   rules: _CellRules,
   source: string,
 ): _CsvRead {
+  // End the last line, as a file read does: csv-parse drops a last line of
+  // spaces that has no line end, so " " would read as an empty text.
+  if (text !== "" && !/[\r\n]$/.test(text)) text += "\n";
   let all: _Parsed[];
   try {
     all = parse(text, {
       delimiter,
+      // Every line end, in any mix: csv-parse otherwise takes the first one it
+      // meets as the only record delimiter and reads the others as data.
+      record_delimiter: ["\r\n", "\n", "\r"],
       skip_empty_lines: false,
       trim: true,
       info: true,
@@ -71,16 +77,17 @@ export function _readCsv(
       originalName: header[j].trim(),
     })
   );
+  // csv-parse counts a "\r\n" inside a quoted field as two lines; `extra`
+  // carries that over-count, which shifts every later record.
+  const count = (record: readonly string[], re: RegExp) =>
+    record.reduce((k, cell) => k + (cell.match(re)?.length ?? 0), 0);
+  let extra = count(header, /\r\n/g);
   for (let r = 0; r < rows; r++) {
     const { record, info } = parsed[r + 1];
     // info.lines is the line where the record ends; a quoted field may span lines.
-    let breaks = 0;
-    for (const cell of record) {
-      for (let i = cell.indexOf("\n"); i !== -1; i = cell.indexOf("\n", i + 1)) {
-        breaks++;
-      }
-    }
-    const line = info.lines - breaks;
+    extra += count(record, /\r\n/g);
+    const breaks = count(record, /\r\n|\r|\n/g);
+    const line = info.lines - extra - breaks;
     lines[r] = line;
     if (record.length !== names.length) throw _ragged(source, line, record.length, names.length);
     for (let j = 0; j < record.length; j++) {
@@ -93,9 +100,28 @@ export function _readCsv(
   return { columns, rowCount: rows, renamed };
 }
 
+const _lineBreaks = /\r\n|\r|\n/g;
+
+/**
+ * The line of a csv-parse error, from the byte offset where the failing
+ * record starts (`bytes`) and the record read so far (`raw`). csv-parse's own
+ * `lines` counts a "\r\n" inside quotes as two lines, so it drifts.
+ */
+function _errorLine(text: string, err: { bytes?: unknown; raw?: unknown }): number | null {
+  if (typeof err.bytes !== "number" || typeof err.raw !== "string") return null;
+  const before = new TextDecoder().decode(new TextEncoder().encode(text).subarray(0, err.bytes));
+  return 1 + (before.match(_lineBreaks)?.length ?? 0) + (err.raw.match(_lineBreaks)?.length ?? 0);
+}
+
 /** Turn a csv-parse error into a `"malformed"` PlumbError naming the line. */
 function _fromParser(e: unknown, text: string, source: string) {
-  const err = e as { code?: string; lines?: number; message?: string };
+  const err = e as {
+    code?: string;
+    lines?: number;
+    message?: string;
+    bytes?: unknown;
+    raw?: unknown;
+  };
   if (err.code === "CSV_QUOTE_NOT_CLOSED") {
     return _malformed(
       source,
@@ -107,7 +133,7 @@ function _fromParser(e: unknown, text: string, source: string) {
   const detail = String(err.message ?? e).split(":")[0].trim();
   return _malformed(
     source,
-    err.lines ?? null,
+    _errorLine(text, err) ?? err.lines ?? null,
     `the quoting cannot be read (${detail})`,
     'put quotes only around whole fields and write a quote inside a quoted field as ""',
   );

@@ -45,6 +45,9 @@ export function uniqueNames(raw: readonly string[]): UniqueNames {
   });
   const names: string[] = [];
   const renamed: HeaderRename[] = [];
+  // The next suffix worth trying per base: every smaller one is taken already,
+  // so many copies of one name cost linear, not quadratic, time.
+  const nextSuffix = new Map<string, number>();
   trimmed.forEach((n, i) => {
     if (n !== "" && firstIndex.get(n) === i) {
       names.push(n);
@@ -52,7 +55,9 @@ export function uniqueNames(raw: readonly string[]): UniqueNames {
     }
     const base = n === "" ? `column_${i + 1}` : n;
     let candidate = base;
-    for (let k = 2; taken.has(candidate); k++) candidate = `${base}_${k}`;
+    let k = nextSuffix.get(base) ?? 2;
+    while (taken.has(candidate)) candidate = `${base}_${k++}`;
+    nextSuffix.set(base, k);
     taken.add(candidate);
     names.push(candidate);
     renamed.push(

@@ -7,16 +7,18 @@
  */
 import { PlumbError } from "../errors.ts";
 import { seededRandom } from "../numeric/random.ts";
-import { andersonDarling } from "../stats/anderson_darling.ts";
-import { dagostinoPearson, type DagostinoPearsonResult } from "../stats/dagostino_pearson.ts";
-import { type HistogramData, histogramData } from "../stats/histogram_data.ts";
-import { jarqueBera } from "../stats/jarque_bera.ts";
-import { lilliefors } from "../stats/lilliefors.ts";
-import { type Moments, moments } from "../stats/moments.ts";
-import { type QqData, qqData, type QqOptions } from "../stats/qq_data.ts";
+import { sortedCopy } from "../numeric/sort.ts";
+import { checkFinite, checkSize } from "../stats/_input.ts";
+import { _andersonDarlingSorted } from "../stats/anderson_darling.ts";
+import { _dagostinoPearsonOf, type DagostinoPearsonResult } from "../stats/dagostino_pearson.ts";
+import { _histogramDataSorted, type HistogramData } from "../stats/histogram_data.ts";
+import { _jarqueBeraOf } from "../stats/jarque_bera.ts";
+import { _lillieforsSorted } from "../stats/lilliefors.ts";
+import { _momentsOf, _sampleShape, type Moments } from "../stats/moments.ts";
+import { _qqDataSorted, type QqData, type QqOptions } from "../stats/qq_data.ts";
 import type { TestResult } from "../stats/result.ts";
-import { shapiroFrancia } from "../stats/shapiro_francia.ts";
-import { SHAPIRO_WILK_MAX_N, shapiroWilk } from "../stats/shapiro_wilk.ts";
+import { _shapiroFranciaSorted } from "../stats/shapiro_francia.ts";
+import { _shapiroWilkSorted, SHAPIRO_WILK_MAX_N, shapiroWilk } from "../stats/shapiro_wilk.ts";
 import { type Reading, readShape } from "./reading.ts";
 
 /** One test's outcome: its result, or why it was not run. */
@@ -87,17 +89,24 @@ export interface AnalyseOptions {
 /** The smallest sample plumbline analyses: moments need 4 values. */
 export const ANALYSE_MIN_N = 4;
 
-/** A seeded random subsample of `size` values (partial Fisher–Yates shuffle). */
+/** The name input errors give, as `moments()` would (the first step of the analysis). */
+const _MOMENTS = "the skewness and kurtosis summary";
+
+/**
+ * A seeded random subsample of `size` values (partial Fisher–Yates shuffle).
+ * The shuffled index array is kept sparse (only the positions the shuffle
+ * has touched), so the memory used grows with `size`, not with `x.length`.
+ */
 export function _subsample(x: Float64Array, size: number, seed: number): Float64Array {
   const rng = seededRandom(seed);
-  const idx = new Int32Array(x.length).map((_, i) => i);
+  const moved = new Map<number, number>(); // position → index now there, where not the identity
   const out = new Float64Array(size);
   for (let i = 0; i < size; i++) {
     const j = i + rng.integer(x.length - i);
-    const t = idx[i];
-    idx[i] = idx[j];
-    idx[j] = t;
-    out[i] = x[idx[i]];
+    const atJ = moved.get(j) ?? j;
+    moved.set(j, moved.get(i) ?? i);
+    moved.delete(i);
+    out[i] = x[atJ];
   }
   return out;
 }
@@ -141,7 +150,16 @@ export function analyse(
   options: AnalyseOptions = {},
 ): Analysis {
   const n = values.length;
-  const m = moments(values);
+  // Validate once, with the messages the moments summary gives, then share
+  // the work: one summary of the values in their own order (moments, K²,
+  // Jarque–Bera, QQ line), one radix-sorted copy (every order-statistic
+  // test, the QQ points, the quartiles, the reading) and one summary of the
+  // sorted copy (Anderson–Darling, Lilliefors).
+  checkSize(n, ANALYSE_MIN_N, Number.POSITIVE_INFINITY, _MOMENTS);
+  checkFinite(values, _MOMENTS);
+  const shape = _sampleShape(values, _MOMENTS);
+  const m = _momentsOf(n, shape);
+  const sorted = sortedCopy(values);
   let primary: TestResult;
   if (n > SHAPIRO_WILK_MAX_N) {
     const sub = shapiroWilk(_subsample(values, SHAPIRO_WILK_MAX_N, options.seed ?? 1));
@@ -157,21 +175,22 @@ export function analyse(
       ]),
     });
   } else {
-    primary = shapiroWilk(values);
+    primary = _shapiroWilkSorted(sorted);
   }
+  const sortedShape = _sampleShape(sorted, _MOMENTS);
   const tests: TestOutcome[] = [
     Object.freeze({ test: "Shapiro–Wilk", result: primary }),
-    _run("Shapiro–Francia", () => shapiroFrancia(values)),
-    _run("Anderson–Darling", () => andersonDarling(values)),
-    _run("Lilliefors", () => lilliefors(values)),
-    _run("D'Agostino–Pearson", () => dagostinoPearson(values)),
-    _run("Jarque–Bera", () => jarqueBera(values)),
+    _run("Shapiro–Francia", () => _shapiroFranciaSorted(sorted)),
+    _run("Anderson–Darling", () => _andersonDarlingSorted(sorted, sortedShape)),
+    _run("Lilliefors", () => _lillieforsSorted(sorted, sortedShape)),
+    _run("D'Agostino–Pearson", () => _dagostinoPearsonOf(n, shape)),
+    _run("Jarque–Bera", () => _jarqueBeraOf(n, shape)),
   ];
   const qqOptions: QqOptions = origin.rows
     ? { ...options.qq, rows: origin.rows }
     : { ...options.qq };
-  const qq = qqData(values, qqOptions);
-  const histogram = histogramData(values);
+  const qq = _qqDataSorted(values, sorted, shape, qqOptions);
+  const histogram = _histogramDataSorted(values, sorted);
   const k2 = tests[4].result as DagostinoPearsonResult | undefined;
   const reading = readShape({
     n,
@@ -179,7 +198,7 @@ export function analyse(
     primary,
     dagostino: k2,
     qq,
-    sortedSample: undefined,
+    sortedSample: sorted,
     values,
   });
   return Object.freeze({

@@ -132,7 +132,9 @@ export class Plumb implements Displayable {
           } non-numeric cells, and at least ${ANALYSE_MIN_N} are needed`,
       );
     }
-    const rows = Int32Array.from(this.#rows!, (r) => r + 1);
+    // 1-based data rows; Int32Array.prototype.map, unlike Int32Array.from with a
+    // mapping function, does not copy the input into a temporary list first.
+    const rows = this.#rows!.map((r) => r + 1);
     this.#analysis = analyse(v, {
       label: this.label,
       column: this.#state.column,
@@ -184,11 +186,11 @@ export class Plumb implements Displayable {
 
   #qqFor(options: QqOptions) {
     if (Object.keys(options).length === 0 && this.#analysis) return this.#analysis.qq;
-    const a = this.analysis();
-    return qqData(this.#load(), {
+    const values = this.#load();
+    return qqData(values, {
       ...this.#state.options.qq,
       ...options,
-      rows: Int32Array.from(this.#rows!, (r) => r + 1) ?? a.qq.row,
+      rows: this.#rows!.map((r) => r + 1),
     });
   }
 

@@ -139,7 +139,7 @@ export class Survey implements Displayable {
           column: name,
           missingDropped: col.provenance.missingDropped,
           textDropped: col.provenance.textDropped,
-          rows: Int32Array.from(col.rowIndex, (r) => r + 1),
+          rows: col.rowIndex.map((r) => r + 1),
         });
         const suggestion = a.reading.verdict === "no-clear-departure"
           ? "none needed"

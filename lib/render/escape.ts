@@ -16,8 +16,9 @@ const _HTML: Readonly<Record<string, string>> = {
 
 /**
  * Escape text for HTML or SVG element content and quoted attribute values.
- * Also replaces C0 control characters other than tab and newline (which
- * XML 1.0 forbids) with U+FFFD.
+ * Also replaces the characters XML 1.0 forbids (C0 controls other than tab,
+ * newline and carriage return; DEL; U+FFFE, U+FFFF; unpaired surrogates)
+ * with U+FFFD.
  *
  * @param s any string
  * @example
@@ -27,10 +28,20 @@ const _HTML: Readonly<Record<string, string>> = {
  * ```
  */
 export function escapeHtml(s: string): string {
-  return String(s)
-    .replace(/[&<>"']/g, (c) => _HTML[c])
+  return _xmlChars(String(s).replace(/[&<>"']/g, (c) => _HTML[c]));
+}
+
+/**
+ * Replace the characters XML 1.0 forbids (C0 controls other than tab,
+ * newline and carriage return; DEL, which XML allows but HTML calls a parse
+ * error; U+FFFE, U+FFFF; unpaired surrogates) with U+FFFD. Private to
+ * `lib/render`: markup from elsewhere (vega's SVG) passes through it too.
+ */
+export function _xmlChars(s: string): string {
+  return s
     // deno-lint-ignore no-control-regex
-    .replace(/[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f]/g, "\ufffd");
+    .replace(/[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f\ufffe\uffff]/g, "\ufffd")
+    .replace(/[\ud800-\udbff](?![\udc00-\udfff])|(?<![\ud800-\udbff])[\udc00-\udfff]/g, "\ufffd");
 }
 
 /**

@@ -6,7 +6,8 @@
  *
  * Data reach the spec under fixed field names (`z`, `v`, `lo`, `hi`, `rk`,
  * `row`, `out`); the variable's own name appears only in titles and
- * tooltip labels, which Vega treats as text, so any characters are safe.
+ * tooltip labels, which Vega treats as text (tooltip titles with backslashes doubled, see
+ * `_tooltipTitle`), so any characters are safe.
  *
  * @module
  */
@@ -124,7 +125,7 @@ export function _qqLayers(q: QqData, name: string, detrended: boolean, valueTitl
           {
             field: "v",
             type: "quantitative",
-            title: detrended ? `${name} − line` : name,
+            title: _tooltipTitle(detrended ? `${name} − line` : name),
             format: ".7~g",
           },
           { field: "rk", type: "quantitative", title: "rank" },
@@ -134,6 +135,15 @@ export function _qqLayers(q: QqData, name: string, detrended: boolean, valueTitl
       },
     },
   ];
+}
+
+/**
+ * A tooltip title as Vega-Lite needs it: it writes tooltip titles into an
+ * expression string, escaping quotes but not backslashes, so a name ending
+ * in `\` broke the expression. Doubled backslashes read back as single ones.
+ */
+export function _tooltipTitle(title: string): string {
+  return title.replace(/\\/g, "\\\\");
 }
 
 /** The subtitle lines shared by both QQ forms. */

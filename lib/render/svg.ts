@@ -8,7 +8,7 @@
 import * as vega from "vega";
 import { compile } from "vega-lite";
 import type { TopLevelSpec } from "vega-lite";
-import { escapeHtml } from "./escape.ts";
+import { _xmlChars, escapeHtml } from "./escape.ts";
 import { vegaTextWidth } from "./text_width.ts";
 
 // Without a canvas vega estimates 0.8 em per character, which makes charts
@@ -70,7 +70,9 @@ export async function renderSvg(spec: TopLevelSpec, options: RenderOptions = {})
   // deno-lint-ignore no-explicit-any
   const view = new vega.View(vega.parse(vgSpec), { renderer: "none", logger: logger as any });
   try {
-    return _compactSvg(await view.toSVG());
+    // vega escapes markup in text but passes control characters through: an
+    // SVG must stay well-formed XML whatever a name holds.
+    return _xmlChars(_compactSvg(await view.toSVG()));
   } finally {
     view.finalize();
   }

@@ -19,8 +19,43 @@ const _SHOWN_POSITIONS = 5;
  * @param what the name of the method, for the message
  */
 export function finiteCopy(x: ArrayLike<number>, what: string): Float64Array {
+  if (x instanceof Float64Array) {
+    // Already doubles: a block copy, then one cheap scan for NaN and ±Infinity.
+    checkFinite(x, what);
+    return x.slice();
+  }
   const n = x.length;
   const out = new Float64Array(n);
+  let bad = 0;
+  for (let i = 0; i < n; i++) {
+    const v = x[i] as unknown;
+    if (typeof v !== "number" || !Number.isFinite(v)) {
+      bad++;
+      continue;
+    }
+    out[i] = v;
+  }
+  if (bad > 0) _throwNonFinite(x, what);
+  return out;
+}
+
+/**
+ * Throw `PlumbError("non-finite")`, with the same message as
+ * {@linkcode finiteCopy}, when any entry of `x` is NaN or ±Infinity; no copy
+ * is made.
+ *
+ * @param x the sample
+ * @param what the name of the method, for the message
+ */
+export function checkFinite(x: Float64Array, what: string): void {
+  for (let i = 0; i < x.length; i++) {
+    // v − v is 0 for a finite v and NaN for NaN and ±Infinity.
+    if (x[i] - x[i] !== 0) _throwNonFinite(x, what);
+  }
+}
+
+function _throwNonFinite(x: ArrayLike<number>, what: string): never {
+  const n = x.length;
   let bad = 0;
   const first: number[] = [];
   for (let i = 0; i < n; i++) {
@@ -28,21 +63,16 @@ export function finiteCopy(x: ArrayLike<number>, what: string): Float64Array {
     if (typeof v !== "number" || !Number.isFinite(v)) {
       bad++;
       if (first.length < _SHOWN_POSITIONS) first.push(i);
-      continue;
     }
-    out[i] = v;
   }
-  if (bad > 0) {
-    const more = bad > first.length ? ", …" : "";
-    throw new PlumbError(
-      "non-finite",
-      `Cannot run ${what} on values that are not finite numbers: ${bad} of ${n} ` +
-        `(at position${bad === 1 ? "" : "s"} ${first.join(", ")}${more}); ` +
-        `remove or replace them first (plumb() and loadTable() drop and count missing cells)`,
-      { count: bad, positions: first },
-    );
-  }
-  return out;
+  const more = bad > first.length ? ", …" : "";
+  throw new PlumbError(
+    "non-finite",
+    `Cannot run ${what} on values that are not finite numbers: ${bad} of ${n} ` +
+      `(at position${bad === 1 ? "" : "s"} ${first.join(", ")}${more}); ` +
+      `remove or replace them first (plumb() and loadTable() drop and count missing cells)`,
+    { count: bad, positions: first },
+  );
 }
 
 /**
@@ -94,7 +124,15 @@ export function sortedSample(
   max = Number.POSITIVE_INFINITY,
 ): Float64Array {
   checkSize(x.length, min, max, what);
-  const s = sortFloat64(finiteCopy(x, what));
+  let s: Float64Array;
+  if (x instanceof Float64Array) {
+    // Sort a block copy, then look at its ends only: −∞ sorts first, +∞ and NaN last.
+    s = sortFloat64(x.slice());
+    const n = s.length;
+    if (n > 0 && !(Number.isFinite(s[0]) && Number.isFinite(s[n - 1]))) _throwNonFinite(x, what);
+  } else {
+    s = sortFloat64(finiteCopy(x, what));
+  }
   checkNotConstant(s, what);
   return s;
 }
@@ -116,4 +154,20 @@ export function tiesWarning(sorted: Float64Array): string | undefined {
   if (n === 0 || distinct >= 0.7 * n) return undefined;
   return `Only ${distinct} distinct values among ${n}: the data look rounded or discrete, ` +
     `and ties alone can make a normality test reject; judge the QQ plot, whose steps show the rounding`;
+}
+
+/**
+ * Throw `PlumbError("non-finite")` when a sample's standard deviation,
+ * though computed without overflow, exceeds the largest double (values
+ * near −1.8e308 and +1.8e308 together): it cannot be reported in the data's
+ * units.
+ */
+export function checkSpreadFinite(sd: number, what: string): void {
+  if (!Number.isFinite(sd)) {
+    throw new PlumbError(
+      "non-finite",
+      `Cannot compute ${what}: the standard deviation exceeds the largest double (about 1.8e308); ` +
+        `rescale the data (e.g. change its units) first`,
+    );
+  }
 }

@@ -5,8 +5,8 @@
  * @module
  */
 import { normalSf } from "../numeric/normal.ts";
-import { sortedSample, tiesWarning } from "./_input.ts";
-import { _sampleShape, _standardised } from "./moments.ts";
+import { checkSize, sortedSample, tiesWarning } from "./_input.ts";
+import { _sampleShape, type _Shape, _zScore } from "./moments.ts";
 import { freezeResult, type TestResult } from "./result.ts";
 
 /** The Anderson–Darling result: {@linkcode TestResult} plus the modified statistic. */
@@ -104,12 +104,21 @@ function _pValue(a: number): { p: number; bound: "none" | "at-most" } {
  */
 export function andersonDarling(x: ArrayLike<number>): AndersonDarlingResult {
   const s = sortedSample(x, _WHAT, _MIN_N);
+  return _andersonDarlingSorted(s, _sampleShape(s, _WHAT));
+}
+
+/**
+ * {@linkcode andersonDarling} on a sample already sorted ascending, finite
+ * and not constant, with its {@linkcode _sampleShape} (the size is checked
+ * here). No copy of the sample is made.
+ */
+export function _andersonDarlingSorted(s: Float64Array, shape: _Shape): AndersonDarlingResult {
   const n = s.length;
-  const z = _standardised(s, _sampleShape(s, _WHAT));
+  checkSize(n, _MIN_N, Number.POSITIVE_INFINITY, _WHAT);
   let sum = 0;
   let comp = 0;
   for (let i = 0; i < n; i++) {
-    const zi = z[i];
+    const zi = _zScore(s[i], shape);
     const a = Math.abs(zi);
     let logTail: number; // ln Q(|z|)
     let logBody: number; // ln(1 − Q(|z|))

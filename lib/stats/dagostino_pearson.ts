@@ -6,7 +6,7 @@
  */
 import { normalSf } from "../numeric/normal.ts";
 import { checkSize, finiteCopy } from "./_input.ts";
-import { _sampleShape } from "./moments.ts";
+import { _sampleShape, type _Shape } from "./moments.ts";
 import { freezeResult, type TestResult } from "./result.ts";
 
 /** The K² result: the {@linkcode TestResult} fields plus the two components. */
@@ -109,8 +109,16 @@ function _kurtosisZ(g2: number, n: number): { z: number; outside: boolean } {
 export function dagostinoPearson(x: ArrayLike<number>): DagostinoPearsonResult {
   checkSize(x.length, _MIN_N, Number.POSITIVE_INFINITY, _WHAT);
   const s = finiteCopy(x, _WHAT);
-  const n = s.length;
-  const { g1, g2 } = _sampleShape(s, _WHAT);
+  return _dagostinoPearsonOf(s.length, _sampleShape(s, _WHAT));
+}
+
+/**
+ * {@linkcode dagostinoPearson} from the {@linkcode _sampleShape} of a
+ * finite, non-constant sample of `n` values (the size is checked here).
+ */
+export function _dagostinoPearsonOf(n: number, shape: _Shape): DagostinoPearsonResult {
+  checkSize(n, _MIN_N, Number.POSITIVE_INFINITY, _WHAT);
+  const { g1, g2 } = shape;
   const zs = _skewnessZ(g1, n);
   const { z: zk, outside } = _kurtosisZ(g2, n);
   const k2 = zs * zs + zk * zk;

@@ -24,7 +24,7 @@
  */
 import { PlumbError } from "../errors.ts";
 import { normalPdf } from "../numeric/normal.ts";
-import { checkNotConstant, checkSize, finiteCopy } from "./_input.ts";
+import { checkNotConstant, checkSize, checkSpreadFinite, finiteCopy } from "./_input.ts";
 
 /** A bin-width rule. */
 export type BinRule = "freedman-diaconis" | "scott" | "sturges";
@@ -110,6 +110,16 @@ export function _quantile7(scratch: Float64Array, p: number): number {
   return v + (h - lo) * (next - v);
 }
 
+/** Beyond these magnitudes the sample is binned after an exact rescaling by a power of two. */
+const _RESCALE_BELOW = 2 ** -200;
+const _RESCALE_ABOVE = 2 ** 200;
+
+/** v · 2^k in two steps, exact whenever the result and the middle step are normal numbers. */
+function _times2(v: number, k: number): number {
+  const h = Math.trunc(k / 2);
+  return v * 2 ** h * 2 ** (k - h);
+}
+
 function _meanSd(x: Float64Array): [number, number] {
   let s = 0;
   for (let i = 0; i < x.length; i++) s += x[i];
@@ -150,6 +160,78 @@ export function histogramData(x: ArrayLike<number>, options: HistogramOptions = 
     if (data[i] > max) max = data[i];
   }
   checkNotConstant(Float64Array.of(min, max), what);
+  const big = Math.max(-min, max);
+  if (big > _RESCALE_ABOVE || big < _RESCALE_BELOW) {
+    // Bin x·2ᵏ, whose range, squares and density cannot overflow or underflow,
+    // and map the lengths back (counts and curve heights do not change).
+    const k = -Math.floor(Math.log2(big));
+    const h = histogramData(data.map((v) => _times2(v, k)), options);
+    checkSpreadFinite(_times2(h.sd, -k), what);
+    const back = (a: readonly number[]) => Object.freeze(a.map((v) => _times2(v, -k)));
+    const edges = back(h.edges) as number[];
+    return Object.freeze({
+      ...h,
+      // A bin spanning values near −1.8e308 to +1.8e308 is wider than the largest double.
+      binWidth: Math.min(Number.MAX_VALUE, _times2(h.binWidth, -k)),
+      edges: Object.freeze([min, ...edges.slice(1, -1), max]),
+      mean: _times2(h.mean, -k),
+      sd: _times2(h.sd, -k),
+      curveX: Object.freeze([min, ...back(h.curveX).slice(1, -1), max]),
+    });
+  }
+  return _histogramBuild(data, min, max, options, () => {
+    const scratch = data.slice();
+    return _quantile7(scratch, 0.75) - _quantile7(scratch, 0.25);
+  });
+}
+
+/** Type-7 quantile at probability p of a sample sorted ascending. */
+function _sortedQuantile7(sorted: Float64Array, p: number): number {
+  const h = (sorted.length - 1) * p;
+  const lo = Math.floor(h);
+  const v = sorted[lo];
+  if (h === lo) return v;
+  return v + (h - lo) * (sorted[lo + 1] - v);
+}
+
+/**
+ * {@linkcode histogramData} for a sample whose sorted copy the caller
+ * already holds: `values` finite and not constant, in their original order
+ * (the mean and sd are summed in that order), and `sorted` the same values
+ * ascending. Gives the same result as `histogramData(values, options)`
+ * without copying the sample or selecting the quartiles again.
+ */
+export function _histogramDataSorted(
+  values: Float64Array,
+  sorted: Float64Array,
+  options: HistogramOptions = {},
+): HistogramData {
+  const what = "a histogram";
+  checkSize(values.length, 2, Infinity, what);
+  const n = sorted.length;
+  const min = sorted[0];
+  const max = sorted[n - 1];
+  checkNotConstant(Float64Array.of(min, max), what);
+  const big = Math.max(-min, max);
+  if (big > _RESCALE_ABOVE || big < _RESCALE_BELOW) return histogramData(values, options);
+  return _histogramBuild(
+    values,
+    min,
+    max,
+    options,
+    () => _sortedQuantile7(sorted, 0.75) - _sortedQuantile7(sorted, 0.25),
+  );
+}
+
+/** The histogram of finite, non-constant data with moderate magnitudes (see histogramData). */
+function _histogramBuild(
+  data: Float64Array,
+  min: number,
+  max: number,
+  options: HistogramOptions,
+  interquartile: () => number,
+): HistogramData {
+  const n = data.length;
   const maxBins = options.maxBins ?? 200;
   const curvePoints = options.curvePoints ?? 121;
   if (!Number.isInteger(maxBins) || maxBins < 1) {
@@ -171,8 +253,7 @@ export function histogramData(x: ArrayLike<number>, options: HistogramOptions = 
   let k: number;
   let ruleNote: string;
   if (rule === "freedman-diaconis") {
-    const scratch = data.slice();
-    const iqr = _quantile7(scratch, 0.75) - _quantile7(scratch, 0.25);
+    const iqr = interquartile();
     if (iqr > 0) {
       k = Math.ceil(range / ((2 * iqr) / cube));
       ruleNote = "Freedman–Diaconis bin width 2·IQR·n^(−1/3) (Freedman & Diaconis 1981)";

@@ -5,7 +5,7 @@
  * @module
  */
 import { checkSize, finiteCopy } from "./_input.ts";
-import { _sampleShape } from "./moments.ts";
+import { _sampleShape, type _Shape } from "./moments.ts";
 import { freezeResult, type TestResult } from "./result.ts";
 
 const _WHAT = "the Jarque–Bera test";
@@ -45,8 +45,16 @@ const _ASYMPTOTIC_N = 2000;
 export function jarqueBera(x: ArrayLike<number>): TestResult {
   checkSize(x.length, _MIN_N, Number.POSITIVE_INFINITY, _WHAT);
   const s = finiteCopy(x, _WHAT);
-  const n = s.length;
-  const { g1, g2 } = _sampleShape(s, _WHAT);
+  return _jarqueBeraOf(s.length, _sampleShape(s, _WHAT));
+}
+
+/**
+ * {@linkcode jarqueBera} from the {@linkcode _sampleShape} of a finite,
+ * non-constant sample of `n` values (the size is checked here).
+ */
+export function _jarqueBeraOf(n: number, shape: _Shape): TestResult {
+  checkSize(n, _MIN_N, Number.POSITIVE_INFINITY, _WHAT);
+  const { g1, g2 } = shape;
   const jb = (n / 6) * (g1 * g1 + (g2 * g2) / 4);
   const warnings: string[] = [];
   if (n < _ASYMPTOTIC_N) {

@@ -5,8 +5,8 @@
  * @module
  */
 import { normalCdf } from "../numeric/normal.ts";
-import { sortedSample, tiesWarning } from "./_input.ts";
-import { _sampleShape, _standardised } from "./moments.ts";
+import { checkSize, sortedSample, tiesWarning } from "./_input.ts";
+import { _sampleShape, type _Shape, _zScore } from "./moments.ts";
 import { freezeResult, type TestResult } from "./result.ts";
 
 /** The Lilliefors result: {@linkcode TestResult} plus what kind of p it is. */
@@ -82,11 +82,20 @@ function _dallalWilkinson(d: number, n: number): number {
  */
 export function lilliefors(x: ArrayLike<number>): LillieforsResult {
   const s = sortedSample(x, _WHAT, _MIN_N);
+  return _lillieforsSorted(s, _sampleShape(s, _WHAT));
+}
+
+/**
+ * {@linkcode lilliefors} on a sample already sorted ascending, finite and
+ * not constant, with its {@linkcode _sampleShape} (the size is checked
+ * here). No copy of the sample is made.
+ */
+export function _lillieforsSorted(s: Float64Array, shape: _Shape): LillieforsResult {
   const n = s.length;
-  const z = _standardised(s, _sampleShape(s, _WHAT));
+  checkSize(n, _MIN_N, Number.POSITIVE_INFINITY, _WHAT);
   let d = 0;
   for (let i = 0; i < n; i++) {
-    const f = normalCdf(z[i]);
+    const f = normalCdf(_zScore(s[i], shape));
     const above = (i + 1) / n - f;
     const below = f - i / n;
     if (above > d) d = above;

@@ -5,7 +5,7 @@
  *
  * @module
  */
-import { checkNotConstant, checkSize, finiteCopy } from "./_input.ts";
+import { checkNotConstant, checkSize, checkSpreadFinite, finiteCopy } from "./_input.ts";
 
 /** Mean, spread and shape of a sample. Frozen plain data. */
 export interface Moments {
@@ -138,13 +138,16 @@ export function _sampleShape(s: Float64Array, what: string): _Shape {
 
 /** z-scores (x − mean)/sd of the sample `s` described by `shape`, in a new array. */
 export function _standardised(s: Float64Array, shape: _Shape): Float64Array {
-  const { scaleExp: k, centreHi: hi, centreLo: lo, sdScaled: sd } = shape;
   const z = new Float64Array(s.length);
-  for (let i = 0; i < s.length; i++) {
-    const u = k === 0 ? s[i] : _times2(s[i], k);
-    z[i] = (u - hi - lo) / sd;
-  }
+  for (let i = 0; i < s.length; i++) z[i] = _zScore(s[i], shape);
   return z;
+}
+
+/** The z-score (v − mean)/sd of one value of the sample described by `shape`. */
+export function _zScore(v: number, shape: _Shape): number {
+  const k = shape.scaleExp;
+  const u = k === 0 ? v : _times2(v, k);
+  return (u - shape.centreHi - shape.centreLo) / shape.sdScaled;
 }
 
 /**
@@ -183,7 +186,18 @@ export function moments(x: ArrayLike<number>): Moments {
   checkSize(x.length, 4, Number.POSITIVE_INFINITY, what);
   const s = finiteCopy(x, what);
   const n = s.length;
-  const { mean, sd, g1, g2 } = _sampleShape(s, what);
+  return _momentsOf(n, _sampleShape(s, what));
+}
+
+/**
+ * The {@linkcode Moments} of a sample of `n` values from its
+ * {@linkcode _sampleShape} (n ≥ 4), for callers that already hold the
+ * shape; throws `PlumbError("non-finite")` when the sd overflows.
+ */
+export function _momentsOf(n: number, shape: _Shape): Moments {
+  const what = "the skewness and kurtosis summary";
+  const { mean, sd, g1, g2 } = shape;
+  checkSpreadFinite(sd, what);
   const seG1 = Math.sqrt((6 * n * (n - 1)) / ((n - 2) * (n + 1) * (n + 3)));
   return Object.freeze({
     n,

@@ -18,8 +18,9 @@
  * @module
  */
 import { PlumbError } from "../errors.ts";
-import { checkNotConstant, checkSize, finiteCopy } from "./_input.ts";
+import { checkNotConstant, checkSize, checkSpreadFinite, finiteCopy } from "./_input.ts";
 import { normalEnvelope } from "./envelope.ts";
+import { _sampleShape, type _Shape } from "./moments.ts";
 import { BLOM_OFFSET, normalScores } from "./plotting_positions.ts";
 
 /** Options for {@linkcode qqData}. */
@@ -299,27 +300,25 @@ export function _selectRanks(x: Float64Array, ranks: readonly number[]): _Select
 
 function _moments(x: Float64Array): { mean: number; sd: number; min: number; max: number } {
   const n = x.length;
-  let sum = 0;
   let min = Infinity;
   let max = -Infinity;
   for (let i = 0; i < n; i++) {
     const v = x[i];
-    sum += v;
     if (v < min) min = v;
     if (v > max) max = v;
   }
-  let mean = sum / n;
-  // second pass: correct the mean and sum squared deviations
-  let c = 0;
-  let ss = 0;
-  for (let i = 0; i < n; i++) {
-    const d = x[i] - mean;
-    c += d;
-    ss += d * d;
-  }
-  mean += c / n;
-  const sd = Math.sqrt(Math.max(0, (ss - (c * c) / n) / (n - 1)));
+  checkNotConstant(Float64Array.of(min, max), "a QQ plot");
+  // The moments' own summary rescales extreme magnitudes, so that the sum
+  // and the squares neither overflow (values near ±1e308) nor underflow
+  // (subnormal values).
+  const { mean, sd } = _sampleShape(x, "a QQ plot");
+  checkSpreadFinite(sd, "a QQ plot");
   return { mean, sd, min, max };
+}
+
+/** v clamped to the finite doubles: an envelope end beyond ±1.8e308 is shown at that edge. */
+function _finite(v: number): number {
+  return Math.min(Number.MAX_VALUE, Math.max(-Number.MAX_VALUE, v));
 }
 
 function _positiveInt(v: number, name: string, min: number): number {
@@ -352,7 +351,57 @@ export function qqData(x: ArrayLike<number>, options: QqOptions = {}): QqData {
   const data = finiteCopy(x, what);
   const { mean, sd, min, max } = _moments(data);
   checkNotConstant(Float64Array.of(min, max), what);
-  const n = data.length;
+  return _qqBuild(data.length, mean, sd, options, (ranks) => _selectRanks(data, ranks));
+}
+
+/**
+ * {@linkcode qqData} for a sample whose sorted copy and
+ * {@linkcode _sampleShape} the caller already holds: `values` in their
+ * original order (finite, not constant; they give each point its row) and
+ * `sorted` the same values ascending. Gives the same result as
+ * `qqData(values, options)` without copying or sorting the sample again.
+ */
+export function _qqDataSorted(
+  values: Float64Array,
+  sorted: Float64Array,
+  shape: _Shape,
+  options: QqOptions = {},
+): QqData {
+  const what = "a QQ plot";
+  checkSize(values.length, 3, Infinity, what);
+  checkSpreadFinite(shape.sd, what);
+  return _qqBuild(
+    values.length,
+    shape.mean,
+    shape.sd,
+    options,
+    (ranks) => _selectFromSorted(values, sorted, ranks),
+  );
+}
+
+/** The values at the kept ranks, read from the sorted sample, with their rows in `x`. */
+function _selectFromSorted(
+  x: Float64Array,
+  sorted: Float64Array,
+  ranks: readonly number[],
+): _Selected {
+  const m = ranks.length;
+  const value = new Float64Array(m);
+  const first = new Int32Array(m);
+  for (let k = 0; k < m; k++) {
+    value[k] = sorted[ranks[k] - 1];
+    first[k] = _lowerBound(sorted, value[k], 0, ranks[k] - 1);
+  }
+  return { value, row: _assignRows(x, value, first, ranks, () => true) };
+}
+
+function _qqBuild(
+  n: number,
+  mean: number,
+  sd: number,
+  options: QqOptions,
+  select: (ranks: readonly number[]) => _Selected,
+): QqData {
   const maxPoints = _positiveInt(options.maxPoints ?? 800, "maxPoints", 20);
   const tailPoints = _positiveInt(options.tailPoints ?? 200, "tailPoints", 1);
   const offset = options.offset ?? BLOM_OFFSET;
@@ -367,7 +416,7 @@ export function qqData(x: ArrayLike<number>, options: QqOptions = {}): QqData {
   const ranks = _keptRanks(n, maxPoints, tailPoints);
   const z = normalScores(n, { offset, ranks });
   const env = normalEnvelope(n, { level, kind, ranks });
-  const picked = _selectRanks(data, ranks);
+  const picked = select(ranks);
   const m = ranks.length;
   const value: number[] = new Array(m);
   const lower: number[] = new Array(m);
@@ -378,8 +427,8 @@ export function qqData(x: ArrayLike<number>, options: QqOptions = {}): QqData {
   for (let k = 0; k < m; k++) {
     const v = picked.value[k];
     value[k] = v;
-    lower[k] = mean + sd * env.lower[k];
-    upper[k] = mean + sd * env.upper[k];
+    lower[k] = _finite(mean + sd * env.lower[k]);
+    upper[k] = _finite(mean + sd * env.upper[k]);
     outside[k] = v < lower[k] ? -1 : v > upper[k] ? 1 : 0;
     if (outside[k] !== 0) outsideCount++;
     const j = picked.row[k];

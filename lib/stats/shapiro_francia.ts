@@ -5,7 +5,7 @@
  * @module
  */
 import { normalQuantile, normalSf } from "../numeric/normal.ts";
-import { sortedSample, tiesWarning } from "./_input.ts";
+import { checkSize, sortedSample, tiesWarning } from "./_input.ts";
 import { freezeResult, type TestResult } from "./result.ts";
 
 const _NAME = "the Shapiro–Francia test";
@@ -64,25 +64,37 @@ function _blom(n: number): { m: Float64Array; ss: number } {
  * ```
  */
 export function shapiroFrancia(x: ArrayLike<number>): TestResult {
-  const s = sortedSample(x, _NAME, _MIN_N, _MAX_N);
+  return _shapiroFranciaSorted(sortedSample(x, _NAME, _MIN_N, _MAX_N));
+}
+
+/**
+ * {@linkcode shapiroFrancia} on a sample already sorted ascending, finite
+ * and not constant (the size is checked here).
+ */
+export function _shapiroFranciaSorted(s: Float64Array): TestResult {
   const n = s.length;
+  checkSize(n, _MIN_N, _MAX_N, _NAME);
   const { m, ss } = _blom(n);
   const lo = s[0];
-  const scale = s[n - 1] - lo;
+  // Centre and scale by the range; when the range overflows (values near
+  // ±1.8e308 of both signs), halve before subtracting.
+  const halve = !Number.isFinite(s[n - 1] - lo);
+  const scale = halve ? s[n - 1] / 2 - lo / 2 : s[n - 1] - lo;
+  const unit = (v: number) => (halve ? v / 2 - lo / 2 : v - lo) / scale;
   let mean = 0;
-  for (let i = 0; i < n; i++) mean += (s[i] - lo) / scale;
+  for (let i = 0; i < n; i++) mean += unit(s[i]);
   mean /= n;
   let sxx = 0;
   let corr = 0;
   for (let i = 0; i < n; i++) {
-    const d = (s[i] - lo) / scale - mean;
+    const d = unit(s[i]) - mean;
     sxx += d * d;
     corr += d;
   }
   sxx -= corr * corr / n;
   let sxm = 0;
   for (let k = 0; k < m.length; k++) {
-    sxm += m[k] * ((s[n - 1 - k] - lo) / scale - (s[k] - lo) / scale);
+    sxm += m[k] * (unit(s[n - 1 - k]) - unit(s[k]));
   }
   // 1 − W′ = (R − b)(R + b)/R² with R = √(Σm²·Sxx), b = Σ m x; accurate near 1.
   const root = Math.sqrt(ss * sxx);

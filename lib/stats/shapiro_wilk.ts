@@ -5,7 +5,7 @@
  */
 import { normalSf } from "../numeric/normal.ts";
 import { shapiroWilkCoefficients } from "./shapiro_wilk_coefficients.ts";
-import { sortedSample, tiesWarning } from "./_input.ts";
+import { checkSize, sortedSample, tiesWarning } from "./_input.ts";
 import { freezeResult, type TestResult } from "./result.ts";
 
 const _NAME = "the Shapiro–Wilk test";
@@ -55,8 +55,17 @@ export const SHAPIRO_WILK_MAX_N = 5000;
  * ```
  */
 export function shapiroWilk(x: ArrayLike<number>): TestResult {
-  const s = sortedSample(x, _NAME, SHAPIRO_WILK_MIN_N, SHAPIRO_WILK_MAX_N);
+  return _shapiroWilkSorted(sortedSample(x, _NAME, SHAPIRO_WILK_MIN_N, SHAPIRO_WILK_MAX_N));
+}
+
+/**
+ * {@linkcode shapiroWilk} on a sample already sorted ascending, finite and
+ * not constant (the size is checked here), for callers that sort once and
+ * run several tests.
+ */
+export function _shapiroWilkSorted(s: Float64Array): TestResult {
   const n = s.length;
+  checkSize(n, SHAPIRO_WILK_MIN_N, SHAPIRO_WILK_MAX_N, _NAME);
   const w = shapiroWilkW(s);
   const p = shapiroWilkPValue(w, n);
   const warnings: string[] = [];
@@ -100,14 +109,23 @@ export function shapiroWilkW(sorted: Float64Array): number {
   // offsets and extreme magnitudes neither cancel nor overflow.
   const lo = sorted[0];
   const range = sorted[n - 1] - lo;
-  const scale = Number.isFinite(range) ? range : sorted[n - 1] / 2 - lo / 2;
+  // When the range overflows (values near ±1.8e308 of both signs), halve
+  // before subtracting so that no difference overflows.
+  const halve = !Number.isFinite(range);
+  const scale = halve ? sorted[n - 1] / 2 - lo / 2 : range;
+  const u = (v: number) => (halve ? v / 2 - lo / 2 : v - lo) / scale;
+  // The scaled values, computed once (into a shared buffer up to n = 5000).
+  const t = n <= SHAPIRO_WILK_MAX_N ? _SCALED.subarray(0, n) : new Float64Array(n);
   let mean = 0;
-  for (let i = 0; i < n; i++) mean += (sorted[i] - lo) / scale;
+  for (let i = 0; i < n; i++) {
+    t[i] = u(sorted[i]);
+    mean += t[i];
+  }
   mean /= n;
   let ssq = 0;
   let corr = 0;
   for (let i = 0; i < n; i++) {
-    const d = (sorted[i] - lo) / scale - mean;
+    const d = t[i] - mean;
     ssq += d * d;
     corr += d;
   }
@@ -116,13 +134,13 @@ export function shapiroWilkW(sorted: Float64Array): number {
   ssq -= corr * corr / n;
   if (n === 3) {
     // Exact form: with the values mapped to 0, t, 1, W = (3/4)/(1 − t + t²).
-    const t = (sorted[1] - lo) / scale;
-    return Math.max(0.75, Math.min(1, 0.75 / (1 - t + t * t)));
+    const m = t[1];
+    return Math.max(0.75, Math.min(1, 0.75 / (1 - m + m * m)));
   }
   const half = a.length;
   let b = 0;
   for (let k = 0; k < half; k++) {
-    b += a[k] * ((sorted[n - 1 - k] - lo) / scale - (sorted[k] - lo) / scale);
+    b += a[k] * (t[n - 1 - k] - t[k]);
   }
   // 1 − W = (S − b)(S + b)/S² with S = √ssq, which stays accurate near W = 1.
   const root = Math.sqrt(ssq);
@@ -130,6 +148,9 @@ export function shapiroWilkW(sorted: Float64Array): number {
   const w = 1 - oneMinusW;
   return Math.min(1, Math.max(n === 3 ? 0.75 : 0, w));
 }
+
+/** Scratch for {@linkcode shapiroWilkW} (synchronous, never re-entered). */
+const _SCALED = new Float64Array(SHAPIRO_WILK_MAX_N);
 
 function _poly(c: readonly number[], x: number): number {
   let r = 0;
