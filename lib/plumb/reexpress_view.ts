@@ -105,7 +105,8 @@ export function reexpressionTable(
         top.map((c) => {
           const sw = c.tests.find((t) => t.test === "Shapiro–Wilk")?.result;
           return {
-            label: stepLabel(name, [stepOf(c.reexpression)]),
+            // In x: the chart's title names the variable, and short panel titles keep the grid aligned.
+            label: stepOf(c.reexpression).formula,
             qq: qqData(applyReexpression(values, c.reexpression)),
             W: sw?.statistic ?? 1 - c.departure,
             p: sw?.pValue ?? NaN,

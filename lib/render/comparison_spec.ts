@@ -97,7 +97,9 @@ export function comparisonSpec(
   const per = options.pointsPerPanel ?? _defaultPerPanel(candidates.length);
   const panels = candidates.map((c) =>
     _qqPanel(c.qq, {
-      name: c.label,
+      // The panel title names the re-expression; a short axis title keeps the
+      // panels aligned (a long rotated title would stretch its row).
+      name: "value on this scale",
       title: c.label,
       subtitle: [
         `${stat} = ${formatNumber(c.W, 4)} · ${formatPClause(c.p)}` +
