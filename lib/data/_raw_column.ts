@@ -38,6 +38,8 @@ export interface _RawColumn {
   readonly texts: () => readonly string[];
   /** The CSV line where a 0-based row starts, or null for in-memory data. */
   readonly lineOf: (row: number) => number | null;
+  /** A fresh copy of `values`, for a column that can make one without them. */
+  readonly copyValues?: () => Float64Array;
 }
 
 /** Make the empty arrays of a column of `rows` cells. */

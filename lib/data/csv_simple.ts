@@ -17,12 +17,23 @@
  * read as in `number_parse.ts`: the same strict grammar, the same exact
  * cases (Clinger 1990; Dekker 1971 double-double), `Number()` otherwise.
  *
- * Cell text is not kept as strings: each row's start offset is, and a
- * column's text is cut from the bytes when it is first asked for.
+ * Cell text is not kept as strings. A column whose every number is written
+ * the plain way with one fixed count of decimals (`12.3400`: no sign `+`,
+ * exponent or extra leading zero, at most 15 digits), and whose other cells
+ * are empty, gets its text back from its numbers (`toFixed`, which returns
+ * the same digits for decimals of at most 15 significant digits). Any other
+ * column's text is cut from the bytes when it is first asked for; only then
+ * are the bytes kept (and a caller that reuses its buffer is told).
  *
  * @module
  */
-import { _cached, type _CellRules, type _RawColumn, _storeTextCell } from "./_raw_column.ts";
+import {
+  _cached,
+  type _CellRules,
+  type _RawColumn,
+  _storeTextCell,
+  CELL_NUMBER,
+} from "./_raw_column.ts";
 import { type _CsvRead, _noHeader, _ragged } from "./_csv_common.ts";
 import { uniqueNames } from "./header.ts";
 import { _wideDecimal } from "./number_parse.ts";
@@ -56,12 +67,15 @@ function _decode(bytes: Uint8Array, a: number, b: number): string {
  * @param delimiter one ASCII character
  * @param rules how cells are read
  * @param source the source's name for messages
+ * @param keep for a caller that means to reuse `bytes`: called when the
+ *   table keeps them, so that the caller lets them go
  */
 export function _readSimpleCsv(
   bytes: Uint8Array,
   delimiter: string,
   rules: _CellRules,
   source: string,
+  keep: (() => void) | null = null,
 ): _CsvRead | null {
   // A final "\n" is a sentinel: every scan below stops at one, so none needs
   // a bounds check. Adding it changes no row, cell or line number.
@@ -103,42 +117,66 @@ export function _readSimpleCsv(
   let firstLine = bytes.indexOf(10, pos) - pos;
   if (firstLine <= 0) firstLine = Math.max(1, n - pos);
   let capacity = Math.ceil((n - pos) / firstLine * 1.25) + 16;
-  let starts = new Int32Array(capacity);
-  let lines = new Int32Array(capacity);
-  const lineOf = (row: number) => lines[row];
+  // Lines of rows: first data line + row, until a skipped blank line makes
+  // a table of them necessary.
+  const firstDataLine = line;
+  const dataStart = pos;
+  let lines: Int32Array | null = null;
+  const lineOf = (row: number) => lines === null ? firstDataLine + row : lines[row];
   const values: Float64Array[] = [];
-  const statuses: Uint8Array[] = [];
-  let rowCount = 0;
+  // A column starts compact: while every cell is a number written plainly
+  // with the same d decimals and an integer part of ±(2^31 − 1) at most,
+  // only the integer m = value·10^d is stored (the value is m / 10^d, the
+  // very division that read it). The first other cell turns it into doubles.
+  const ints: (Int32Array | null)[] = [];
+  // Status arrays are made when a column first has a cell that is not a
+  // plain number (until then every cell is CELL_NUMBER, 0).
+  const statuses: (Uint8Array | null)[] = new Array(ncol).fill(null);
+  // Per column: -1 no number yet, d ≥ 0 every number written plainly with d
+  // decimals, -2 the text must be cut from the bytes.
+  const format = new Int32Array(ncol).fill(-1);
   const columns: _Mutable[] = names.map((name, j) => {
     const col: _Mutable = {
       name,
       originalName: header[j].trim(),
-      values: new Float64Array(capacity),
-      status: new Uint8Array(capacity),
+      values: _NO_VALUES,
+      status: _NO_STATUS,
       notes: [],
-      texts: _cached(() => _columnTexts(bytes, starts.subarray(0, rowCount), j, last, dc)),
+      texts: () => [],
       lineOf,
     };
     values.push(col.values);
-    statuses.push(col.status);
+    ints.push(new Int32Array(capacity));
     return col;
   });
+  const more = <T extends Float64Array | Uint8Array | Int32Array>(
+    a: T,
+    make: (k: number) => T,
+  ): T => {
+    const b = make(capacity);
+    b.set(a);
+    return b;
+  };
   const grow = () => {
     capacity *= 2;
-    const more = <T extends Float64Array | Uint8Array | Int32Array>(
-      a: T,
-      make: (k: number) => T,
-    ): T => {
-      const b = make(capacity);
-      b.set(a);
-      return b;
-    };
-    starts = more(starts, (k) => new Int32Array(k));
-    lines = more(lines, (k) => new Int32Array(k));
+    if (lines !== null) lines = more(lines, (k) => new Int32Array(k));
     for (let j = 0; j < ncol; j++) {
-      values[j] = columns[j].values = more(values[j], (k) => new Float64Array(k));
-      statuses[j] = columns[j].status = more(statuses[j], (k) => new Uint8Array(k));
+      const m = ints[j];
+      if (m !== null) ints[j] = more(m, (k) => new Int32Array(k));
+      else values[j] = columns[j].values = more(values[j], (k) => new Float64Array(k));
+      const st = statuses[j];
+      if (st !== null) statuses[j] = columns[j].status = more(st, (k) => new Uint8Array(k));
     }
+  };
+
+  // Column j from integers to doubles, for the rows before `row`.
+  const toDoubles = (j: number, rows: number) => {
+    const m = ints[j] as Int32Array;
+    const f = new Float64Array(capacity);
+    const p = _POW10[format[j] > 0 ? format[j] : 0];
+    for (let r = 0; r < rows; r++) f[r] = m[r] / p;
+    values[j] = columns[j].values = f;
+    ints[j] = null;
   };
 
   const skipBlank = ncol > 1;
@@ -149,11 +187,15 @@ export function _readSimpleCsv(
     if (skipBlank && (c === 10 || (c === 13 && bytes[pos + 1] === 10))) {
       pos += c === 10 ? 1 : 2;
       line++;
+      if (lines === null) {
+        lines = new Int32Array(capacity);
+        for (let r = 0; r < row; r++) lines[r] = firstDataLine + r;
+      }
       continue;
     }
     if (row === capacity) grow();
-    starts[row] = pos;
-    lines[row] = line;
+    if (lines !== null) lines[row] = line;
+    const rowStart = pos;
     for (let j = 0; j < ncol; j++) {
       // Leading spaces.
       let i = pos;
@@ -162,10 +204,12 @@ export function _readSimpleCsv(
       const a = i;
       // A number, read while looking for the end of the field.
       let negative = false;
-      if (c === 45 || c === 43) {
+      const plus = c === 43;
+      if (c === 45 || plus) {
         negative = c === 45;
         c = bytes[++i];
       }
+      const intStart = i;
       let mantissa = 0; // the first 15 significant digits
       let low = 0; // significant digits 16 to 19
       let significant = 0;
@@ -180,7 +224,9 @@ export function _readSimpleCsv(
         digits++;
         c = bytes[++i];
       }
-      if (c === decimalCode) {
+      const intDigits = i - intStart;
+      const dot = c === decimalCode;
+      if (dot) {
         c = bytes[++i];
         while (c >= 48 && c <= 57) {
           if (significant > 0 || c !== 48) {
@@ -195,7 +241,8 @@ export function _readSimpleCsv(
       }
       let ok = digits > 0;
       let exponent = 0;
-      if (ok && (c === 101 || c === 69)) {
+      const hasExponent = ok && (c === 101 || c === 69);
+      if (hasExponent) {
         c = bytes[++i];
         let expNegative = false;
         if (c === 45 || c === 43) {
@@ -225,37 +272,164 @@ export function _readSimpleCsv(
       if (ok && significant <= 15 && k >= -22 && k <= 22) {
         // Clinger's exact case: mantissa and 10^|k| are exact, one rounding.
         const v = k >= 0 ? mantissa * _POW10[k] : mantissa / _POW10[-k];
-        values[j][row] = negative ? -v : v;
+        // Written plainly, so that toFixed(d) gives the same text back?
+        const f = format[j];
+        let plain = false;
+        if (f !== -2) {
+          const d = -scale;
+          plain = !plus && !hasExponent && intDigits > 0 && intDigits <= 15 &&
+            (intDigits === 1 || bytes[intStart] !== 48) && (dot ? d > 0 : true) &&
+            !(negative && v === 0) && (f === -1 || f === d);
+          if (plain) format[j] = d;
+        }
+        const m = ints[j];
+        if (m !== null && plain && mantissa <= 2147483647) {
+          m[row] = negative ? -mantissa : mantissa;
+        } else {
+          if (m !== null) toDoubles(j, row);
+          values[j][row] = negative ? -v : v;
+        }
+        if (!plain) format[j] = -2;
       } else if (
         ok && significant <= 19 && k >= -22 && k <= 22 &&
         (wide = _wideDecimal(mantissa, low, significant - 15, k)) === wide
       ) {
+        if (ints[j] !== null) toDoubles(j, row);
         values[j][row] = negative ? -wide : wide;
+        format[j] = -2;
       } else {
         const cell = _decode(bytes, a, b);
         // A quote or a lone "\r": this text is for the general reader.
         if (cell.indexOf('"') !== -1 || cell.indexOf("\r") !== -1) return null;
+        if (ints[j] !== null) toDoubles(j, row);
+        if (statuses[j] === null) statuses[j] = columns[j].status = new Uint8Array(capacity);
+        if (b > a) format[j] = -2;
         _storeTextCell(columns[j], row, cell, line, rules);
       }
       // Field separator or line end.
       if (c === dc) {
-        if (j === last) throw _ragged(source, line, _fieldsOnLine(bytes, starts[row], dc), ncol);
+        if (j === last) throw _ragged(source, line, _fieldsOnLine(bytes, rowStart, dc), ncol);
         pos = i + 1;
       } else {
-        if (j < last) throw _ragged(source, line, _fieldsOnLine(bytes, starts[row], dc), ncol);
+        if (j < last) throw _ragged(source, line, _fieldsOnLine(bytes, rowStart, dc), ncol);
         pos = c === 13 ? i + 2 : i + 1;
       }
     }
     row++;
     line++;
   }
-  rowCount = row;
-  const trimmed: _RawColumn[] = columns.map((c) => ({
-    ...c,
-    values: c.values.subarray(0, row),
-    status: c.status.subarray(0, row),
-  }));
+  const rowCount = row;
+  // The bytes are kept only when some column's text must be cut from them.
+  let kept: Uint8Array | null = null;
+  if (format.some((f) => f === -2)) {
+    kept = bytes;
+    keep?.();
+  }
+  const starts = _cached(() => _rowStarts(kept as Uint8Array, dataStart, rowCount, skipBlank));
+  let allNumbers: Uint8Array | null = null;
+  const trimmed: _RawColumn[] = columns.map((c, j) => {
+    const st = statuses[j];
+    const status = st === null ? (allNumbers ??= new Uint8Array(rowCount)) : st.subarray(0, row);
+    const d = format[j];
+    const decimal = rules.decimal;
+    const m = ints[j];
+    if (m !== null) return _compactColumn(c, m.subarray(0, row), d < 0 ? 0 : d, status, decimal);
+    const vals = c.values.subarray(0, row);
+    return {
+      ...c,
+      values: vals,
+      status,
+      texts: _cached(() =>
+        d === -2
+          ? _columnTexts(kept as Uint8Array, starts(), j, last, dc)
+          : _plainTexts(vals, status, d < 0 ? 0 : d, decimal)
+      ),
+    };
+  });
   return { columns: trimmed, rowCount, renamed };
+}
+
+/** Placeholder status until a column has a cell that is not a plain number. */
+const _NO_STATUS = new Uint8Array(0);
+/** Placeholder values while a column is compact. */
+const _NO_VALUES = new Float64Array(0);
+
+/**
+ * A column held as integers m (every cell a number, value m / 10^d): its
+ * doubles are made when first read, and a copy is made without them.
+ */
+function _compactColumn(
+  c: _RawColumn,
+  m: Int32Array,
+  d: number,
+  status: Uint8Array,
+  decimal: "." | ",",
+): _RawColumn {
+  const p = _POW10[d];
+  const copyValues = () => {
+    const out = new Float64Array(m.length);
+    for (let r = 0; r < m.length; r++) out[r] = m[r] / p;
+    return out;
+  };
+  const values = _cached(copyValues);
+  const col = {
+    name: c.name,
+    originalName: c.originalName,
+    status,
+    notes: c.notes,
+    lineOf: c.lineOf,
+    copyValues,
+    texts: _cached(() => {
+      const out: string[] = new Array(m.length);
+      for (let r = 0; r < m.length; r++) {
+        const t = (m[r] / p).toFixed(d);
+        out[r] = decimal === "." ? t : t.replace(".", ",");
+      }
+      return out;
+    }),
+  };
+  Object.defineProperty(col, "values", { get: values, enumerable: true });
+  return col as unknown as _RawColumn;
+}
+
+/** A column's text from its numbers, all written plainly with `d` decimals. */
+function _plainTexts(
+  values: Float64Array,
+  status: Uint8Array,
+  d: number,
+  decimal: "." | ",",
+): string[] {
+  const out: string[] = new Array(values.length);
+  for (let r = 0; r < values.length; r++) {
+    if (status[r] !== CELL_NUMBER) {
+      out[r] = "";
+      continue;
+    }
+    const t = values[r].toFixed(d);
+    out[r] = decimal === "." ? t : t.replace(".", ",");
+  }
+  return out;
+}
+
+/**
+ * The start offset of each of the `rows` rows that follow `pos`, skipping
+ * blank lines as the reader did.
+ */
+function _rowStarts(bytes: Uint8Array, pos: number, rows: number, skipBlank: boolean): Int32Array {
+  const starts = new Int32Array(rows);
+  for (let r = 0; r < rows; r++) {
+    if (skipBlank) {
+      for (;;) {
+        const c = bytes[pos];
+        if (c === 10) pos++;
+        else if (c === 13 && bytes[pos + 1] === 10) pos += 2;
+        else break;
+      }
+    }
+    starts[r] = pos;
+    pos = bytes.indexOf(10, pos) + 1;
+  }
+  return starts;
 }
 
 /** How many fields the line starting at `start` has. */

@@ -61,6 +61,18 @@ export interface CsvOptions extends CellOptions {
  * ```
  */
 export function tableFromCsv(text: string | Uint8Array, options: CsvOptions = {}): Table {
+  return _tableFromCsv(text, options, null);
+}
+
+/**
+ * {@linkcode tableFromCsv} for a caller that reuses its bytes after the
+ * call unless the table keeps them: `keep` is called when it does.
+ */
+export function _tableFromCsv(
+  text: string | Uint8Array,
+  options: CsvOptions,
+  keep: (() => void) | null,
+): Table {
   let bytes: Uint8Array | null = null;
   let body: string | null = null;
   if (text instanceof Uint8Array) {
@@ -104,7 +116,13 @@ export function tableFromCsv(text: string | Uint8Array, options: CsvOptions = {}
   }
   let read = null;
   if (reader !== "csv-parse" && delimiter.charCodeAt(0) < 128) {
-    read = _readSimpleCsv(bytes ?? _encoder.encode(body as string), delimiter, rules, source);
+    read = _readSimpleCsv(
+      bytes ?? _encoder.encode(body as string),
+      delimiter,
+      rules,
+      source,
+      bytes === null ? null : keep,
+    );
   }
   if (read === null && reader === "simple") {
     throw new PlumbError(

@@ -6,7 +6,7 @@
  */
 import type { Table } from "./table.ts";
 import { PlumbError } from "../errors.ts";
-import { type CsvOptions, tableFromCsv } from "./csv_text.ts";
+import { _tableFromCsv, type CsvOptions, tableFromCsv } from "./csv_text.ts";
 import { type MemoryOptions, tableFromMemory } from "./in_memory.ts";
 import { _isTable } from "./_table_store.ts";
 
@@ -88,8 +88,35 @@ export async function loadTable(
       'Cannot read a file path from this value: with from: "path" give a string or URL',
     );
   }
-  const text = await _readFile(source);
-  return tableFromCsv(text, { ...options, sourceName: _baseName(source) });
+  const buffer = await _readFile(source);
+  // The buffer goes back for the next file unless the table keeps it.
+  let kept = false;
+  try {
+    return _tableFromCsv(buffer.bytes, { ...options, sourceName: _baseName(source) }, () => {
+      kept = true;
+    });
+  } finally {
+    if (!kept) buffer.release();
+  }
+}
+
+/**
+ * A read buffer reused from one file to the next. Writing into memory for
+ * the first time costs far more than writing it again (the system has to
+ * hand out every page), so a large file read into a fresh buffer pays for
+ * it once per load. The buffer is held only weakly, so the collector may
+ * take it back between loads; it is lent to one load at a time, and a table
+ * that keeps its bytes (to cut text from them later) keeps the buffer.
+ */
+let _spare: WeakRef<Uint8Array> | null = null;
+
+function _borrow(size: number): Uint8Array {
+  const old = _spare?.deref();
+  _spare = null;
+  if (old !== undefined && old.length >= size && old.length <= size + (size >> 3) + (1 << 16)) {
+    return old;
+  }
+  return new Uint8Array(size);
 }
 
 function _isMemory(source: unknown): boolean {
@@ -102,22 +129,32 @@ function _baseName(path: string | URL): string {
   return parts.length === 0 ? s : parts[parts.length - 1];
 }
 
-async function _readFile(path: string | URL): Promise<Uint8Array> {
+async function _readFile(
+  path: string | URL,
+): Promise<{ bytes: Uint8Array; release: () => void }> {
   const shown = JSON.stringify(path instanceof URL ? path.href : path);
   try {
     // One read into a buffer of the file's size (faster than Deno.readFile).
     using file = await Deno.open(path);
     const size = (await file.stat()).size;
     // One spare byte, so that a final line break can be added without a copy.
-    const buffer = new Uint8Array(size + 1);
+    const buffer = _borrow(size + 1);
+    const release = () => {
+      _spare = new WeakRef(buffer);
+    };
     let filled = 0;
-    while (filled < size) {
-      const got = await file.read(buffer.subarray(filled, size));
-      if (got === null) break;
-      filled += got;
+    try {
+      while (filled < size) {
+        const got = await file.read(buffer.subarray(filled, size));
+        if (got === null) break;
+        filled += got;
+      }
+    } catch (e) {
+      release();
+      throw e;
     }
     if (filled > 0 && buffer[filled - 1] !== 10) buffer[filled++] = 10;
-    return buffer.subarray(0, filled);
+    return { bytes: buffer.subarray(0, filled), release };
   } catch (e) {
     if (e instanceof Deno.errors.NotFound) {
       throw new PlumbError(

@@ -62,12 +62,12 @@ export function numericColumn(
   }
   const n = p.numbers;
   const status = col.status;
-  const all = col.values;
   const complete = n === status.length;
   let values: Float64Array;
   if (complete) {
-    values = all.slice();
+    values = col.copyValues?.() ?? col.values.slice();
   } else {
+    const all = col.values;
     values = new Float64Array(n);
     let j = 0;
     for (let i = 0; i < status.length; i++) if (status[i] === CELL_NUMBER) values[j++] = all[i];
@@ -140,7 +140,8 @@ export function numericCells(table: Table, name: string): NumericCells {
     if (s === CELL_MISSING) missing[i] = 1;
     else if (s === CELL_TEXT) nonNumeric[i] = 1;
   }
-  return Object.freeze({ name: col.name, values: col.values.slice(), missing, nonNumeric });
+  const values = col.copyValues?.() ?? col.values.slice();
+  return Object.freeze({ name: col.name, values, missing, nonNumeric });
 }
 
 function _nonNumericMessage(
