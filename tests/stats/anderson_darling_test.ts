@@ -16,8 +16,8 @@
 import assert from "node:assert/strict";
 import fc from "fast-check";
 import { andersonDarling } from "../../lib/stats/anderson_darling.ts";
-import { PlumbError } from "../../lib/errors.ts";
 import { assertClose } from "../_assert_close.ts";
+import { assertPlumbError, spreadSample } from "../_shared.ts";
 
 interface Case {
   name: string;
@@ -117,12 +117,7 @@ Deno.test("Anderson–Darling adds the ties warning for rounded data only", () =
 
 Deno.test("Anderson–Darling rejects too few, non-finite and constant input with PlumbError", () => {
   const check = (x: number[], code: string, message: RegExp) =>
-    assert.throws(() => andersonDarling(x), (e: unknown) => {
-      assert.ok(e instanceof PlumbError);
-      assert.equal(e.code, code);
-      assert.match(e.message, message);
-      return true;
-    });
+    assertPlumbError(() => andersonDarling(x), code, message);
   check(
     [1, 2, 3, 4, 5, 6, 7],
     "too-few",
@@ -140,10 +135,7 @@ Deno.test("Anderson–Darling rejects too few, non-finite and constant input wit
   );
 });
 
-const sample = fc.array(fc.double({ min: -100, max: 100, noNaN: true }), {
-  minLength: 8,
-  maxLength: 40,
-}).filter((x) => Math.max(...x) - Math.min(...x) > 1e-3 * Math.max(1, ...x.map(Math.abs)));
+const sample = spreadSample;
 
 Deno.test("Anderson–Darling: invariant under x → a + b·x (either sign) and reordering", () => {
   fc.assert(

@@ -9,9 +9,9 @@
 import assert from "node:assert/strict";
 import fc from "fast-check";
 import { dagostinoPearson } from "../../lib/stats/dagostino_pearson.ts";
-import { PlumbError } from "../../lib/errors.ts";
 import { normalQuantile } from "../../lib/numeric/normal.ts";
 import { assertClose } from "../_assert_close.ts";
+import { assertPlumbError, spreadSample } from "../_shared.ts";
 
 interface Case {
   name: string;
@@ -85,12 +85,7 @@ Deno.test("K² at extreme magnitudes: same K² for x, x·1e300, x·1e-300", () =
 
 Deno.test("K² rejects too few, non-finite and constant input with PlumbError", () => {
   const check = (x: number[], code: string, message: RegExp) =>
-    assert.throws(() => dagostinoPearson(x), (e: unknown) => {
-      assert.ok(e instanceof PlumbError);
-      assert.equal(e.code, code);
-      assert.match(e.message, message);
-      return true;
-    });
+    assertPlumbError(() => dagostinoPearson(x), code, message);
   check(
     [1, 2, 3, 4, 5, 6, 7],
     "too-few",
@@ -108,10 +103,7 @@ Deno.test("K² rejects too few, non-finite and constant input with PlumbError", 
   );
 });
 
-const sample = fc.array(fc.double({ min: -100, max: 100, noNaN: true }), {
-  minLength: 8,
-  maxLength: 40,
-}).filter((x) => Math.max(...x) - Math.min(...x) > 1e-3 * Math.max(1, ...x.map(Math.abs)));
+const sample = spreadSample;
 
 Deno.test("K²: invariant under x → a + b·x (either sign of b) and reordering; fields finite", () => {
   fc.assert(

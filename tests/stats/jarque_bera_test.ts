@@ -8,8 +8,8 @@
 import assert from "node:assert/strict";
 import fc from "fast-check";
 import { jarqueBera } from "../../lib/stats/jarque_bera.ts";
-import { PlumbError } from "../../lib/errors.ts";
 import { assertClose } from "../_assert_close.ts";
+import { assertPlumbError, spreadSample } from "../_shared.ts";
 
 interface Case {
   name: string;
@@ -42,12 +42,7 @@ Deno.test("Jarque–Bera warns about the asymptotic p below 2000 values only", (
 
 Deno.test("Jarque–Bera rejects too few, non-finite and constant input with PlumbError", () => {
   const check = (x: unknown[], code: string, message: RegExp) =>
-    assert.throws(() => jarqueBera(x as number[]), (e: unknown) => {
-      assert.ok(e instanceof PlumbError);
-      assert.equal(e.code, code);
-      assert.match(e.message, message);
-      return true;
-    });
+    assertPlumbError(() => jarqueBera(x as number[]), code, message);
   check(
     [1, 2, 3],
     "too-few",
@@ -65,10 +60,7 @@ Deno.test("Jarque–Bera rejects too few, non-finite and constant input with Plu
   );
 });
 
-const sample = fc.array(fc.double({ min: -100, max: 100, noNaN: true }), {
-  minLength: 8,
-  maxLength: 40,
-}).filter((x) => Math.max(...x) - Math.min(...x) > 1e-3 * Math.max(1, ...x.map(Math.abs)));
+const sample = spreadSample;
 
 Deno.test("Jarque–Bera: invariant under x → a + b·x (either sign) and reordering; p in [0, 1]", () => {
   fc.assert(

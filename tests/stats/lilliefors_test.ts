@@ -15,8 +15,8 @@
 import assert from "node:assert/strict";
 import fc from "fast-check";
 import { lilliefors } from "../../lib/stats/lilliefors.ts";
-import { PlumbError } from "../../lib/errors.ts";
 import { assertClose } from "../_assert_close.ts";
+import { assertPlumbError } from "../_shared.ts";
 
 interface Case {
   name: string;
@@ -107,12 +107,7 @@ function erf(x: number): number {
 
 Deno.test("Lilliefors rejects too few, non-finite and constant input with PlumbError", () => {
   const check = (x: number[], code: string, message: RegExp) =>
-    assert.throws(() => lilliefors(x), (e: unknown) => {
-      assert.ok(e instanceof PlumbError);
-      assert.equal(e.code, code);
-      assert.match(e.message, message);
-      return true;
-    });
+    assertPlumbError(() => lilliefors(x), code, message);
   check(
     [1, 2, 3, 4],
     "too-few",
