@@ -26,3 +26,18 @@ export const spreadSample: fc.Arbitrary<number[]> = fc.array(
   fc.double({ min: -100, max: 100, noNaN: true }),
   { minLength: 8, maxLength: 40 },
 ).filter((x) => Math.max(...x) - Math.min(...x) > 1e-3 * Math.max(1, ...x.map(Math.abs)));
+
+/** Location shifts a of the affine map x → a + b·x. */
+export const shiftArb: fc.Arbitrary<number> = fc.double({ min: -100, max: 100, noNaN: true });
+
+/** Scales b (either sign, |b| ≥ 0.01) of the affine map x → a + b·x. */
+export const scaleArb: fc.Arbitrary<number> = fc.double({ min: -100, max: 100, noNaN: true })
+  .filter((b) => Math.abs(b) >= 0.01);
+
+/** Every numeric field of a result is finite, and the result and its warnings are frozen. */
+export function assertFiniteFrozen(r: object & { readonly warnings?: readonly string[] }): void {
+  for (const [k, v] of Object.entries(r)) {
+    if (typeof v === "number") assert.ok(Number.isFinite(v), `${k} finite`);
+  }
+  assert.ok(Object.isFrozen(r) && (r.warnings === undefined || Object.isFrozen(r.warnings)));
+}
