@@ -14,7 +14,7 @@ const fixture = JSON.parse(
 };
 const src = `mpmath ${fixture.library.mpmath}`;
 
-// Tolerances (stated, not tuned): the issue asks for 1e-14 relative; Cody's and
+// Tolerances (stated, not tuned): the requirement is 1e-14 relative; Cody's and
 // Wichura's approximations reach a few ulps, so 1e-14 leaves room only for rounding.
 const REL = 1e-14;
 
