@@ -36,8 +36,8 @@ export interface ParseNumberOptions {
   readonly thousands?: string;
 }
 
-// Powers of ten that are exact in binary64 (10^0 … 10^22).
-const _POW10 = Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
+/** Powers of ten that are exact in binary64 (10^0 … 10^22). */
+export const _POW10: readonly number[] = Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
 
 const _patterns = new Map<string, RegExp>();
 

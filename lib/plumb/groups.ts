@@ -87,7 +87,16 @@ function _compare(a: string, b: string): number {
   return a < b ? -1 : a > b ? 1 : 0;
 }
 
-/** The per-group chain. Create it with `plumb(table, column).by(group)`. */
+/**
+ * The per-group chain. Create it with `plumb(table, column).by(group)`.
+ *
+ * @example
+ * ```ts
+ * import { plumb } from "./plumb.ts";
+ * const g = plumb({ line: ["a", "b", "a", "b", "a", "b", "a", "b", "a", "b"], v: [1, 4, 2, 5, 3, 7, 2, 6, 4, 5] }, "v").by("line");
+ * if (g.result().groups.length !== 2 || g.result().residuals?.n !== 10) throw new Error("groups");
+ * ```
+ */
 export class PlumbGroups implements Displayable {
   readonly #s: _GroupState;
   #result: GroupResult | undefined;

@@ -19,7 +19,7 @@ import { histogramData, type HistogramOptions } from "../stats/histogram_data.ts
 import { qqData, type QqOptions } from "../stats/qq_data.ts";
 import { analyse, ANALYSE_MIN_N, type Analysis } from "./analysis.ts";
 import { type ReexpressRequest, resolveStep, type Step, stepLabel } from "./steps.ts";
-import { columnValues, pickColumn, type PlumbSource, toTable } from "./source.ts";
+import { pickColumn, type PlumbSource, toTable } from "./source.ts";
 import { type SentenceOptions, writeSentence } from "./sentence.ts";
 import { type CandidatesView, chooseBest, reexpressionTable } from "./reexpress_view.ts";
 import { lambdaExplorer } from "./lambda_view.ts";
@@ -70,7 +70,17 @@ function _sentence(text: string): Sentence {
   return Object.freeze({ text, [DISPLAY]: () => bundle, toString: () => text, toJSON: () => text });
 }
 
-/** The chain over one numeric variable. Create it with {@linkcode plumb}. */
+/**
+ * The chain over one numeric variable. Create it with {@linkcode plumb}.
+ *
+ * @example
+ * ```ts
+ * import { plumb } from "./plumb.ts";
+ * const p = plumb([2.1, 2.9, 3.2, 3.3, 3.8, 4.1, 4.4, 5.0, 5.6, 7.9], undefined, { name: "gap" });
+ * const q = p.reexpress("log");
+ * if (p.label !== "gap" || q.label !== "ln(gap)" || q === p) throw new Error("chain");
+ * ```
+ */
 export class Plumb implements Displayable {
   readonly #state: _State;
   #values: Float64Array | undefined;
@@ -108,7 +118,7 @@ export class Plumb implements Displayable {
   #load(): Float64Array {
     if (this.#values) return this.#values;
     const { table, column, steps, options } = this.#state;
-    const col = columnValues(table, column, options.dropText ?? false);
+    const col = table.numeric(column, { dropText: options.dropText ?? false });
     let v: Float64Array = col.values;
     for (const s of steps) v = s.apply(v);
     this.#values = v;

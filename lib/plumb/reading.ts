@@ -211,43 +211,43 @@ export function readShape(input: ReadingInput): Reading {
         }); values bunch between the extremes, as in a flat or bounded distribution`,
     );
   }
-  const exits: string[] = [];
-  const count = (k: number, one: string, many: string) => `${k} ${k === 1 ? one : many}`;
-  if (lowerTail.below > 0) {
-    exits.push(
-      `${
-        count(lowerTail.below, "of the lowest values falls", "of the lowest values fall")
-      } below it (the low end reaches further than a normal curve)`,
-    );
-  }
-  if (lowerTail.above > 0) {
-    exits.push(
-      `${
-        count(lowerTail.above, "of the lowest values sits", "of the lowest values sit")
-      } above it (the low end stops short)`,
-    );
-  }
-  if (upperTail.above > 0) {
-    exits.push(
-      `${
-        count(upperTail.above, "of the highest values rises", "of the highest values rise")
-      } above it (the high end reaches further than a normal curve)`,
-    );
-  }
-  if (upperTail.below > 0) {
-    exits.push(
-      `${
-        count(upperTail.below, "of the highest values sits", "of the highest values sit")
-      } below it (the high end stops short)`,
-    );
-  }
-  if (body > 0) {
-    exits.push(
-      `${
-        count(body, "value in the middle lies", "values in the middle lie")
-      } outside it (the bulk of the data bends away from the line)`,
-    );
-  }
+  // [count, subject (one, many), where, what it means]
+  const exitKinds: [number, string, string, string][] = [
+    [
+      lowerTail.below,
+      "of the lowest values falls|of the lowest values fall",
+      "below it",
+      "the low end reaches further than a normal curve",
+    ],
+    [
+      lowerTail.above,
+      "of the lowest values sits|of the lowest values sit",
+      "above it",
+      "the low end stops short",
+    ],
+    [
+      upperTail.above,
+      "of the highest values rises|of the highest values rise",
+      "above it",
+      "the high end reaches further than a normal curve",
+    ],
+    [
+      upperTail.below,
+      "of the highest values sits|of the highest values sit",
+      "below it",
+      "the high end stops short",
+    ],
+    [
+      body,
+      "value in the middle lies|values in the middle lie",
+      "outside it",
+      "the bulk of the data bends away from the line",
+    ],
+  ];
+  const exits = exitKinds.filter(([k]) => k > 0).map(([k, subject, where, meaning]) => {
+    const [one, many] = subject.split("|");
+    return `${k} ${k === 1 ? one : many} ${where} (${meaning})`;
+  });
   const band = `${Math.round(qq.level * 100)}% ${qq.envelope} band`;
   if (exits.length > 0) {
     points.push(

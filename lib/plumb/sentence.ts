@@ -8,13 +8,29 @@ import { formatCount, formatNumber } from "../render/format.ts";
 import type { Analysis } from "./analysis.ts";
 import { VERDICT_WORDS } from "./reading.ts";
 
-/** A p-value for prose: `p < 0.001` below 0.001, otherwise three decimals. */
+/**
+ * A p-value for prose: `p < 0.001` below 0.001, otherwise three decimals.
+ *
+ * @example
+ * ```ts
+ * import { proseP } from "./sentence.ts";
+ * if (proseP(0.0004) !== "p < 0.001" || proseP(0.2371) !== "p = 0.237") throw new Error("p");
+ * ```
+ */
 export function proseP(p: number): string {
   if (p < 0.001) return "p < 0.001";
   return `p = ${p.toFixed(3)}`;
 }
 
-/** A shape statistic for prose: three significant digits, and 0 when it rounds to 0 at 3 decimals. */
+/**
+ * A shape statistic for prose: three significant digits, and 0 when it rounds to 0 at 3 decimals.
+ *
+ * @example
+ * ```ts
+ * import { proseShape } from "./sentence.ts";
+ * if (proseShape(1e-17) !== "0.000" || proseShape(-0.4123) !== "−0.412") throw new Error("shape");
+ * ```
+ */
 export function proseShape(v: number): string {
   return Math.abs(v) < 0.0005 ? "0.000" : formatNumber(v, 3);
 }

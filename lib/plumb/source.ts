@@ -7,12 +7,20 @@
 import { PlumbError } from "../errors.ts";
 import { _isTable } from "../data/_table_store.ts";
 import { tableFromMemory } from "../data/in_memory.ts";
-import type { NumericColumn, Table } from "../data/table.ts";
+import type { Table } from "../data/table.ts";
 
 /** What `plumb` and `survey` accept: a loaded table, or in-memory data. */
 export type PlumbSource = Table | ArrayLike<number> | object;
 
-/** Resolve a source to a table (in-memory data are loaded synchronously). */
+/**
+ * Resolve a source to a table (in-memory data are loaded synchronously).
+ *
+ * @example
+ * ```ts
+ * import { toTable } from "./source.ts";
+ * if (toTable([1, 2, 3], "fill").numericNames()[0] !== "fill") throw new Error("name");
+ * ```
+ */
 export function toTable(source: PlumbSource, name = "value"): Table {
   if (_isTable(source)) return source as Table;
   if (typeof source === "string") {
@@ -24,7 +32,15 @@ export function toTable(source: PlumbSource, name = "value"): Table {
   return tableFromMemory(source, { name });
 }
 
-/** Pick the column to analyse: the one named, or the only numeric one. */
+/**
+ * Pick the column to analyse: the one named, or the only numeric one.
+ *
+ * @example
+ * ```ts
+ * import { pickColumn, toTable } from "./source.ts";
+ * if (pickColumn(toTable({ line: ["a", "b"], v: [1, 2] }), undefined) !== "v") throw new Error("pick");
+ * ```
+ */
 export function pickColumn(table: Table, column: string | undefined): string {
   if (column !== undefined) {
     if (!table.has(column)) {
@@ -46,9 +62,4 @@ export function pickColumn(table: Table, column: string | undefined): string {
         numeric.join(", ")
       }): name the one to analyse, e.g. plumb(table, "${numeric[0]}")`,
   );
-}
-
-/** The column's used values and provenance, dropping text cells only when asked. */
-export function columnValues(table: Table, column: string, dropText: boolean): NumericColumn {
-  return table.numeric(column, { dropText });
 }

@@ -34,29 +34,19 @@ export interface Step {
   readonly apply: (x: Float64Array) => Float64Array;
 }
 
-const _num = (v: number) => String(+v.toPrecision(4));
-
-/** The formula of a re-expression, with `x` for the input. */
+/**
+ * The formula of a re-expression with `x` for the input: its own label, and
+ * plain `x` for the data as measured.
+ *
+ * @example
+ * ```ts
+ * import { formulaOf } from "./steps.ts";
+ * import { reexpression } from "../reexpress/reexpression.ts";
+ * if (formulaOf(reexpression("box-cox", { lambda: 0.5 })) !== "Box–Cox[λ = 0.5](x)") throw new Error("formula");
+ * ```
+ */
 export function formulaOf(r: Reexpression): string {
-  const inner = r.shift === 0
-    ? "x"
-    : r.shift > 0
-    ? `x + ${_num(r.shift)}`
-    : `x − ${_num(-r.shift)}`;
-  switch (r.kind) {
-    case "identity":
-      return "x";
-    case "log":
-      return `${r.base === 10 ? "log10" : "ln"}(${inner})`;
-    case "square-root":
-      return `√(${inner})`;
-    case "reciprocal":
-      return "1/x";
-    case "box-cox":
-      return `Box–Cox[λ = ${_num(r.lambda!)}](x)`;
-    case "yeo-johnson":
-      return `Yeo–Johnson[λ = ${_num(r.lambda!)}](x)`;
-  }
+  return r.kind === "identity" ? "x" : r.label;
 }
 
 /** A step from a re-expression. */
@@ -120,7 +110,16 @@ export function resolveStep(request: Exclude<ReexpressRequest, "best">, x: Float
   );
 }
 
-/** The label of a column after its steps, e.g. `"ln(oxygen_ppb + 2)"`. */
+/**
+ * The label of a column after its steps, e.g. `"ln(oxygen_ppb + 2)"`.
+ *
+ * @example
+ * ```ts
+ * import { resolveStep, stepLabel } from "./steps.ts";
+ * const steps = [resolveStep("sqrt", new Float64Array([1, 4]))];
+ * if (stepLabel("count", steps) !== "√(count)") throw new Error(stepLabel("count", steps));
+ * ```
+ */
 export function stepLabel(name: string, steps: readonly Step[]): string {
   let label = name;
   for (const s of steps) label = s.formula.replace(/\bx\b/, () => label);

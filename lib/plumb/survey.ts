@@ -74,7 +74,16 @@ const _ADJ: Record<Adjustment, string> = {
   none: "unadjusted",
 };
 
-/** A survey of a table's numeric columns. Create it with {@linkcode survey}. */
+/**
+ * A survey of a table's numeric columns. Create it with {@linkcode survey}.
+ *
+ * @example
+ * ```ts
+ * import { survey } from "./survey.ts";
+ * const s = survey({ a: [1, 2, 3, 4, 5, 6, 7, 8], b: [1, 1, 2, 3, 5, 8, 13, 21] });
+ * if (!s.toCSV().startsWith("column,n,missing")) throw new Error("csv");
+ * ```
+ */
 export class Survey implements Displayable {
   readonly #table: Table;
   readonly #options: SurveyOptions;

@@ -100,3 +100,18 @@ export function _inversePowerTerm(y: number, lambda: number): number {
   if (Math.abs(s) < 1e-5) return y * (1 - s * (0.5 - s / 3));
   return Math.log1p(s) / lambda;
 }
+
+/** The `shift` option of a transformation: a finite number, 0 when absent. */
+export function _shiftOption(shift: unknown, what: string): number {
+  const s = shift ?? 0;
+  if (typeof s !== "number" || !Number.isFinite(s)) {
+    throw new PlumbError(
+      "bad-option",
+      `Cannot apply ${what} with shift ${s}: use a finite number`,
+      {
+        shift: s,
+      },
+    );
+  }
+  return s;
+}

@@ -402,6 +402,28 @@ function _moments(
 }
 
 /**
+ * Centre `c` in place at its mean (`sum` is Σc; the mean gets one corrected
+ * pass, as in the corrected two-pass algorithm) and return the mean and the
+ * centred range.
+ */
+function _centre(c: Float64Array, sum: number): { mean: number; cMin: number; cMax: number } {
+  const n = c.length;
+  let mean = sum / n;
+  let r = 0;
+  for (let i = 0; i < n; i++) r += c[i] - mean;
+  mean += r / n;
+  let cMin = Infinity;
+  let cMax = -Infinity;
+  for (let i = 0; i < n; i++) {
+    const t = c[i] - mean;
+    c[i] = t;
+    if (t < cMin) cMin = t;
+    if (t > cMax) cMax = t;
+  }
+  return { mean, cMin, cMax };
+}
+
+/**
  * Prepare a positive sample for the Box–Cox profile. The caller has checked
  * that every value is finite and positive and that they are not all equal.
  */
@@ -414,18 +436,7 @@ export function _boxCoxProfile(x: Float64Array): _Profile {
     c[i] = l;
     s += l;
   }
-  let mean = s / n;
-  let r = 0;
-  for (let i = 0; i < n; i++) r += c[i] - mean;
-  mean += r / n;
-  let cMin = Infinity;
-  let cMax = -Infinity;
-  for (let i = 0; i < n; i++) {
-    const t = c[i] - mean;
-    c[i] = t;
-    if (t < cMin) cMin = t;
-    if (t > cMax) cMax = t;
-  }
+  const { mean, cMin, cMax } = _centre(c, s);
   const z = new Float64Array(n);
   let dz: Float64Array | undefined;
   let count = 0;
@@ -484,18 +495,7 @@ export function _yeoJohnsonProfile(x: Float64Array): _Profile {
       c[i] = u;
       s += u;
     }
-    let mean = s / n;
-    let r = 0;
-    for (let i = 0; i < n; i++) r += c[i] - mean;
-    mean += r / n;
-    let cMin = Infinity;
-    let cMax = -Infinity;
-    for (let i = 0; i < n; i++) {
-      const t = c[i] - mean;
-      c[i] = t;
-      if (t < cMin) cMin = t;
-      if (t > cMax) cMax = t;
-    }
+    const { mean, cMin, cMax } = _centre(c, s);
     // Positive branch: ln var = core(λ) + 2λū, J/n = ū.
     // Negative branch: ln var = core(μ) + 2μū with μ = 2 − λ, J/n = −ū.
     const direct = (p: number, want: boolean): _ProfilePoint => {

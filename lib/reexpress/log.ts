@@ -6,7 +6,7 @@
  */
 import { PlumbError } from "../errors.ts";
 import { finiteCopy } from "../stats/_input.ts";
-import { _requirePositive } from "./_checks.ts";
+import { _requirePositive, _shiftOption } from "./_checks.ts";
 
 /** Options for {@linkcode logTransform} and {@linkcode logInverse}. */
 export interface LogOptions {
@@ -24,16 +24,7 @@ export interface LogOptions {
 }
 
 function _shiftOf(options: LogOptions, what: string): number {
-  const s = options.shift ?? 0;
-  if (typeof s !== "number" || !Number.isFinite(s)) {
-    throw new PlumbError(
-      "bad-option",
-      `Cannot apply ${what} with shift ${s}: use a finite number`,
-      {
-        shift: s,
-      },
-    );
-  }
+  const s = _shiftOption(options.shift, what);
   const b = options.base ?? "e";
   if (b !== "e" && b !== 10) {
     throw new PlumbError("bad-option", `Cannot apply ${what} in base ${b}: use "e" or 10`, {

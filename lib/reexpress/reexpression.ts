@@ -29,7 +29,7 @@ export interface Reexpression {
   readonly shift: number;
   /** The log base for `"log"`; `null` otherwise. */
   readonly base: "e" | 10 | null;
-  /** How to write it, e.g. `"log(x + 0.2)"`, `"Box–Cox, λ = 0.25"`. */
+  /** How to write it, e.g. `"log(x + 0.2)"`, `"Box–Cox[λ = 0.25](x)"`. */
   readonly label: string;
 }
 
@@ -92,7 +92,7 @@ export function reexpression(
     ? `√(${inner})`
     : kind === "reciprocal"
     ? "1/x"
-    : `${kind === "box-cox" ? "Box–Cox" : "Yeo–Johnson"}, λ = ${_num(lambda!)}`;
+    : `${kind === "box-cox" ? "Box–Cox" : "Yeo–Johnson"}[λ = ${_num(lambda!)}](x)`;
   return Object.freeze({ kind, lambda: power ? lambda! : null, shift, base, label });
 }
 

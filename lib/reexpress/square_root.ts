@@ -3,9 +3,8 @@
  *
  * @module
  */
-import { PlumbError } from "../errors.ts";
 import { finiteCopy } from "../stats/_input.ts";
-import { _requireNonNegative } from "./_checks.ts";
+import { _requireNonNegative, _shiftOption } from "./_checks.ts";
 
 /** Options for {@linkcode squareRoot} and {@linkcode squareRootInverse}. */
 export interface SquareRootOptions {
@@ -14,20 +13,6 @@ export interface SquareRootOptions {
    * @default 0
    */
   readonly shift?: number;
-}
-
-function _shift(options: SquareRootOptions, what: string): number {
-  const s = options.shift ?? 0;
-  if (typeof s !== "number" || !Number.isFinite(s)) {
-    throw new PlumbError(
-      "bad-option",
-      `Cannot apply ${what} with shift ${s}: use a finite number`,
-      {
-        shift: s,
-      },
-    );
-  }
-  return s;
 }
 
 /**
@@ -44,7 +29,7 @@ function _shift(options: SquareRootOptions, what: string): number {
  */
 export function squareRoot(x: ArrayLike<number>, options: SquareRootOptions = {}): Float64Array {
   const what = "the square-root transformation";
-  const shift = _shift(options, what);
+  const shift = _shiftOption(options.shift, what);
   const v = finiteCopy(x, what);
   if (shift !== 0) { for (let i = 0; i < v.length; i++) v[i] += shift; }
   _requireNonNegative(v, what);
@@ -70,7 +55,7 @@ export function squareRootInverse(
   options: SquareRootOptions = {},
 ): Float64Array {
   const what = "the inverse square-root transformation";
-  const shift = _shift(options, what);
+  const shift = _shiftOption(options.shift, what);
   const v = finiteCopy(y, what);
   for (let i = 0; i < v.length; i++) v[i] = v[i] >= 0 ? v[i] * v[i] - shift : NaN;
   return v;

@@ -113,7 +113,15 @@ const _W = [
   584, // { | } ~
 ];
 
-/** The estimated width in pixels of `text` at `fontSize`, optionally bold. */
+/**
+ * The estimated width in pixels of `text` at `fontSize`, optionally bold.
+ *
+ * @example
+ * ```ts
+ * import { textWidth } from "./text_width.ts";
+ * if (!(textWidth("MMM", 12) > textWidth("iii", 12))) throw new Error("proportional");
+ * ```
+ */
 export function textWidth(text: string, fontSize: number, bold = false): number {
   let units = 0;
   for (const ch of text) {

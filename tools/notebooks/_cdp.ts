@@ -22,7 +22,7 @@ const _LOCAL_SCHEMES = ["file:", "data:", "about:", "blob:"];
  * ```ts
  * import assert from "node:assert/strict";
  * import { isLocalUrl } from "./_cdp.ts";
- * assert.equal(isLocalUrl("file:///tmp/page.html"), true);
+ * assert.equal(isLocalUrl(new URL("./page.html", import.meta.url).href), true);
  * assert.equal(isLocalUrl("http://127.0.0.1:9/x.png"), false);
  * ```
  */
