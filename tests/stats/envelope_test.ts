@@ -2,8 +2,8 @@ import assert from "node:assert/strict";
 import fc from "fast-check";
 import { assertClose } from "../_assert_close.ts";
 import { PlumbError } from "../../lib/errors.ts";
+import { betaCdfPair } from "../../lib/numeric/beta.ts";
 import {
-  _betaCdfPair,
   normalEnvelope,
   simultaneousTail,
   uniformOrderQuantile,
@@ -93,7 +93,7 @@ Deno.test("property: the incomplete beta at the computed quantile gives back p",
           assertClose(x + mirror, 1, { abs: 1e-15 }, `U(${i}) + U(${n + 1 - i}) mirrored at ${p}`);
           return;
         }
-        const [lower, upper] = _betaCdfPair(x, i, n - i + 1);
+        const [lower, upper] = betaCdfPair(x, i, n - i + 1);
         // back-substitution tolerance: 1e-10 relative on the smaller tail
         // (the quantile is accurate to 1e-12; the density scales that back)
         if (p <= 0.5) assertClose(lower, p, { rel: 1e-10 }, `I(x; ${i}, ${n - i + 1}) = ${p}`);
