@@ -4,7 +4,7 @@
  *
  * @module
  */
-import { parse } from "csv-parse/sync";
+import { parse } from "../_deps/csv_parse.ts";
 import { type _CellRules, _newColumn, _storeTextCell } from "./_raw_column.ts";
 import {
   type _CsvRead,

@@ -4,7 +4,7 @@
  *
  * @module
  */
-import jStat from "jstat";
+import jStat from "../_deps/jstat.ts";
 import { PlumbError } from "../errors.ts";
 import { checkSize, finiteCopy } from "../stats/_input.ts";
 import { applyReexpression, invertReexpression, type Reexpression } from "./reexpression.ts";

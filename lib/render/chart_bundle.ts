@@ -5,7 +5,7 @@
  *
  * @module
  */
-import type { TopLevelSpec } from "vega-lite";
+import type { TopLevelSpec } from "../_deps/vega_lite.ts";
 import {
   type Displayable,
   lazyDisplayable,

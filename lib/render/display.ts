@@ -5,7 +5,7 @@
  *
  * @module
  */
-import type { TopLevelSpec } from "vega-lite";
+import type { TopLevelSpec } from "../_deps/vega_lite.ts";
 
 /** The symbol the Deno Jupyter kernel looks for. */
 export const DISPLAY: unique symbol = Symbol.for("Jupyter.display") as never;

@@ -4,7 +4,7 @@
  *
  * @module
  */
-import type { TopLevelSpec } from "vega-lite";
+import type { TopLevelSpec } from "../_deps/vega_lite.ts";
 import type { QqData } from "../stats/qq_data.ts";
 import { _defaultPerPanel, _gridCheck } from "./comparison_spec.ts";
 import { formatCentre, formatCount, formatNumber } from "./format.ts";

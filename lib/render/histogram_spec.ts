@@ -8,7 +8,7 @@
  *
  * @module
  */
-import type { TopLevelSpec } from "vega-lite";
+import type { TopLevelSpec } from "../_deps/vega_lite.ts";
 import type { HistogramData } from "../stats/histogram_data.ts";
 import { formatCentre, formatCount, formatNumber, roundSig } from "./format.ts";
 import { VEGALITE_SCHEMA } from "./qq_spec.ts";

@@ -12,7 +12,7 @@
  *
  * @module
  */
-import type { TopLevelSpec } from "vega-lite";
+import type { TopLevelSpec } from "../_deps/vega_lite.ts";
 import { PlumbError } from "../errors.ts";
 import type { QqData } from "../stats/qq_data.ts";
 import { formatCount, formatNumber, formatPClause, roundSig } from "./format.ts";

@@ -11,7 +11,7 @@
  *
  * @module
  */
-import type { TopLevelSpec } from "vega-lite";
+import type { TopLevelSpec } from "../_deps/vega_lite.ts";
 import { _keptRanks, type QqData } from "../stats/qq_data.ts";
 import { formatCentre, formatCount, formatNumber, roundSig } from "./format.ts";
 import { CHART_CONFIG, PALETTE, PANEL } from "./theme.ts";

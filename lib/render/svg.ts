@@ -5,9 +5,9 @@
  *
  * @module
  */
-import * as vega from "vega";
-import { compile } from "vega-lite";
-import type { TopLevelSpec } from "vega-lite";
+import * as vega from "../_deps/vega.ts";
+import { compile } from "../_deps/vega_lite.ts";
+import type { TopLevelSpec } from "../_deps/vega_lite.ts";
 import { _xmlChars, escapeHtml } from "./escape.ts";
 import { vegaTextWidth } from "./text_width.ts";
 

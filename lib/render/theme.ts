@@ -11,7 +11,7 @@
  *
  * @module
  */
-import type { Config } from "vega-lite";
+import type { Config } from "../_deps/vega_lite.ts";
 
 /** Colours by role. */
 export const PALETTE = Object.freeze({
