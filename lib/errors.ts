@@ -32,7 +32,9 @@ export type PlumbErrorCode =
   /** An option outside its allowed values. */
   | "bad-option"
   /** A numerical search that did not converge. */
-  | "no-convergence";
+  | "no-convergence"
+  /** A tool plumbline needs at run time (the PNG renderer or its font) could not be loaded. */
+  | "unavailable";
 
 /**
  * An error raised by plumbline for input it cannot use.

@@ -1,16 +1,18 @@
 /**
  * Render one chart of every kind (QQ, detrended QQ, histogram, comparison
- * panel, QQ by group, λ explorer) from invented, seeded data to SVG, and to
- * PNG with `rsvg-convert` (Debian package `librsvg2-bin`) when it is
- * installed, for looking at by eye. Not used by the tests.
+ * panel, QQ by group, λ explorer) from invented, seeded data to SVG and to
+ * PNG (plumbline's own in-process raster), for looking at by eye. With
+ * `--browser`, also a headless-Chromium screenshot of each SVG
+ * (`KIND.browser.png`, 1 CSS px per pixel), to compare the raster with how a
+ * browser draws the same SVG. Not used by the tests.
  *
- * Run: `deno run --allow-read --allow-write --allow-run --allow-env tools/render_png.ts [outdir]`
- * (default outdir: `out/charts`).
+ * Run: `deno run -A tools/render_png.ts [outdir] [--browser]` (default outdir: `out/charts`).
  *
  * @module
  */
 import type { TopLevelSpec } from "vega-lite";
-import { chartBundle } from "../lib/render/chart_bundle.ts";
+import { rasterize } from "../lib/render/raster.ts";
+import { renderSvg } from "../lib/render/svg.ts";
 import { comparisonSpec } from "../lib/render/comparison_spec.ts";
 import { groupSpec } from "../lib/render/group_spec.ts";
 import { histogramSpec } from "../lib/render/histogram_spec.ts";
@@ -18,6 +20,7 @@ import { lambdaExplorerSpec } from "../lib/render/lambda_explorer_spec.ts";
 import { detrendedSpec, qqSpec } from "../lib/render/qq_spec.ts";
 import { histogramData } from "../lib/stats/histogram_data.ts";
 import { qqData } from "../lib/stats/qq_data.ts";
+import { Browser } from "./notebooks/_cdp.ts";
 
 /** Invented data: standard normals from xorshift32 and Box–Muller, seeded. */
 function normals(n: number, seed: number): Float64Array {
@@ -81,27 +84,30 @@ function specs(): Record<string, TopLevelSpec> {
 }
 
 if (import.meta.main) {
-  const out = Deno.args[0] ?? "out/charts";
+  const args = Deno.args.filter((a) => a !== "--browser");
+  const out = args[0] ?? "out/charts";
   await Deno.mkdir(out, { recursive: true });
-  let rsvg = true;
-  for (const [kind, spec] of Object.entries(specs())) {
-    const html = (await chartBundle(spec))["text/html"]!;
-    const svg = html.slice(html.indexOf("<svg"), html.lastIndexOf("</svg>") + 6);
-    const svgPath = `${out}/${kind}.svg`;
-    await Deno.writeTextFile(svgPath, svg);
-    if (rsvg) {
-      try {
-        const r = await new Deno.Command("rsvg-convert", {
-          args: ["--zoom", "1.5", "--output", `${out}/${kind}.png`, svgPath],
-        }).output();
-        if (!r.success) throw new Error(new TextDecoder().decode(r.stderr));
-      } catch (e) {
-        rsvg = false;
-        console.error(
-          `No PNG: rsvg-convert failed or is missing (apt-get install librsvg2-bin): ${e}`,
-        );
+  const browser = Deno.args.includes("--browser") ? await Browser.launch() : undefined;
+  try {
+    for (const [kind, spec] of Object.entries(specs())) {
+      const svg = await renderSvg(spec);
+      const svgPath = `${out}/${kind}.svg`;
+      await Deno.writeTextFile(svgPath, svg);
+      const raster = await rasterize(svg);
+      await Deno.writeFile(`${out}/${kind}.png`, raster.png);
+      let line = `${svgPath} and ${out}/${kind}.png (${raster.png.length} bytes)`;
+      if (browser !== undefined) {
+        const page = await browser.newPage({ width: raster.width, height: raster.height });
+        try {
+          await page.goto(new URL(`file://${await Deno.realPath(svgPath)}`).href);
+          line += ` and ${await page.screenshot(`${out}/${kind}.browser.png`)}`;
+        } finally {
+          await page.close();
+        }
       }
+      console.log(line);
     }
-    console.log(`${svgPath}${rsvg ? ` and ${out}/${kind}.png` : ""}`);
+  } finally {
+    await browser?.close();
   }
 }
