@@ -3,7 +3,7 @@ import { crc32, encodePng, pngSize } from "../../lib/render/png.ts";
 import { Resvg } from "../../lib/_deps/resvg.ts";
 import { rasterize } from "../../lib/render/raster.ts";
 import { seededRandom } from "../../lib/numeric/random.ts";
-import { decodePng } from "../_png.ts";
+import { decodePng } from "../../tools/notebooks/png_read.ts";
 
 function randomImage(width: number, height: number, opaque: boolean, seed: number): Uint8Array {
   const u = seededRandom(seed);

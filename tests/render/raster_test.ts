@@ -3,7 +3,7 @@ import { PlumbError } from "../../lib/errors.ts";
 import { pngSize } from "../../lib/render/png.ts";
 import { rasterize } from "../../lib/render/raster.ts";
 import { renderSvg } from "../../lib/render/svg.ts";
-import { decodePng, inkFraction } from "../_png.ts";
+import { decodePng, inkFraction } from "../../tools/notebooks/png_read.ts";
 import { KINDS, specsFor } from "./_samples.ts";
 
 const specs = specsFor(1000, "net fill volume (mL)");

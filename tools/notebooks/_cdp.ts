@@ -140,11 +140,13 @@ export class Page {
   #target: string;
   #unlisten: () => void;
   #loads = 0;
+  #allow: readonly string[];
 
-  constructor(conn: _Connection, session: string, target: string) {
+  constructor(conn: _Connection, session: string, target: string, allow: readonly string[] = []) {
     this.#conn = conn;
     this.#session = session;
     this.#target = target;
+    this.#allow = allow;
     this.#unlisten = conn.listen((m) => {
       if (m.sessionId === session) this.#onEvent(m.method ?? "", m.params ?? {});
     });
@@ -157,7 +159,7 @@ export class Page {
         break;
       case "Fetch.requestPaused": {
         const url: string = params.request.url;
-        if (isLocalUrl(url)) {
+        if (isLocalUrl(url) || this.#allow.some((prefix) => url.startsWith(prefix))) {
           this.send("Fetch.continueRequest", { requestId: params.requestId }).catch(() => {});
         } else {
           this.record.blocked.push(url);
@@ -356,14 +358,24 @@ export class Browser {
     }
   }
 
-  /** Opens a blank tab that records its requests and errors and blocks remote loads. */
-  async newPage(viewport: { width: number; height: number } = { width: 1000, height: 800 }) {
+  /**
+   * Opens a blank tab that records its requests and errors and blocks remote loads.
+   * `options.allow` lists URL prefixes it may load besides local files (a loopback
+   * server's origin); `options.javascript: false` opens it with scripts disabled.
+   */
+  async newPage(
+    viewport: { width: number; height: number } = { width: 1000, height: 800 },
+    options: { allow?: readonly string[]; javascript?: boolean } = {},
+  ) {
     const { targetId } = await this.#conn.send("Target.createTarget", { url: "about:blank" });
     const { sessionId } = await this.#conn.send("Target.attachToTarget", {
       targetId,
       flatten: true,
     });
-    const page = new Page(this.#conn, sessionId, targetId);
+    const page = new Page(this.#conn, sessionId, targetId, options.allow);
+    if (options.javascript === false) {
+      await page.send("Emulation.setScriptExecutionDisabled", { value: true });
+    }
     await page.send("Fetch.enable", { patterns: [{ urlPattern: "*" }] });
     await page.send("Network.enable");
     await page.send("Runtime.enable");

@@ -93,6 +93,26 @@ export function missingBrowserTools(): string | undefined {
 }
 
 /**
+ * Says what is missing to open notebooks in the classic Notebook page: the browser tools
+ * and Debian's `python3-notebook`.
+ *
+ * @example
+ * ```ts
+ * import { missingClassicTools } from "./requirements.ts";
+ * console.log(missingClassicTools() ?? "the classic Notebook page and Chromium are ready");
+ * ```
+ */
+export function missingClassicTools(): string | undefined {
+  const browser = missingBrowserTools();
+  if (browser !== undefined) return browser;
+  if (!_runs(PYTHON, ["-c", "import notebook.notebookapp"]).ok) {
+    return `${PYTHON} cannot import notebook.notebookapp: ` +
+      "install it with `apt-get install --no-install-recommends python3-notebook`";
+  }
+  return undefined;
+}
+
+/**
  * Decides whether tests that need `what` run: returns true to skip them (after saying
  * why on the console), throws when `PLUMBLINE_REQUIRE_NOTEBOOKS=1` forbids skipping.
  *

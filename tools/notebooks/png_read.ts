@@ -1,7 +1,8 @@
 /**
- * A small PNG reader for tests: 8-bit RGB or RGBA, not interlaced (what
- * plumbline's encoder writes). Returns RGBA pixels and the text chunks.
- * Checked against resvg's own PNG decoder in tests/render/png_test.ts.
+ * A small PNG reader for the tests and viewer checks: 8-bit RGB or RGBA, not
+ * interlaced (what plumbline's encoder and Chromium's screenshots write).
+ * Returns RGBA pixels and the text chunks. Checked against resvg's own PNG
+ * decoder in tests/render/png_test.ts.
  *
  * @module
  */
