@@ -206,7 +206,8 @@ export function lambdaExplorerSpec(
         `Box–Cox λ explorer · λ̂ = ${formatNumber(input.lambdaHat, 3)} · ${
           level * 100
         }% interval ${ciText}`,
-        `move the λ slider to see the QQ plot at each λ of the grid (a static view shows λ nearest λ̂)`,
+        `QQ plot at λ = ${formatNumber(lam[start], 3)}, the grid point nearest λ̂ · ` +
+        `where Vega-Lite runs, a slider under the chart picks any λ of the grid`,
       ],
     },
     config: CHART_CONFIG,

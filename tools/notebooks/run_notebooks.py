@@ -91,8 +91,10 @@ def _collect_notebooks(paths):
     if not paths:
         paths = [str(REPO_ROOT / "notebooks")]
     found = []
+    # `deno task notebooks` runs from the repository root; INIT_CWD is where it was typed.
+    base = Path(os.environ.get("INIT_CWD", os.getcwd()))
     for raw in paths:
-        path = Path(raw)
+        path = base / raw
         if path.is_dir():
             found.extend(
                 p for p in sorted(path.glob("*.ipynb")) if ".ipynb_checkpoints" not in p.parts
