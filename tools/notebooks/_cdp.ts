@@ -393,17 +393,22 @@ export class Browser {
   async close(): Promise<void> {
     await this.#conn.send("Browser.close", {}, undefined, 5_000).catch(() => {});
     await this.#conn.close();
-    let timer: ReturnType<typeof setTimeout> | undefined;
-    const exited = await Promise.race([
-      this.#child.status,
-      new Promise<null>((resolve) => timer = setTimeout(() => resolve(null), 5_000)),
-    ]);
-    clearTimeout(timer);
-    if (exited === null) {
-      this.#child.kill("SIGKILL");
-      await this.#child.status;
-    }
+    await waitOrKill(this.#child, 5_000);
     await Deno.remove(this.#profile, { recursive: true }).catch(() => {});
+  }
+}
+
+/** Waits up to `ms` for a child process to exit, then kills it (SIGKILL) and waits. */
+export async function waitOrKill(child: Deno.ChildProcess, ms: number): Promise<void> {
+  let timer: ReturnType<typeof setTimeout> | undefined;
+  const exited = await Promise.race([
+    child.status,
+    new Promise<null>((resolve) => timer = setTimeout(() => resolve(null), ms)),
+  ]);
+  clearTimeout(timer);
+  if (exited === null) {
+    child.kill("SIGKILL");
+    await child.status;
   }
 }
 

@@ -8,6 +8,7 @@
  *
  * @module
  */
+import { waitOrKill } from "./_cdp.ts";
 import { PYTHON } from "./requirements.ts";
 
 /** Options for {@linkcode ClassicServer.start}. */
@@ -121,16 +122,7 @@ export class ClassicServer {
     } catch {
       // already gone
     }
-    let timer: ReturnType<typeof setTimeout> | undefined;
-    const exited = await Promise.race([
-      this.#child.status,
-      new Promise<null>((resolve) => timer = setTimeout(() => resolve(null), 10_000)),
-    ]);
-    clearTimeout(timer);
-    if (exited === null) {
-      this.#child.kill("SIGKILL");
-      await this.#child.status;
-    }
+    await waitOrKill(this.#child, 10_000);
     await Deno.remove(this.#scratch, { recursive: true }).catch(() => {});
   }
 }
