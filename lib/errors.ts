@@ -34,7 +34,9 @@ export type PlumbErrorCode =
   /** A numerical search that did not converge. */
   | "no-convergence"
   /** A tool plumbline needs at run time (the PNG renderer or its font) could not be loaded. */
-  | "unavailable";
+  | "unavailable"
+  /** Values recorded below or above a limit where a method needs measured values. */
+  | "censored";
 
 /**
  * An error raised by plumbline for input it cannot use.

@@ -17,7 +17,7 @@
  *   exponential-like, reported to 0.1.
  *
  * A handful of cells are missing (empty or `NA`) and a few are mistyped
- * (`12..4`, `ERR`, `<5`), so that the ingest messages have something to show.
+ * (`12..4`, `ERR`, `~5`), so that the ingest messages have something to show.
  *
  * Run: `deno run --allow-write tools/make_demo_data.ts [out.csv]`
  *
@@ -66,7 +66,7 @@ export function demoCsv(): string {
     [203, 6, ""],
     [44, 3, "12..4"],
     [99, 4, "ERR"],
-    [166, 5, "<5"],
+    [166, 5, "~5"],
   ];
   for (const [row, col, text] of edits) {
     const cells = rows[row].split(",");

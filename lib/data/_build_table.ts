@@ -4,9 +4,23 @@
  *
  * @module
  */
-import type { ColumnInfo, ColumnKind, HeaderRename, NumericColumnOptions, Table } from "./table.ts";
+import {
+  type CensoredLimit,
+  type ColumnInfo,
+  type ColumnKind,
+  type HeaderRename,
+  LISTED_LIMITS,
+  type NumericColumnOptions,
+  type Table,
+} from "./table.ts";
 import { _rawColumn, _remember } from "./_table_store.ts";
-import { type _RawColumn, CELL_MISSING, CELL_NUMBER } from "./_raw_column.ts";
+import {
+  type _RawColumn,
+  CELL_LEFT,
+  CELL_MISSING,
+  CELL_NUMBER,
+  CELL_RIGHT,
+} from "./_raw_column.ts";
 import { numericCells, numericColumn } from "./numeric_column.ts";
 import { textColumn } from "./text_column.ts";
 import { parseNumber } from "./number_parse.ts";
@@ -25,7 +39,7 @@ export interface _TableMeta {
 /**
  * The kind rule (see `ColumnKind`): numeric when there is at least one number
  * and fewer text cells than numbers; empty when every cell is missing; text
- * otherwise.
+ * otherwise. Censored cells count as numbers here.
  */
 export function _kind(numbers: number, text: number): ColumnKind {
   if (numbers === 0 && text === 0) return "empty";
@@ -40,14 +54,18 @@ export function _buildTable(columns: readonly _RawColumn[], meta: _TableMeta): T
     byName.set(col.name, col);
     let numbers = 0;
     let missing = 0;
+    let left = 0;
+    let right = 0;
     const status = col.status;
     for (let i = 0; i < status.length; i++) {
       const s = status[i];
       if (s === CELL_NUMBER) numbers++;
       else if (s === CELL_MISSING) missing++;
+      else if (s === CELL_LEFT) left++;
+      else if (s === CELL_RIGHT) right++;
     }
-    const nonNumeric = status.length - numbers - missing;
-    const kind = _kind(numbers, nonNumeric);
+    const nonNumeric = status.length - numbers - missing - left - right;
+    const kind = _kind(numbers + left + right, nonNumeric);
     infos.push(Object.freeze({
       name: col.name,
       kind,
@@ -58,6 +76,9 @@ export function _buildTable(columns: readonly _RawColumn[], meta: _TableMeta): T
         originalName: col.originalName,
         rowsRead: meta.rowCount,
         numbers,
+        censoredLeft: left,
+        censoredRight: right,
+        censoredLimits: left + right === 0 ? _NO_LIMITS : _limits(col),
         missing,
         nonNumeric,
         nonNumericCells: Object.freeze(col.notes.slice()),
@@ -93,6 +114,30 @@ export function _buildTable(columns: readonly _RawColumn[], meta: _TableMeta): T
   });
   _remember(table, { byName, order: columns.map((c) => c.name) });
   return table;
+}
+
+const _NO_LIMITS: readonly CensoredLimit[] = Object.freeze([]);
+
+/** The distinct limits of a column's censored cells, with their counts. */
+function _limits(col: _RawColumn): readonly CensoredLimit[] {
+  const counts = [new Map<number, number>(), new Map<number, number>()];
+  const status = col.status;
+  const values = col.values;
+  for (let i = 0; i < status.length; i++) {
+    const s = status[i];
+    if (s === CELL_LEFT || s === CELL_RIGHT) {
+      const m = counts[s === CELL_LEFT ? 0 : 1];
+      m.set(values[i], (m.get(values[i]) ?? 0) + 1);
+    }
+  }
+  const out: CensoredLimit[] = [];
+  counts.forEach((m, k) => {
+    const side = k === 0 ? "below" : "above";
+    for (const limit of [...m.keys()].sort((a, b) => a - b)) {
+      out.push(Object.freeze({ side, limit, count: m.get(limit) as number }));
+    }
+  });
+  return Object.freeze(out.slice(0, LISTED_LIMITS));
 }
 
 /** The remark for a text column that the other decimal mark would read as numbers. */

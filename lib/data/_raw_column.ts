@@ -6,6 +6,7 @@
  */
 import { type CellNote, NOTED_CELLS } from "./table.ts";
 import { parseNumber } from "./number_parse.ts";
+import { limitWordSide, parseCensored } from "./censored_cell.ts";
 
 /** Cell status codes in {@linkcode _RawColumn.status}. */
 export const CELL_NUMBER = 0;
@@ -13,13 +14,27 @@ export const CELL_NUMBER = 0;
 export const CELL_MISSING = 1;
 /** The cell is text: neither a number nor missing. */
 export const CELL_TEXT = 2;
+/** The cell is below a limit (`<0.5`): the value stored is the limit. */
+export const CELL_LEFT = 3;
+/** The cell is above a limit (`>1000`): the value stored is the limit. */
+export const CELL_RIGHT = 4;
 
-/** How text cells are read: decimal mark, thousands separator, missing tokens. */
+/** The limits that words such as `ND` (below) or `TNTC` (above) stand for in one column. */
+export interface _WordLimits {
+  readonly below?: number;
+  readonly above?: number;
+}
+
+/**
+ * How text cells are read: decimal mark, thousands separator, missing
+ * tokens, and per column the limits that limit words stand for.
+ */
 export interface _CellRules {
   readonly decimal: "." | ",";
   readonly decimalCode: number;
   readonly thousands: string | undefined;
   readonly missing: ReadonlySet<string>;
+  readonly limits: ReadonlyMap<string, _WordLimits>;
 }
 
 /** One column as read, before the table classifies it. */
@@ -28,7 +43,7 @@ export interface _RawColumn {
   name: string;
   /** The name as the source gave it. */
   readonly originalName: string;
-  /** One value per row; NaN unless the status is CELL_NUMBER. */
+  /** One value per row: the number, the limit of a censored cell, NaN otherwise. */
   readonly values: Float64Array;
   /** One status code per row. */
   readonly status: Uint8Array;
@@ -75,7 +90,8 @@ export function _cached<T>(f: () => T): () => T {
 
 /**
  * Classify one cell given as text and store it at `row`: a number, missing,
- * or text (noted when among the first text cells).
+ * censored (`<0.5`, `>1000`, or a limit word where the column's limit is
+ * given), or text (noted when among the first text cells).
  *
  * @param text the cell, already trimmed
  * @param line the CSV line of the row, or null for in-memory data
@@ -98,7 +114,27 @@ export function _storeTextCell(
     col.status[row] = CELL_NUMBER;
     return;
   }
+  const censored = parseCensored(text, rules);
+  if (censored !== null) {
+    _storeCensored(col, row, censored.side, censored.limit);
+    return;
+  }
+  const limits = rules.limits.get(col.name);
+  if (limits !== undefined) {
+    const side = limitWordSide(text);
+    const limit = side === -1 ? limits.below : side === 1 ? limits.above : undefined;
+    if (side !== null && limit !== undefined) {
+      _storeCensored(col, row, side, limit);
+      return;
+    }
+  }
   _storeText(col, row, text, line);
+}
+
+/** Store a censored cell: side −1 below `limit`, +1 above it. */
+export function _storeCensored(col: _RawColumn, row: number, side: -1 | 1, limit: number): void {
+  col.values[row] = limit;
+  col.status[row] = side < 0 ? CELL_LEFT : CELL_RIGHT;
 }
 
 /** Store a text cell at `row` and note it when among the first ones. */

@@ -7,7 +7,7 @@ import type { Table } from "./table.ts";
 import { PlumbError } from "../errors.ts";
 import { _buildTable } from "./_build_table.ts";
 import { detectDelimiter } from "./delimiter.ts";
-import { _cellRules, type CellOptions } from "./read_options.ts";
+import { _cellRules, _checkLimitColumns, type CellOptions } from "./read_options.ts";
 import { _readSimpleCsv } from "./csv_simple.ts";
 import { _readCsv } from "./csv.ts";
 
@@ -133,6 +133,7 @@ export function _tableFromCsv(
   if (read === null) {
     read = _readCsv(body ?? _utf8.decode(bytes as Uint8Array), delimiter, rules, source);
   }
+  _checkLimitColumns(rules, read.columns.map((c) => c.name));
   return _buildTable(read.columns, {
     source,
     rowCount: read.rowCount,

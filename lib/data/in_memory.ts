@@ -15,9 +15,15 @@
  *
  * Cells: a finite number is a number; `NaN`, `null` and `undefined` are
  * missing; a string is read like a CSV cell (strict numbers, missing
- * tokens, `decimal` "." unless given); ±Infinity, booleans, dates and other
- * objects are text. Row numbers in provenance are 1-based positions; there
- * are no line numbers.
+ * tokens, censored values such as `"<0.5"`, `decimal` "." unless given);
+ * `{ below: 0.5 }` and `{ above: 1000 }` are censored cells (below or above
+ * that limit); ±Infinity, booleans, dates and other objects are text. Row
+ * numbers in provenance are 1-based positions; there are no line numbers.
+ *
+ * Censored values in bulk: in an object or `Map` of columns, a column may be
+ * given as `{ values, censor }` — the values (the limit where censored) and,
+ * aligned with them, −1 below the limit, +1 above it, 0 measured: the shape
+ * of a `NumericColumn`.
  *
  * @module
  */
@@ -28,15 +34,18 @@ import {
   type _CellRules,
   _newColumn,
   type _RawColumn,
+  _storeCensored,
   _storeText,
   _storeTextCell,
+  CELL_LEFT,
   CELL_MISSING,
+  CELL_RIGHT,
 } from "./_raw_column.ts";
 import { _buildTable } from "./_build_table.ts";
 import { _isTable } from "./_table_store.ts";
-import { frameColumns } from "./frame_like.ts";
+import { _columnsOf, _isRecord } from "./_memory_shapes.ts";
 import { uniqueNames } from "./header.ts";
-import { _cellRules, type CellOptions } from "./read_options.ts";
+import { _cellRules, _checkLimitColumns, type CellOptions } from "./read_options.ts";
 
 /** Options for {@linkcode tableFromMemory}. */
 export interface MemoryOptions extends CellOptions {
@@ -63,6 +72,13 @@ export interface MemoryOptions extends CellOptions {
  * if (t.numericNames().join() !== "torque" || t.info("torque").provenance.missing !== 1) {
  *   throw new Error("unexpected");
  * }
+ * // Censored values: per cell, or a column with its sides.
+ * const lab = tableFromMemory({
+ *   crp: [1.2, { below: 0.5 }, "<0.5", 3.4],
+ *   chlorine: { values: [0.05, 0.21, 0.05, 0.3], censor: [-1, 0, -1, 0] },
+ * });
+ * if (lab.info("crp").provenance.censoredLeft !== 2) throw new Error("unexpected");
+ * if (lab.numeric("chlorine").censor?.join() !== "-1,0,-1,0") throw new Error("unexpected");
  * ```
  */
 export function tableFromMemory(data: unknown, options: MemoryOptions = {}): Table {
@@ -77,6 +93,7 @@ export function tableFromMemory(data: unknown, options: MemoryOptions = {}): Tab
   }
   const pairs = _columnsOf(data, name);
   const { names, renamed } = uniqueNames(pairs.map((p) => p[0]));
+  _checkLimitColumns(rules, names);
   const length = pairs.length === 0 ? 0 : pairs[0][1].length;
   pairs.forEach(([n, cells]) => {
     if (cells.length !== length) {
@@ -89,8 +106,8 @@ export function tableFromMemory(data: unknown, options: MemoryOptions = {}): Tab
       );
     }
   });
-  const columns = pairs.map(([original, cells], j) =>
-    _memoryColumn(names[j], original, cells, rules)
+  const columns = pairs.map(([original, cells, censor], j) =>
+    _memoryColumn(names[j], original, cells, rules, censor)
   );
   return _buildTable(columns, {
     source: "memory",
@@ -101,89 +118,12 @@ export function tableFromMemory(data: unknown, options: MemoryOptions = {}): Tab
   });
 }
 
-type _Pair = [string, ArrayLike<unknown>];
-
-function _isCells(x: unknown): x is ArrayLike<unknown> {
-  return Array.isArray(x) || (ArrayBuffer.isView(x) && !(x instanceof DataView));
-}
-
-function _isRecord(x: unknown): x is Record<string, unknown> {
-  return typeof x === "object" && x !== null && !Array.isArray(x) && !ArrayBuffer.isView(x) &&
-    !(x instanceof Date);
-}
-
-function _columnsOf(data: unknown, name: string): _Pair[] {
-  if (Array.isArray(data)) {
-    const first = data.find((x) => x !== null && x !== undefined);
-    if (Array.isArray(first)) {
-      throw new PlumbError(
-        "bad-option",
-        "Cannot read an array of arrays: give rows as objects ([{ x: 1 }, …]) or columns as an object of arrays ({ x: [1, …] })",
-      );
-    }
-    if (_isRecord(first)) return _rowsToColumns(data);
-    return [[name, data]];
-  }
-  if (_isCells(data)) return [[name, data]];
-  if (data instanceof Map) {
-    return [...data.entries()].map(([k, v]) => [String(k), _checkCells(String(k), v)]);
-  }
-  if (typeof data === "object" && data !== null) {
-    const frame = frameColumns(data);
-    if (frame !== null) return frame.names.map((n) => [n, frame.read(n)]);
-    return Object.keys(data).map((k) => [k, _checkCells(k, (data as Record<string, unknown>)[k])]);
-  }
-  throw new PlumbError(
-    "bad-option",
-    `Cannot make a table from ${
-      data === null ? "null" : typeof data
-    }: give a file path, CSV text, an array of numbers, an array of row objects or an object of columns`,
-  );
-}
-
-function _checkCells(key: string, v: unknown): ArrayLike<unknown> {
-  if (_isCells(v)) return v;
-  throw new PlumbError(
-    "bad-option",
-    `Cannot read column ${
-      JSON.stringify(key)
-    }: its value is not an array; give an object whose every value is an array (one cell per row)`,
-  );
-}
-
-function _rowsToColumns(rows: readonly unknown[]): _Pair[] {
-  const index = new Map<string, number>();
-  const columns: unknown[][] = [];
-  const names: string[] = [];
-  rows.forEach((row, r) => {
-    if (row === null || row === undefined) return;
-    if (!_isRecord(row)) {
-      throw new PlumbError(
-        "bad-option",
-        `Cannot read row ${
-          r + 1
-        }: it is not an object like the rows before it; give every row as an object`,
-      );
-    }
-    for (const key of Object.keys(row)) {
-      let j = index.get(key);
-      if (j === undefined) {
-        j = columns.length;
-        index.set(key, j);
-        names.push(key);
-        columns.push(new Array(rows.length).fill(undefined));
-      }
-      columns[j][r] = row[key];
-    }
-  });
-  return names.map((n, j) => [n, columns[j]]);
-}
-
 function _memoryColumn(
   name: string,
   originalName: string,
   cells: ArrayLike<unknown>,
   rules: _CellRules,
+  censor: ArrayLike<unknown> | undefined,
 ): _RawColumn {
   const kept: ArrayLike<unknown> = ArrayBuffer.isView(cells)
     ? (cells as unknown as Float64Array).slice()
@@ -194,13 +134,23 @@ function _memoryColumn(
     originalName,
     texts: _cached(() => {
       const out: string[] = new Array(n);
-      for (let i = 0; i < n; i++) out[i] = col.status[i] === CELL_MISSING ? "" : _show(kept[i]);
+      for (let i = 0; i < n; i++) {
+        const s = col.status[i];
+        const v = kept[i];
+        if (s === CELL_MISSING) out[i] = "";
+        else if ((s === CELL_LEFT || s === CELL_RIGHT) && typeof v !== "string") {
+          out[i] = `${s === CELL_LEFT ? "<" : ">"}${col.values[i]}`;
+        } else out[i] = _show(v);
+      }
       return out;
     }),
   };
   for (let i = 0; i < n; i++) {
     const v = kept[i];
-    if (typeof v === "number") {
+    const side = censor?.[i];
+    if (side === -1 || side === 1) {
+      _storeCensored(col, i, side, v as number);
+    } else if (typeof v === "number") {
       if (Number.isFinite(v)) col.values[i] = v;
       else if (v !== v) _missing(col, i);
       else _storeText(col, i, String(v), null);
@@ -212,11 +162,22 @@ function _memoryColumn(
       const x = Number(v);
       if (Number.isFinite(x)) col.values[i] = x;
       else _storeText(col, i, String(v), null);
-    } else {
+    } else if (!_storeCensoredCell(col, i, v)) {
       _storeText(col, i, _show(v), null);
     }
   }
   return col;
+}
+
+/** Store `{ below: x }` or `{ above: x }` (finite x) as censored; false for any other value. */
+function _storeCensoredCell(col: _RawColumn, i: number, v: unknown): boolean {
+  if (!_isRecord(v)) return false;
+  const keys = Object.keys(v);
+  if (keys.length !== 1 || (keys[0] !== "below" && keys[0] !== "above")) return false;
+  const limit = v[keys[0]];
+  if (typeof limit !== "number" || !Number.isFinite(limit)) return false;
+  _storeCensored(col, i, keys[0] === "below" ? -1 : 1, limit);
+  return true;
 }
 
 function _missing(col: _RawColumn, i: number): void {

@@ -4,27 +4,38 @@
  * @module
  */
 import type {
-  CellNote,
+  ColumnProvenance,
   NumericCells,
   NumericColumn,
   NumericColumnOptions,
   NumericProvenance,
   Table,
 } from "./table.ts";
-import { _cached, CELL_MISSING, CELL_NUMBER, CELL_TEXT } from "./_raw_column.ts";
+import {
+  _cached,
+  CELL_LEFT,
+  CELL_MISSING,
+  CELL_NUMBER,
+  CELL_RIGHT,
+  CELL_TEXT,
+} from "./_raw_column.ts";
 import { _rawColumn } from "./_table_store.ts";
 import { PlumbError } from "../errors.ts";
 import { parseNumber } from "./number_parse.ts";
+import { limitWordSide } from "./censored_cell.ts";
 
 /**
  * The used numbers of a column: missing cells are always left out and
  * counted; text cells make it fail unless `dropText` is set, in which case
- * they are left out and counted too.
+ * they are left out and counted too. Censored cells are kept: their limit
+ * in `values` and their side in `censor` (present only when some value is
+ * censored).
  *
  * @param table a table from `loadTable`
  * @param name the column's name
  * @param options whether to drop text cells
- * @returns the values in row order, their row indices and the provenance
+ * @returns the values in row order, their censoring sides, their row
+ *   indices and the provenance
  * @throws {PlumbError} `"unknown-column"` when there is no such column;
  *   `"non-numeric"` when the column holds text cells and `dropText` is not
  *   set (the message names the first rows, their lines and their text)
@@ -33,9 +44,12 @@ import { parseNumber } from "./number_parse.ts";
  * ```ts
  * import { loadTable } from "./load_table.ts";
  * import { numericColumn } from "./numeric_column.ts";
- * const table = await loadTable("x\n1\nNA\n2.5\nn.d.\n");
+ * const table = await loadTable("x\n1\nNA\n2.5\nn.d.\n<0.5\n");
  * const col = numericColumn(table, "x", { dropText: true });
- * if (col.values.join() !== "1,2.5" || col.provenance.textDropped !== 1) {
+ * if (col.values.join() !== "1,2.5,0.5" || col.provenance.textDropped !== 1) {
+ *   throw new Error("unexpected");
+ * }
+ * if (col.censor?.join() !== "0,0,-1" || col.provenance.censoredLeft !== 1) {
  *   throw new Error("unexpected");
  * }
  * ```
@@ -52,7 +66,7 @@ export function numericColumn(
   if (p.nonNumeric > 0 && !dropText) {
     throw new PlumbError(
       "non-numeric",
-      _nonNumericMessage(table, col.name, p.nonNumeric, p.numbers, p.nonNumericCells),
+      _nonNumericMessage(table, col.name, p),
       {
         column: col.name,
         count: p.nonNumeric,
@@ -60,17 +74,30 @@ export function numericColumn(
       },
     );
   }
-  const n = p.numbers;
+  const censored = p.censoredLeft + p.censoredRight;
+  const n = p.numbers + censored;
   const status = col.status;
   const complete = n === status.length;
+  const used = (s: number) => s === CELL_NUMBER || s === CELL_LEFT || s === CELL_RIGHT;
   let values: Float64Array;
+  let censor: Int8Array | undefined;
   if (complete) {
     values = col.copyValues?.() ?? col.values.slice();
   } else {
     const all = col.values;
     values = new Float64Array(n);
     let j = 0;
-    for (let i = 0; i < status.length; i++) if (status[i] === CELL_NUMBER) values[j++] = all[i];
+    for (let i = 0; i < status.length; i++) if (used(status[i])) values[j++] = all[i];
+  }
+  if (censored > 0) {
+    censor = new Int8Array(n);
+    let j = 0;
+    for (let i = 0; i < status.length; i++) {
+      const s = status[i];
+      if (s === CELL_NUMBER) j++;
+      else if (s === CELL_LEFT) censor[j++] = -1;
+      else if (s === CELL_RIGHT) censor[j++] = 1;
+    }
   }
   // Row indices are built on first read: most callers never need them.
   const rowIndex = _cached(() => {
@@ -79,7 +106,7 @@ export function numericColumn(
       for (let i = 0; i < n; i++) index[i] = i;
     } else {
       let j = 0;
-      for (let i = 0; i < status.length; i++) if (status[i] === CELL_NUMBER) index[j++] = i;
+      for (let i = 0; i < status.length; i++) if (used(status[i])) index[j++] = i;
     }
     return index;
   });
@@ -89,23 +116,29 @@ export function numericColumn(
     missingDropped: p.missing,
     textDropped: dropText ? p.nonNumeric : 0,
   });
-  return _freezeColumn(col.name, values, rowIndex, provenance);
+  return _freezeColumn(col.name, values, rowIndex, provenance, censor);
 }
 
-/** Assemble a frozen NumericColumn whose row indices are built on first read. */
+/**
+ * Assemble a frozen NumericColumn whose row indices are built on first
+ * read; `censor` is left out when undefined.
+ */
 export function _freezeColumn(
   name: string,
   values: Float64Array,
   rowIndex: () => Int32Array,
   provenance: NumericProvenance,
+  censor?: Int8Array,
 ): NumericColumn {
   const column = {
     name,
     values,
+    ...(censor === undefined ? {} : { censor }),
     provenance,
     toJSON: () => ({
       name,
       values: Array.from(values),
+      ...(censor === undefined ? {} : { censor: Array.from(censor) }),
       rowIndex: Array.from(rowIndex()),
       provenance,
     }),
@@ -116,7 +149,8 @@ export function _freezeColumn(
 
 /**
  * Every cell of a column as a number, aligned with the table's rows, with
- * masks for missing and text cells. Never fails on text.
+ * masks for missing and text cells, and (when some cell is censored) each
+ * row's censoring side. Never fails on text.
  *
  * @param table a table from `loadTable`
  * @param name the column's name
@@ -135,22 +169,29 @@ export function numericCells(table: Table, name: string): NumericCells {
   const n = col.status.length;
   const missing = new Uint8Array(n);
   const nonNumeric = new Uint8Array(n);
+  let censor: Int8Array | undefined;
   for (let i = 0; i < n; i++) {
     const s = col.status[i];
     if (s === CELL_MISSING) missing[i] = 1;
     else if (s === CELL_TEXT) nonNumeric[i] = 1;
+    else if (s === CELL_LEFT || s === CELL_RIGHT) {
+      censor ??= new Int8Array(n);
+      censor[i] = s === CELL_LEFT ? -1 : 1;
+    }
   }
   const values = col.copyValues?.() ?? col.values.slice();
-  return Object.freeze({ name: col.name, values, missing, nonNumeric });
+  return Object.freeze({
+    name: col.name,
+    values,
+    ...(censor === undefined ? {} : { censor }),
+    missing,
+    nonNumeric,
+  });
 }
 
-function _nonNumericMessage(
-  table: Table,
-  name: string,
-  count: number,
-  numbers: number,
-  cells: readonly CellNote[],
-): string {
+function _nonNumericMessage(table: Table, name: string, p: ColumnProvenance): string {
+  const count = p.nonNumeric;
+  const cells = p.nonNumericCells;
   const shown = cells.slice(0, 5).map((c) =>
     `row ${c.row}${c.line === null ? "" : ` (line ${c.line})`} ${JSON.stringify(c.text)}`
   );
@@ -167,12 +208,27 @@ function _nonNumericMessage(
   ) {
     hints.push(`some cells would read as numbers with decimal: ${JSON.stringify(other)}`);
   }
+  const word = cells.find((c) => limitWordSide(c.text) !== null);
+  if (word !== undefined) {
+    const side = limitWordSide(word.text) === -1 ? "below" : "above";
+    const [limit, example] = side === "below" ? ["0.5", "0.5"] : ["{ above: 1000 }", "1000"];
+    hints.push(
+      `${JSON.stringify(word.text)} says the value is ${side} a limit without giving it: ` +
+        `to read such cells as censored, give the column's limit when loading, ` +
+        `loadTable(source, { detectionLimits: { ${
+          JSON.stringify(name)
+        }: ${limit} } }) with your limit in place of ${example}`,
+    );
+  }
   const hint = hints.length > 0 ? ` (${hints.join("; ")})` : "";
-  const what = numbers > count
-    ? `${count} text ${count === 1 ? "cell" : "cells"} among ${numbers} numbers`
-    : `${count} text ${
-      count === 1 ? "cell" : "cells"
-    } and ${numbers} numbers, so it is a text column`;
+  const censored = p.censoredLeft + p.censoredRight;
+  const numbers = `${p.numbers} ${p.numbers === 1 ? "number" : "numbers"}${
+    censored === 0 ? "" : ` and ${censored} censored ${censored === 1 ? "value" : "values"}`
+  }`;
+  const cellWord = count === 1 ? "cell" : "cells";
+  const what = p.numbers + censored > count
+    ? `${count} text ${cellWord} among ${numbers}`
+    : `${count} text ${cellWord} and ${numbers}, so it is a text column`;
   return `Column ${JSON.stringify(name)} of ${table.source} is not numeric: ${what}: ${
     shown.join(", ")
   }${more}${hint}; correct the source, add the tokens to the missing list, or pass { dropText: true } to leave them out`;

@@ -12,9 +12,9 @@
 /**
  * What a column holds, decided once when the table is loaded.
  *
- * - `"numeric"`: at least one cell is a number and the cells that are text
- *   (neither a number nor a missing-value token) are fewer than the cells that
- *   are numbers. A numeric column may still hold a few text cells; asking for
+ * - `"numeric"`: at least one cell is a number (measured or censored) and
+ *   the cells that are text (neither a number, a censored value nor a
+ *   missing-value token) are fewer than the cells that are numbers. A numeric column may still hold a few text cells; asking for
  *   its numbers then fails with a `"non-numeric"` error that names them,
  *   unless they are dropped on purpose with `{ dropText: true }`.
  * - `"text"`: at least one text cell and no more numbers than text cells; a
@@ -36,7 +36,26 @@ export interface CellNote {
   readonly text: string;
 }
 
-/** How many cells of a column fell in each class, and the first text cells. */
+/**
+ * The limits of a column's censored cells: one entry per side and limit,
+ * with the number of cells at it.
+ */
+export interface CensoredLimit {
+  /** `"below"`: left-censored (`<0.5`); `"above"`: right-censored (`>1000`). */
+  readonly side: "below" | "above";
+  /** The limit. */
+  readonly limit: number;
+  /** How many cells of the column are censored at this limit on this side. */
+  readonly count: number;
+}
+
+/** How many distinct limits a column's provenance lists. */
+export const LISTED_LIMITS = 10;
+
+/**
+ * How many cells of a column fell in each class — numbers, censored (below
+ * or above a limit), missing, text — and the first text cells.
+ */
 export interface ColumnProvenance {
   /** The file name (without folders), `"text"` for CSV text, `"memory"` for in-memory data. */
   readonly source: string;
@@ -46,11 +65,21 @@ export interface ColumnProvenance {
   readonly originalName: string;
   /** Data rows read from the source (every row, whatever its cells held). */
   readonly rowsRead: number;
-  /** Cells that parsed as finite numbers. */
+  /** Cells that parsed as finite numbers (measured values, not censored ones). */
   readonly numbers: number;
+  /** Cells below a limit (`<0.5`, `≤0.5`, or a limit word with the column's limit given). */
+  readonly censoredLeft: number;
+  /** Cells above a limit (`>1000`, `≥1000`). */
+  readonly censoredRight: number;
+  /**
+   * The distinct limits of the censored cells with their counts, below
+   * before above, each side by increasing limit (at most
+   * {@linkcode LISTED_LIMITS}; the counts above are complete).
+   */
+  readonly censoredLimits: readonly CensoredLimit[];
   /** Cells that were empty or held a missing-value token. */
   readonly missing: number;
-  /** Cells that were neither a number nor missing. */
+  /** Cells that were neither a number, censored, nor missing. */
   readonly nonNumeric: number;
   /** The first text cells (at most {@linkcode NOTED_CELLS}), in row order. */
   readonly nonNumericCells: readonly CellNote[];
@@ -89,7 +118,7 @@ export interface HeaderRename {
 
 /** Where a numeric column's values came from and what was left out. */
 export interface NumericProvenance extends ColumnProvenance {
-  /** Values handed back (numbers only). */
+  /** Values handed back: numbers and censored cells. */
   readonly used: number;
   /** Missing cells left out (always all of them; listed so every output can show the count). */
   readonly missingDropped: number;
@@ -99,13 +128,23 @@ export interface NumericProvenance extends ColumnProvenance {
 
 /**
  * The numbers of one column, ready for analysis: missing cells (and, when
- * asked for, text cells) removed and counted.
+ * asked for, text cells) removed and counted; censored cells kept, each with
+ * its side in `censor` and its limit in `values`.
  */
 export interface NumericColumn {
   /** The column's name. */
   readonly name: string;
-  /** The used values, in row order. A fresh copy owned by the caller. */
+  /**
+   * The used values, in row order: the measured value, or the limit of a
+   * censored cell. A fresh copy owned by the caller.
+   */
   readonly values: Float64Array;
+  /**
+   * Present only when some value is censored: aligned with `values`, 0 for a
+   * measured value, −1 left-censored (the true value is at most
+   * `values[i]`), +1 right-censored (at least `values[i]`).
+   */
+  readonly censor?: Int8Array;
   /**
    * The 0-based table row of each value (`values[i]` came from row
    * `rowIndex[i]`), for tooltips and for lining up with a text column.
@@ -115,18 +154,30 @@ export interface NumericColumn {
   /** Counts of what was read, used and left out. */
   readonly provenance: NumericProvenance;
   /** Plain data for JSON: the arrays as number arrays. */
-  toJSON(): { name: string; values: number[]; rowIndex: number[]; provenance: NumericProvenance };
+  toJSON(): {
+    name: string;
+    values: number[];
+    censor?: number[];
+    rowIndex: number[];
+    provenance: NumericProvenance;
+  };
 }
 
 /**
  * Every cell of a column as numbers, aligned with the table's rows: a cell
- * that is not a number is `NaN` in `values` and flagged in one of the masks.
+ * that is neither a number nor censored is `NaN` in `values` and flagged in
+ * one of the masks.
  */
 export interface NumericCells {
   /** The column's name. */
   readonly name: string;
-  /** One value per row; `NaN` where the cell is missing or text. */
+  /** One value per row: the number, a censored cell's limit, `NaN` where missing or text. */
   readonly values: Float64Array;
+  /**
+   * Present only when some cell is censored: one entry per row, 0 unless the
+   * cell is censored, −1 below its limit, +1 above it.
+   */
+  readonly censor?: Int8Array;
   /** 1 where the cell is missing, 0 elsewhere. */
   readonly missing: Uint8Array;
   /** 1 where the cell is text (not a number, not missing), 0 elsewhere. */

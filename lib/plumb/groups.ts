@@ -6,6 +6,7 @@
  * @module
  */
 import type { Table } from "../data/table.ts";
+import { refuseCensored } from "./_censored_guard.ts";
 import { PlumbError } from "../errors.ts";
 import { cardBundle } from "../render/card.ts";
 import { chartBundle } from "../render/chart_bundle.ts";
@@ -122,6 +123,7 @@ export class PlumbGroups implements Displayable {
     const adjust = this.#s.groupOptions.adjust ?? "holm";
     // Raises "non-numeric" (naming rows) unless text cells are dropped on request.
     const used = table.numeric(column, { dropText: options.dropText ?? false });
+    refuseCensored(used, stepLabel(column, steps));
     const cells = table.numericCells(column);
     const g = table.text(groupBy);
     const byGroup = new Map<string, number[]>();

@@ -6,6 +6,7 @@
  * @module
  */
 import type { Table } from "../data/table.ts";
+import { refuseCensored } from "./_censored_guard.ts";
 import { PlumbError } from "../errors.ts";
 import { type Chart, chart, chartBundle } from "../render/chart_bundle.ts";
 import { cardBundle } from "../render/card.ts";
@@ -119,6 +120,7 @@ export class Plumb implements Displayable {
     if (this.#values) return this.#values;
     const { table, column, steps, options } = this.#state;
     const col = table.numeric(column, { dropText: options.dropText ?? false });
+    refuseCensored(col, this.label);
     let v: Float64Array = col.values;
     for (const s of steps) v = s.apply(v);
     this.#values = v;

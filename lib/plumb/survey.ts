@@ -5,6 +5,7 @@
  * @module
  */
 import type { Table } from "../data/table.ts";
+import { refuseCensored } from "./_censored_guard.ts";
 import { PlumbError } from "../errors.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../render/display.ts";
 import { formatCount, formatP } from "../render/format.ts";
@@ -125,8 +126,9 @@ export class Survey implements Displayable {
       let col;
       try {
         col = t.numeric(name, { dropText: this.#options.dropText ?? false });
+        refuseCensored(col, name);
       } catch (e) {
-        if (e instanceof PlumbError && e.code === "non-numeric") {
+        if (e instanceof PlumbError && (e.code === "non-numeric" || e.code === "censored")) {
           rows.push({ column: name, missing, textDropped: 0, skipped: `${e.message}` });
           continue;
         }

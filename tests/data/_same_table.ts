@@ -1,6 +1,7 @@
 /**
  * Compare two tables cell by cell: columns, kinds, provenance, every value
- * (bit for bit, so -0 and 0 differ), both masks and every cell's text.
+ * (bit for bit, so -0 and 0 differ), both masks, the censoring sides and
+ * every cell's text.
  *
  * @module
  */
@@ -23,6 +24,11 @@ export function assertSameTable(a: Table, b: Table, context: string): void {
       Array.from(x.nonNumeric),
       Array.from(y.nonNumeric),
       `${context}: ${c.name} text`,
+    );
+    assert.deepEqual(
+      x.censor && Array.from(x.censor),
+      y.censor && Array.from(y.censor),
+      `${context}: ${c.name} censored`,
     );
     for (let i = 0; i < x.values.length; i++) {
       assert.ok(

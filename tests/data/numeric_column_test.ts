@@ -23,7 +23,7 @@ Deno.test("a column mixing numbers and text is numeric but refuses to hand over 
     assert.equal(e.code, "non-numeric");
     assert.equal(
       e.message,
-      'Column "weight" of mixed.csv is not numeric: 4 text cells among 6 numbers: row 2 (line 3) "12abc", row 4 (line 5) "n.d.", row 5 (line 6) "Inf", row 8 (line 9) "0x10" (infinite values are not accepted); correct the source, add the tokens to the missing list, or pass { dropText: true } to leave them out',
+      `Column "weight" of mixed.csv is not numeric: 4 text cells among 6 numbers: row 2 (line 3) "12abc", row 4 (line 5) "n.d.", row 5 (line 6) "Inf", row 8 (line 9) "0x10" (infinite values are not accepted; "n.d." says the value is below a limit without giving it: to read such cells as censored, give the column's limit when loading, loadTable(source, { detectionLimits: { "weight": 0.5 } }) with your limit in place of 0.5); correct the source, add the tokens to the missing list, or pass { dropText: true } to leave them out`,
     );
     assert.equal(e.detail?.count, 4);
     return true;
@@ -135,6 +135,9 @@ Deno.test("tables and numeric columns serialise to plain JSON", async () => {
       originalName: "x",
       rowsRead: 2,
       numbers: 1,
+      censoredLeft: 0,
+      censoredRight: 0,
+      censoredLimits: [],
       missing: 1,
       nonNumeric: 0,
       nonNumericCells: [],

@@ -64,6 +64,21 @@ const cellArb = fc.oneof(
   { weight: 4, arbitrary: fc.double({ noNaN: true, noDefaultInfinity: true }).map(String) },
   { weight: 3, arbitrary: fc.integer({ min: -1e6, max: 1e6 }).map(String) },
   { weight: 1, arbitrary: fc.constantFrom("", "NA", "N/A", "null", "NaN", "-", ".", " ", "1,5") },
+  {
+    weight: 1,
+    arbitrary: fc.constantFrom(
+      "<0.5",
+      "< 2",
+      ">1000",
+      "≤1,5",
+      "≥ 3",
+      "<=4",
+      ">=-1",
+      "<",
+      "<<2",
+      "ND",
+    ),
+  },
   { weight: 2, arbitrary: fc.string({ unit: "binary", maxLength: 12 }) },
   {
     weight: 2,
@@ -159,11 +174,18 @@ function _check(o: _Outcome, input: string, what: string): void {
     assert.ok(c.name.length > 0, `${what}: empty column name`);
     assert.ok(t.has(c.name), `${what}: has(${JSON.stringify(c.name)})`);
     const p = c.provenance;
-    assert.equal(p.numbers + p.missing + p.nonNumeric, t.rowCount, `${what}: cell counts`);
+    const censored = p.censoredLeft + p.censoredRight;
+    assert.equal(
+      p.numbers + censored + p.missing + p.nonNumeric,
+      t.rowCount,
+      `${what}: cell counts`,
+    );
     if (c.kind === "numeric") {
       const col = t.numeric(c.name, { dropText: true });
       assert.ok(col.values.every(Number.isFinite), `${what}: numeric values finite`);
-      assert.equal(col.values.length, p.numbers, `${what}: numbers used`);
+      assert.equal(col.values.length, p.numbers + censored, `${what}: numbers used`);
+      const sides = col.censor === undefined ? 0 : col.censor.filter((x) => x !== 0).length;
+      assert.equal(sides, censored, `${what}: censored values flagged`);
     }
   }
 }
@@ -183,7 +205,13 @@ async function _load(f: () => Promise<Table> | Table): Promise<_Outcome> {
 
 function _summary(o: _Outcome): string {
   if (!o.ok) return `error ${o.error.code}`;
-  return JSON.stringify([o.table.rowCount, o.table.columns.map((c) => [c.name, c.kind])]);
+  return JSON.stringify([
+    o.table.rowCount,
+    o.table.columns.map((c) => {
+      const p = c.provenance;
+      return [c.name, c.kind, p.numbers, p.censoredLeft, p.censoredRight, p.missing, p.nonNumeric];
+    }),
+  ]);
 }
 
 /** Load `bytes` as text and from a temporary file; check both and time each. */
