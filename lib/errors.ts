@@ -36,7 +36,9 @@ export type PlumbErrorCode =
   /** A tool plumbline needs at run time (the PNG renderer or its font) could not be loaded. */
   | "unavailable"
   /** Values recorded below or above a limit where a method needs measured values. */
-  | "censored";
+  | "censored"
+  /** A file type (by its extension) that this display cannot be saved as. */
+  | "unsupported-format";
 
 /**
  * An error raised by plumbline for input it cannot use.
