@@ -9,6 +9,8 @@ import * as vega from "../_deps/vega.ts";
 import { compile } from "../_deps/vega_lite.ts";
 import type { TopLevelSpec } from "../_deps/vega_lite.ts";
 import { _xmlChars, escapeHtml } from "./escape.ts";
+import { fitTextLengths } from "./svg_text.ts";
+import { withTextLimits } from "./text_limits.ts";
 import { vegaTextWidth } from "./text_width.ts";
 
 // Without a canvas vega estimates 0.8 em per character, which makes charts
@@ -66,13 +68,13 @@ function _logger(sink: string[] | undefined) {
 export async function renderSvg(spec: TopLevelSpec, options: RenderOptions = {}): Promise<string> {
   const logger = _logger(options.warnings);
   // deno-lint-ignore no-explicit-any
-  const vgSpec = compile(spec, { logger: logger as any }).spec;
+  const vgSpec = compile(withTextLimits(spec), { logger: logger as any }).spec;
   // deno-lint-ignore no-explicit-any
   const view = new vega.View(vega.parse(vgSpec), { renderer: "none", logger: logger as any });
   try {
     // vega escapes markup in text but passes control characters through: an
     // SVG must stay well-formed XML whatever a name holds.
-    return _xmlChars(_compactSvg(await view.toSVG()));
+    return _xmlChars(fitTextLengths(_compactSvg(await view.toSVG())));
   } finally {
     view.finalize();
   }

@@ -4,114 +4,37 @@
  * so titles and axis labels make charts wider and taller than they are;
  * this estimate uses per-character advance widths instead.
  *
- * Widths are the advance widths of Helvetica in thousandths of an em, as in
- * Adobe's published font metrics for the standard PostScript fonts (values
- * from memory, to the nearest unit), scaled by 1.08 because the sans-serif
- * fonts found on Linux (DejaVu Sans, Liberation Sans) run a little wider;
- * bold adds 6%. Characters outside ASCII count as 0.6 em. The estimate errs
- * slightly wide, so text is never clipped.
+ * Widths are the advance widths of Arimo, regular and bold (the font the PNG
+ * raster draws with; it has Arial's metrics, which browsers get from Arial,
+ * Helvetica or Liberation Sans, the first families charts ask for), read
+ * from the font files by tools/fonts/make_glyph_widths.ts into
+ * _glyph_widths.ts for 631 characters (ASCII, Latin-1, Latin Extended-A,
+ * Greek, punctuation, super- and subscripts, arrows, mathematical operators).
+ * Other characters count as 0.6 em, or 1 em from U+2E80 on (CJK and wider
+ * scripts, emoji). The PNG raster draws text at exactly these widths; in an
+ * SVG, every line carries its measured width as `textLength` (svg_text.ts),
+ * so a viewer with a wider fallback font (DejaVu Sans) fits it too.
  *
  * @module
  */
+import { GLYPH_WIDTHS } from "./_glyph_widths.ts";
 
-// Advance widths for ASCII 32…126, thousandths of an em (Helvetica).
-const _W = [
-  278,
-  278,
-  355,
-  556,
-  556,
-  889,
-  667,
-  191,
-  333,
-  333,
-  389,
-  584,
-  278,
-  333,
-  278,
-  278, // space … /
-  556,
-  556,
-  556,
-  556,
-  556,
-  556,
-  556,
-  556,
-  556,
-  556, // 0 … 9
-  278,
-  278,
-  584,
-  584,
-  584,
-  556,
-  1015, // : ; < = > ? @
-  667,
-  667,
-  722,
-  722,
-  667,
-  611,
-  778,
-  722,
-  278,
-  500,
-  667,
-  556,
-  833, // A … M
-  722,
-  778,
-  667,
-  778,
-  722,
-  667,
-  611,
-  722,
-  667,
-  944,
-  667,
-  667,
-  611, // N … Z
-  278,
-  278,
-  278,
-  469,
-  556,
-  333, // [ \ ] ^ _ `
-  556,
-  556,
-  500,
-  556,
-  556,
-  278,
-  556,
-  556,
-  222,
-  222,
-  500,
-  222,
-  833, // a … m
-  556,
-  556,
-  556,
-  556,
-  333,
-  500,
-  278,
-  556,
-  500,
-  722,
-  500,
-  500,
-  500, // n … z
-  334,
-  260,
-  334,
-  584, // { | } ~
-];
+function _advance(c: number, bold: boolean): number {
+  for (const [first, regular, heavy] of GLYPH_WIDTHS) {
+    const k = c - first;
+    if (k >= 0 && k < regular.length) {
+      const w = (bold ? heavy : regular)[k];
+      if (w > 0) return w;
+      break;
+    }
+  }
+  return c >= 0x2e80 ? 1000 : 600;
+}
+
+// ASCII is by far the commonest case: look it up directly.
+const _ASCII = [false, true].map((bold) =>
+  Float64Array.from({ length: 95 }, (_, k) => _advance(k + 32, bold))
+);
 
 /**
  * The estimated width in pixels of `text` at `fontSize`, optionally bold.
@@ -123,12 +46,13 @@ const _W = [
  * ```
  */
 export function textWidth(text: string, fontSize: number, bold = false): number {
+  const ascii = _ASCII[bold ? 1 : 0];
   let units = 0;
   for (const ch of text) {
     const c = ch.codePointAt(0)!;
-    units += c >= 32 && c <= 126 ? _W[c - 32] : 600;
+    units += c >= 32 && c <= 126 ? ascii[c - 32] : _advance(c, bold);
   }
-  return (units / 1000) * fontSize * 1.08 * (bold ? 1.06 : 1);
+  return (units / 1000) * fontSize;
 }
 
 /** Vega's scenegraph item, as far as text measurement needs it. */

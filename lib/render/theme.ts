@@ -42,7 +42,9 @@ export const PANEL = Object.freeze({ width: 320, height: 260, small: 200 });
 export const CHART_CONFIG: Config = Object.freeze({
   background: PALETTE.background,
   padding: 10,
-  font: "sans-serif",
+  // Arimo is the font the PNG raster draws with; Arial, Helvetica and Liberation Sans share
+  // its advance widths, which text_width.ts measures chart text with.
+  font: "Arimo, Arial, Helvetica, Liberation Sans, sans-serif",
   view: { stroke: "#bbbbbb" },
   title: {
     anchor: "start",
