@@ -9,7 +9,7 @@ function randomImage(width: number, height: number, opaque: boolean, seed: numbe
   const u = seededRandom(seed);
   const px = new Uint8Array(width * height * 4);
   for (let i = 0; i < px.length; i++) {
-    // Runs of equal bytes and noise, so that every filter type gets chosen somewhere.
+    // Runs of equal bytes and noise.
     px[i] = i % 4 === 3 && opaque ? 255 : (i % 97 < 40 ? 200 : u.integer(256));
   }
   return px;
