@@ -1,0 +1,88 @@
+/**
+ * A chart drawn once for every viewer: the accessible static SVG (for files
+ * and slides) and its PNG raster, shown in HTML as an `<img>` with the PNG
+ * inline as a data URL.
+ *
+ * Why an `<img>` and not the inline SVG: a notebook a colleague did not run
+ * opens untrusted, and Jupyter's sanitiser then removes every `<svg>` (and
+ * every style) from HTML outputs but keeps `<img>` with its `src`, `width`,
+ * `height` and `alt`; the classic page renders no Vega-Lite. Code hosts and
+ * exported pages show the same picture. Front ends that run Vega-Lite keep
+ * the interactive spec beside it in the bundle (chart_bundle.ts).
+ *
+ * @module
+ */
+import { Buffer } from "node:buffer";
+import type { TopLevelSpec } from "../_deps/vega_lite.ts";
+import { escapeHtml } from "./escape.ts";
+import { type Raster, rasterize } from "./raster.ts";
+import { accessibleSvg, renderSvg } from "./svg.ts";
+
+/** A chart drawn as SVG and PNG. */
+export interface DrawnChart {
+  /** Short name of the chart. */
+  readonly title: string;
+  /** What it shows, in sentences. */
+  readonly description: string;
+  /** The static SVG, with `role="img"`, `<title>` and `<desc>`. */
+  readonly svg: string;
+  /** The PNG (2×) and the size to show it at. */
+  readonly raster: Raster;
+}
+
+/**
+ * Draw a spec as SVG and PNG.
+ *
+ * @param spec a Vega-Lite 5 spec with inline data
+ * @param meta the chart's title and description (for `<title>`/`<desc>`, the
+ *   PNG's text chunks and the `<img>`'s alt text)
+ * @example
+ * ```ts
+ * import { drawChart } from "./chart_image.ts";
+ * const c = await drawChart(
+ *   { data: { values: [{ a: 1 }] }, mark: "tick", encoding: { x: { field: "a", type: "quantitative" } } },
+ *   { title: "One tick", description: "A single tick at 1." },
+ * );
+ * if (!c.svg.includes("<desc") || c.raster.png[1] !== 0x50) throw new Error("drawn");
+ * ```
+ */
+export async function drawChart(
+  spec: TopLevelSpec,
+  meta: { readonly title: string; readonly description: string },
+): Promise<DrawnChart> {
+  const svg = accessibleSvg(await renderSvg(spec), meta);
+  const raster = await rasterize(svg, meta);
+  return Object.freeze({ title: meta.title, description: meta.description, svg, raster });
+}
+
+/** The PNG as a `data:` URL. */
+export function pngDataUrl(png: Uint8Array): string {
+  return `data:image/png;base64,${
+    Buffer.from(png.buffer, png.byteOffset, png.length).toString("base64")
+  }`;
+}
+
+/**
+ * The chart as HTML: a `<div class="plumbline-chart">` holding an `<img>` of
+ * the PNG at its CSS size, with the title and description as alt text.
+ *
+ * @param chart a drawn chart
+ * @example
+ * ```ts
+ * import { chartImageHtml, drawChart } from "./chart_image.ts";
+ * const c = await drawChart(
+ *   { data: { values: [{ a: 1 }] }, mark: "tick", encoding: { x: { field: "a", type: "quantitative" } } },
+ *   { title: "One tick", description: "A single tick at 1." },
+ * );
+ * const html = chartImageHtml(c);
+ * if (!/^<div class="plumbline-chart"[^>]*><img src="data:image\/png;base64,/.test(html)) throw new Error(html);
+ * ```
+ */
+export function chartImageHtml(chart: DrawnChart): string {
+  const { width, height } = chart.raster;
+  const alt = escapeHtml(`${chart.title}. ${chart.description}`);
+  return `<div class="plumbline-chart" style="display:inline-block;max-width:100%;` +
+    `overflow-x:auto;background:#ffffff;border-radius:4px;line-height:0">` +
+    `<img src="${pngDataUrl(chart.raster.png)}" width="${width}" height="${height}" ` +
+    `alt="${alt}" title="${escapeHtml(chart.title)}" style="max-width:100%;height:auto"></div>`;
+}
