@@ -10,11 +10,7 @@ import { Buffer } from "node:buffer";
 import { Browser } from "../tools/notebooks/_cdp.ts";
 import { ClassicServer } from "../tools/notebooks/classic_server.ts";
 import { missingClassicTools, skipUnless } from "../tools/notebooks/requirements.ts";
-import {
-  checkClassicUntrusted,
-  checkExportNoJs,
-  expectedCharts,
-} from "../tools/notebooks/viewer_check.ts";
+import { checkClassic, checkExportNoJs, expectedCharts } from "../tools/notebooks/viewer_check.ts";
 import { rasterize } from "../lib/render/raster.ts";
 
 const skip = skipUnless("Viewer checks", missingClassicTools());
@@ -93,7 +89,7 @@ Deno.test("expectedCharts reads the charts and their sizes from stored outputs",
 
 Deno.test({
   name:
-    "viewer checks: untrusted classic page and JavaScript-free export, judged picture by picture",
+    "viewer checks: classic page untrusted and trusted, JavaScript-free export, judged picture by picture",
   ignore: skip,
   async fn() {
     const root = await Deno.makeTempDir({ prefix: "plumbline_viewers_test_" });
@@ -102,7 +98,7 @@ Deno.test({
     const browser = await Browser.launch();
     const server = await ClassicServer.start(root);
     try {
-      const classic = await checkClassicUntrusted(browser, server, "planted.ipynb", out);
+      const classic = await checkClassic(browser, server, "planted.ipynb", out);
       console.log(`screenshot: ${classic.screenshot}`);
       assert.equal(classic.trusted, false);
       assert.deepEqual(classic.charts.map((c) => c.shown !== undefined), [
@@ -115,6 +111,24 @@ Deno.test({
       assert.equal(classic.chartOutputs, 5);
       assert.equal(classic.visibleOutputs, 2);
       assert.match(classic.problems.join("\n"), /^3 of 5 charts do not show/);
+
+      const trustedRoot = await Deno.makeTempDir({ prefix: "plumbline_viewers_trusted_" });
+      await plantedNotebook(`${trustedRoot}/planted.ipynb`);
+      const trustedServer = await ClassicServer.start(trustedRoot, { trusted: true });
+      try {
+        const trusted = await checkClassic(browser, trustedServer, "planted.ipynb", out);
+        assert.equal(trusted.trusted, true);
+        assert.deepEqual(trusted.charts.map((c) => c.shown?.element ?? "none"), [
+          "svg", // not sanitised when trusted
+          "img",
+          "img",
+          "none",
+          "none",
+        ]);
+      } finally {
+        await trustedServer.stop();
+        await Deno.remove(trustedRoot, { recursive: true }).catch(() => {});
+      }
 
       const exported = await checkExportNoJs(browser, `${root}/planted.ipynb`, out);
       console.log(`screenshot: ${exported.screenshot}`);

@@ -1,10 +1,13 @@
 /**
  * The classic Jupyter Notebook page (Debian's `python3-notebook`) served on
  * loopback for the viewer checks: started on a free port with a fresh random
- * token, a throw-away configuration and runtime folder, and an in-memory
- * trust database, so every notebook it serves opens **untrusted**, as it does
- * for a colleague who did not run it. Stopped (with every kernel it started)
- * by {@linkcode ClassicServer.stop}.
+ * token, a throw-away configuration and runtime folder, and its own trust
+ * database. By default that database is empty and in memory, so every
+ * notebook it serves opens **untrusted**, as it does for a colleague who did
+ * not run it; with `trusted: true` every notebook in the folder is signed
+ * first (`python3 -m nbformat.sign`, a fresh key), so it opens trusted, as it
+ * does for the person who ran it. Stopped (with every kernel it started) by
+ * {@linkcode ClassicServer.stop}.
  *
  * @module
  */
@@ -17,6 +20,8 @@ export interface ClassicServerOptions {
   python?: string;
   /** How long to wait for the server to answer, in milliseconds. @default 60000 */
   timeoutMs?: number;
+  /** Sign every notebook in the folder first, so that each opens trusted. @default false */
+  trusted?: boolean;
 }
 
 /** A running classic Notebook server on 127.0.0.1. */
@@ -25,6 +30,8 @@ export class ClassicServer {
   readonly origin: string;
   /** The folder the server serves. */
   readonly root: string;
+  /** Whether the notebooks were signed, so that they open trusted. */
+  readonly trusted: boolean;
   readonly #token: string;
   readonly #child: Deno.ChildProcess;
   readonly #scratch: string;
@@ -32,12 +39,14 @@ export class ClassicServer {
   private constructor(
     origin: string,
     root: string,
+    trusted: boolean,
     token: string,
     child: Deno.ChildProcess,
     scratch: string,
   ) {
     this.origin = origin;
     this.root = root;
+    this.trusted = trusted;
     this.#token = token;
     this.#child = child;
     this.#scratch = scratch;
@@ -48,8 +57,28 @@ export class ClassicServer {
    * server answers.
    */
   static async start(root: string, options: ClassicServerOptions = {}): Promise<ClassicServer> {
-    const { python = PYTHON, timeoutMs = 60_000 } = options;
+    const { python = PYTHON, timeoutMs = 60_000, trusted = false } = options;
     const scratch = await Deno.makeTempDir({ prefix: "plumbline_classic_" });
+    const notary = trusted
+      ? [
+        `--NotebookNotary.db_file=${scratch}/signatures.db`,
+        `--NotebookNotary.secret_file=${scratch}/secret`,
+      ]
+      : ["--NotebookNotary.db_file=:memory:"];
+    if (trusted) {
+      const notebooks = [...Deno.readDirSync(root)]
+        .filter((e) => e.isFile && e.name.endsWith(".ipynb"))
+        .map((e) => `${root}/${e.name}`);
+      const signed = await new Deno.Command(python, {
+        args: ["-m", "nbformat.sign", ...notary, ...notebooks],
+        stdout: "null",
+        stderr: "piped",
+      }).output();
+      if (!signed.success) {
+        await Deno.remove(scratch, { recursive: true }).catch(() => {});
+        throw new Error(`Cannot sign the notebooks: ${new TextDecoder().decode(signed.stderr)}`);
+      }
+    }
     const listener = Deno.listen({ hostname: "127.0.0.1", port: 0 });
     const port = (listener.addr as Deno.NetAddr).port;
     listener.close();
@@ -66,8 +95,7 @@ export class ClassicServer {
         `--notebook-dir=${root}`,
         `--NotebookApp.token=${token}`,
         "--NotebookApp.password=",
-        // Nothing is trusted: a fresh, in-memory signature database.
-        "--NotebookNotary.db_file=:memory:",
+        ...notary,
       ],
       env: {
         JUPYTER_CONFIG_DIR: `${scratch}/config`,
@@ -88,7 +116,7 @@ export class ClassicServer {
       }
     })().catch(() => {});
     const origin = `http://127.0.0.1:${port}`;
-    const server = new ClassicServer(origin, root, token, child, scratch);
+    const server = new ClassicServer(origin, root, trusted, token, child, scratch);
     const deadline = Date.now() + timeoutMs;
     for (;;) {
       try {

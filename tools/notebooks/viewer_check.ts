@@ -5,6 +5,8 @@
  * - `classic-untrusted`: the classic Jupyter Notebook page (Debian `python3-notebook`),
  *   served on loopback by {@linkcode ClassicServer}, where every notebook opens untrusted
  *   (its HTML is sanitised: `<svg>` and styles removed);
+ * - `classic-trusted`: the same page with the notebooks signed first, as for the person
+ *   who ran them (HTML shown as it is; the page renders no Vega-Lite);
  * - `export-no-js`: Jupyter's own HTML export (`jupyter nbconvert --to html`, the stock
  *   template) opened with JavaScript disabled.
  *
@@ -25,7 +27,7 @@ import { decodePng, inkFraction } from "./png_read.ts";
 import { JUPYTER } from "./requirements.ts";
 
 /** The viewers checked. */
-export type Viewer = "classic-untrusted" | "export-no-js";
+export type Viewer = "classic-untrusted" | "classic-trusted" | "export-no-js";
 
 /** A chart the stored notebook holds, with the size it should show at. */
 export interface ExpectedChart {
@@ -216,10 +218,10 @@ function _summarise(
 const _VIEWPORT = { width: 1400, height: 1000 };
 
 /**
- * Opens each notebook (a path under `server.root`) untrusted in the classic Notebook page
- * and reports which charts show.
+ * Opens a notebook (a path under `server.root`) in the classic Notebook page — untrusted,
+ * or trusted when the server signed its notebooks — and reports which charts show.
  */
-export async function checkClassicUntrusted(
+export async function checkClassic(
   browser: Browser,
   server: ClassicServer,
   notebook: string,
@@ -241,9 +243,15 @@ export async function checkClassicUntrusted(
         `s.style.height = "auto"; s.style.overflow = "visible"; ` +
         `document.body.style.overflow = "visible"; })()`,
     );
-    const screenshot = await page.screenshot(`${outDir}/${_stem(notebook)}.classic.png`);
-    const problems = trusted ? ["The classic page opened the notebook as trusted"] : [];
-    return { ..._summarise("classic-untrusted", notebook, charts, screenshot, problems), trusted };
+    const kind = server.trusted ? "trusted" : "untrusted";
+    const screenshot = await page.screenshot(`${outDir}/${_stem(notebook)}.classic-${kind}.png`);
+    const problems = trusted === server.trusted
+      ? []
+      : [`The classic page opened the notebook as ${trusted ? "trusted" : "untrusted"}`];
+    return {
+      ..._summarise(`classic-${kind}`, notebook, charts, screenshot, problems),
+      trusted,
+    };
   } finally {
     await page.close();
   }
@@ -304,14 +312,18 @@ async function _main(args: string[]): Promise<number> {
   // Serve copies, so that nothing the page does can touch the notebooks themselves.
   const root = await Deno.makeTempDir({ prefix: "plumbline_served_" });
   for (const nb of notebooks) await Deno.copyFile(nb, `${root}/${_stem(nb)}.ipynb`);
+  const trustedRoot = await Deno.makeTempDir({ prefix: "plumbline_served_trusted_" });
+  for (const nb of notebooks) await Deno.copyFile(nb, `${trustedRoot}/${_stem(nb)}.ipynb`);
   const browser = await Browser.launch();
   const server = await ClassicServer.start(root);
+  const trustedServer = await ClassicServer.start(trustedRoot, { trusted: true });
   let failed = 0;
   try {
     for (const nb of notebooks) {
       for (
         const report of [
-          await checkClassicUntrusted(browser, server, `${_stem(nb)}.ipynb`, outDir),
+          await checkClassic(browser, server, `${_stem(nb)}.ipynb`, outDir),
+          await checkClassic(browser, trustedServer, `${_stem(nb)}.ipynb`, outDir),
           await checkExportNoJs(browser, nb, outDir),
         ]
       ) {
@@ -326,8 +338,10 @@ async function _main(args: string[]): Promise<number> {
     }
   } finally {
     await server.stop();
+    await trustedServer.stop();
     await browser.close();
     await Deno.remove(root, { recursive: true }).catch(() => {});
+    await Deno.remove(trustedRoot, { recursive: true }).catch(() => {});
   }
   return failed === 0 ? 0 : 1;
 }
