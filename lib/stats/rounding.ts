@@ -1,0 +1,83 @@
+/**
+ * Whether rounding is coarse enough, against the spread and at this sample
+ * size, to make Shapiro–Wilk reject a normal sample by itself.
+ *
+ * Ties matter through the measurement step h against the standard
+ * deviation s, not through the share of distinct values: glucose to 0.01
+ * mmol/L with s = 0.48 has many repeated values at n = 600 yet is recorded
+ * finely enough; the same data rounded to 0.5 are not. Grouping distorts
+ * order-statistic tests more as n grows (Royston 1989, "Correcting the
+ * Shapiro–Wilk W for ties", Journal of Statistical Computation and
+ * Simulation 31:237–249, treats the same effect; from memory), so the
+ * acceptable h/s shrinks with n.
+ *
+ * The limit is plumbline's own seeded simulation (`tools/sim/rounding_limit.ts`,
+ * 2,000 samples per cell): normal samples rounded to h = (c/√n)·σ (with a
+ * random grid offset), Shapiro–Wilk at the 5% level. The rejection rate
+ * crosses 10% (twice the nominal rate) at c between about 1.4 (n = 10) and
+ * 2.3 (n = 5,000), but at c ≈ 0.7–0.8 (h/σ ≈ 0.36) for n = 4 and 5; the
+ * limit used is h/s ≤ min(0.35, 1.4/√n), at or below the crossing at every
+ * n from 4 on, with n capped at 5,000 because Shapiro–Wilk never sees more
+ * values than that. At n = 3 a single tie gives W its minimum 3/4 and
+ * p = 0, so the limit there is 0.05 (the table is in README).
+ *
+ * @module
+ */
+
+/** The coarseness verdict of a step, as frozen plain data. */
+export interface RoundingJudgement {
+  /** The measurement step, or `null` when the values are not on a grid. */
+  readonly step: number | null;
+  /** step / sd (0 without a step). */
+  readonly ratio: number;
+  /** The largest ratio that rounding alone tolerates at this n. */
+  readonly limit: number;
+  /** Whether the step is large against the spread at this n. */
+  readonly coarse: boolean;
+}
+
+/** Rounding limit constant c in c/√n (tools/sim/rounding_limit.ts). */
+export const ROUNDING_LIMIT_C = 1.4;
+/** The limit's cap, which binds below 16 values (tools/sim/rounding_limit.ts, n = 4 … 10). */
+export const ROUNDING_LIMIT_SMALL_N = 0.35;
+/** The limit at n = 3, where one tie alone gives W its minimum 3/4 and p = 0. */
+export const ROUNDING_LIMIT_THREE = 0.05;
+
+/**
+ * The largest step/sd ratio at which rounding alone keeps Shapiro–Wilk's
+ * false-alarm rate at or below 10%, for a sample of n.
+ *
+ * @param n the sample size (Shapiro–Wilk sees at most 5,000 of them)
+ *
+ * @example
+ * ```ts
+ * import { roundingLimit } from "./rounding.ts";
+ * if (Math.abs(roundingLimit(400) - 0.07) > 1e-15 || roundingLimit(1e6) !== roundingLimit(5000)) throw new Error("limit");
+ * ```
+ */
+export function roundingLimit(n: number): number {
+  if (n <= 3) return ROUNDING_LIMIT_THREE;
+  return Math.min(ROUNDING_LIMIT_SMALL_N, ROUNDING_LIMIT_C / Math.sqrt(Math.min(n, 5000)));
+}
+
+/**
+ * Judge a measurement step against the spread.
+ *
+ * @param step the step (from `measurementStep`), or `null`
+ * @param sd the sample standard deviation
+ * @param n the sample size
+ *
+ * @example
+ * ```ts
+ * import { judgeRounding } from "./rounding.ts";
+ * // glucose recorded to 0.01 mmol/L, sd 0.48, n = 600: fine
+ * if (judgeRounding(0.01, 0.48, 600).coarse) throw new Error("0.01 is fine");
+ * // the same rounded to 0.5: coarse
+ * if (!judgeRounding(0.5, 0.48, 600).coarse) throw new Error("0.5 is coarse");
+ * ```
+ */
+export function judgeRounding(step: number | null, sd: number, n: number): RoundingJudgement {
+  const limit = roundingLimit(n);
+  const ratio = step === null || !(sd > 0) ? 0 : step / sd;
+  return Object.freeze({ step, ratio, limit, coarse: ratio > limit });
+}
