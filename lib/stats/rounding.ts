@@ -14,12 +14,13 @@
  * The limit is plumbline's own seeded simulation (`tools/sim/rounding_limit.ts`,
  * 2,000 samples per cell): normal samples rounded to h = (c/√n)·σ (with a
  * random grid offset), Shapiro–Wilk at the 5% level. The rejection rate
- * crosses 10% (twice the nominal rate) at c between about 1.4 (n = 10) and
- * 2.3 (n = 5,000), but at c ≈ 0.7–0.8 (h/σ ≈ 0.36) for n = 4 and 5; the
- * limit used is h/s ≤ min(0.35, 1.4/√n), at or below the crossing at every
- * n from 4 on, with n capped at 5,000 because Shapiro–Wilk never sees more
- * values than that. At n = 3 a single tie gives W its minimum 3/4 and
- * p = 0, so the limit there is 0.05 (the table is in README).
+ * crosses 10% (twice the nominal rate) at c ≈ 1.3 for n = 8–10, rising to
+ * c ≈ 2.4 at n = 5,000; in h/σ terms the crossing is 0.34–0.45 for n = 4 to
+ * 20. The limit used is h/s ≤ min(0.35, 1.4/√n), at or within noise of the
+ * crossing at every n from 4 on, with n capped at 5,000 because
+ * Shapiro–Wilk never sees more values than that. At n = 3 a single tie
+ * gives W its minimum 3/4 and p = 0 (the crossing is h/σ ≈ 0.12), so the
+ * limit there is 0.05. The table is in README.
  *
  * @module
  */
