@@ -159,15 +159,25 @@ export function _fitLambda(
       absoluteTolerance: 1e-13,
     }).x;
   }
-  if (atEnd) {
-    notes.push(
-      `The likelihood is largest at the end of the searched range (λ = ${lambda}); ` +
-        `the maximum may lie beyond it: a few values probably dominate the fit, so look at them ` +
-        `before widening the range`,
-    );
-  }
   const top = at(lambda);
   const hHat = top.h;
+  if (atEnd) {
+    // Flat: even the far end of the range stays inside the interval, so the data
+    // hardly prefer one power to another (a small spread relative to the values'
+    // own size makes every power nearly linear over them).
+    const far = fine.h(lambda === lo ? hi : lo);
+    const flat = Number.isFinite(far) && (far - hHat) * n <= cut;
+    notes.push(
+      flat
+        ? `The likelihood is largest at the end of the searched range (λ = ${lambda}), but it is ` +
+          `nearly flat across the whole range: every power from ${lo} to ${hi} fits almost equally ` +
+          `well, because the values vary little relative to their own size, so any power bends them ` +
+          `alike. λ is not determined by these data, and no re-expression changes their shape much`
+        : `The likelihood is largest at the end of the searched range (λ = ${lambda}); ` +
+          `the maximum may lie beyond it: a few values probably dominate the fit, so look at them ` +
+          `before widening the range`,
+    );
+  }
   if (!Number.isFinite(hHat)) {
     // ln var(z) = −∞: the transformed values are equal in double precision
     // (values a few bits apart) or their variance underflows (subnormal values).
