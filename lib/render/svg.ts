@@ -5,7 +5,7 @@
  *
  * @module
  */
-import * as vega from "../_deps/vega.ts";
+import vega from "../_deps/vega.ts";
 import { compile } from "../_deps/vega_lite.ts";
 import type { TopLevelSpec } from "../_deps/vega_lite.ts";
 import { _xmlChars, escapeHtml } from "./escape.ts";
@@ -15,6 +15,7 @@ import { vegaTextWidth } from "./text_width.ts";
 
 // Without a canvas vega estimates 0.8 em per character, which makes charts
 // wider and taller than their text; measure with per-character widths instead.
+// This changes plumbline's own copy of vega only (see lib/_deps/vega.ts).
 (vega as unknown as { textMetrics: { width: typeof vegaTextWidth } }).textMetrics.width =
   vegaTextWidth;
 
