@@ -6,6 +6,7 @@
  */
 import { tableFromCsv } from "../lib/data/csv_text.ts";
 import { tableFromMemory } from "../lib/data/in_memory.ts";
+import { uniqueNames } from "../lib/data/header.ts";
 import { numericCsv } from "./_numeric_csv.ts";
 
 const text = numericCsv(50_000, 10, 20260101);
@@ -36,4 +37,9 @@ Deno.bench("csv-parse reader, 50,000 × 10 numeric", { group: "csv" }, () => {
 Deno.bench("object of 10 Float64Array columns, 50,000 rows", { group: "memory" }, () => {
   const t = tableFromMemory(columns);
   for (const name of t.numericNames()) t.numeric(name);
+});
+
+const sameNames = new Array(100_000).fill("x");
+Deno.bench("100,000 identical header names made unique", { group: "header" }, () => {
+  uniqueNames(sameNames);
 });

@@ -142,14 +142,13 @@ Deno.test("regression: errors after a quoted field with a CRLF inside name the r
   assert.equal(line('a,b\r1,2\r3,"open\r'), 3, "unclosed quote with lone CR line ends");
 });
 
-Deno.test("regression: 100,000 copies of one header name are renamed in linear time", () => {
-  const t0 = performance.now();
+Deno.test("regression: 100,000 copies of one header name are all renamed, uniquely", () => {
+  // The rename was once quadratic (13 minutes here); its time is measured by
+  // bench/load_table_bench.ts ("100,000 identical header names").
   const { names } = uniqueNames(new Array(100_000).fill("x"));
-  const ms = performance.now() - t0;
   assert.equal(new Set(names).size, 100_000);
   assert.equal(names[1], "x_2");
   assert.equal(names[99_999], "x_100000");
-  assert.ok(ms < 2000, `${ms.toFixed(0)} ms`);
   assert.deepEqual(uniqueNames(["a", "a", "a_2", "a"]).names, ["a", "a_3", "a_2", "a_4"]);
 });
 
