@@ -31,11 +31,19 @@ export {
 export { sortFloat64 } from "./lib/numeric/sort.ts";
 export { loadTable, type LoadTableOptions, type TableSource } from "./lib/data/load_table.ts";
 export type { ColumnInfo, NumericColumn, Table, TextColumn } from "./lib/data/table.ts";
-export { Plumb, plumb, type PlumbOptions, type Sentence } from "./lib/plumb/plumb.ts";
-export { Survey, survey, type SurveyOptions } from "./lib/plumb/survey.ts";
-export { type GroupOptions, PlumbGroups } from "./lib/plumb/groups.ts";
-export type { Analysis, TestOutcome } from "./lib/plumb/analysis.ts";
-export type { Reading, Verdict } from "./lib/plumb/reading.ts";
+export { Plumb, plumb, type PlumbOptions } from "./lib/plumb/plumb.ts";
+export type { Sentence, SentenceOptions } from "./lib/plumb/sentence.ts";
+export { Survey, survey } from "./lib/plumb/survey.ts";
+export type { SurveyOptions, SurveyResult, SurveyRow } from "./lib/plumb/survey_screen.ts";
+export { PlumbGroups } from "./lib/plumb/groups.ts";
+export type { GroupOptions, GroupResult, GroupRow } from "./lib/plumb/group_screen.ts";
+export type { Analysis, SampleOrigin, Subsample, TestOutcome } from "./lib/results/analysis.ts";
+export {
+  type Reading,
+  type ReadingFacts,
+  type Verdict,
+  VERDICT_WORDS,
+} from "./lib/results/reading.ts";
 export type { ReexpressRequest } from "./lib/plumb/steps.ts";
 export { boxCoxFit } from "./lib/reexpress/box_cox_fit.ts";
 export { yeoJohnsonFit } from "./lib/reexpress/yeo_johnson_fit.ts";

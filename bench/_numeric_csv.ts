@@ -7,17 +7,7 @@
  * @module
  */
 
-/** Mulberry32, a small seeded 32-bit generator (Tommy Ettinger, public domain, from memory). */
-function _mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { seededRandom } from "../lib/numeric/random.ts";
 
 /**
  * Write the CSV text: column k holds values near 10·k with a spread of k,
@@ -29,7 +19,8 @@ function _mulberry32(seed: number): () => number {
  * @param full write every double in full instead of to four decimals
  */
 export function numericCsv(rows: number, cols: number, seed: number, full = false): string {
-  const next = _mulberry32(seed);
+  const rng = seededRandom(seed);
+  const next = () => rng.uniform();
   const header = Array.from({ length: cols }, (_, k) => `m${k + 1}`).join(",");
   const lines: string[] = [header];
   const cells: string[] = new Array(cols);

@@ -12,21 +12,12 @@ import { histogramSpec } from "../lib/render/histogram_spec.ts";
 import { qqSpec } from "../lib/render/qq_spec.ts";
 import { histogramData } from "../lib/stats/histogram_data.ts";
 import { qqData } from "../lib/stats/qq_data.ts";
+import { seededRandom } from "../lib/numeric/random.ts";
 
-/** Invented data: exp(1 + 0.5·Z), Z from xorshift32 and Box–Muller, seeded. */
+/** Invented data: exp(1 + 0.5·Z), Z seeded standard normals. */
 function sample(n: number): Float64Array {
-  let s = 2026;
-  const u = () => {
-    s ^= s << 13;
-    s ^= s >>> 17;
-    s ^= s << 5;
-    return ((s >>> 0) + 0.5) / 4294967296;
-  };
-  const out = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    out[i] = Math.exp(1 + 0.5 * Math.sqrt(-2 * Math.log(u())) * Math.cos(2 * Math.PI * u()));
-  }
-  return out;
+  const rng = seededRandom(2026);
+  return Float64Array.from({ length: n }, () => Math.exp(1 + 0.5 * rng.normal()));
 }
 
 for (const n of [1e3, 1e5, 1e6]) {

@@ -7,6 +7,7 @@
 import assert from "node:assert/strict";
 import fc from "fast-check";
 import { PlumbError } from "../lib/errors.ts";
+import { seededRandom } from "../lib/numeric/random.ts";
 
 /** Assert that `f` throws a PlumbError with this code and a message matching `message`. */
 export function assertPlumbError(f: () => unknown, code: string, message: RegExp): void {
@@ -40,4 +41,10 @@ export function assertFiniteFrozen(r: object & { readonly warnings?: readonly st
     if (typeof v === "number") assert.ok(Number.isFinite(v), `${k} finite`);
   }
   assert.ok(Object.isFrozen(r) && (r.warnings === undefined || Object.isFrozen(r.warnings)));
+}
+
+/** Seeded standard normals, from plumbline's one generator. */
+export function normalSample(n: number, seed: number): Float64Array {
+  const rng = seededRandom(seed);
+  return Float64Array.from({ length: n }, () => rng.normal());
 }

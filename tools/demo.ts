@@ -12,7 +12,7 @@ import { loadTable } from "../lib/data/load_table.ts";
 import { writeReport } from "../lib/plumb/report.ts";
 import { survey } from "../lib/plumb/survey.ts";
 import { proseP } from "../lib/plumb/sentence.ts";
-import { VERDICT_WORDS } from "../lib/plumb/reading.ts";
+import { VERDICT_WORDS } from "../lib/results/reading.ts";
 import { demoCsv } from "./make_demo_data.ts";
 
 const USAGE = `Usage: deno task demo [--out FILE]

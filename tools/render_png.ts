@@ -20,21 +20,13 @@ import { lambdaExplorerSpec } from "../lib/render/lambda_explorer_spec.ts";
 import { detrendedSpec, qqSpec } from "../lib/render/qq_spec.ts";
 import { histogramData } from "../lib/stats/histogram_data.ts";
 import { qqData } from "../lib/stats/qq_data.ts";
+import { seededRandom } from "../lib/numeric/random.ts";
 import { Browser } from "./notebooks/_cdp.ts";
 
-/** Invented data: standard normals from xorshift32 and Box–Muller, seeded. */
+/** Invented data: seeded standard normals. */
 function normals(n: number, seed: number): Float64Array {
-  let s = seed >>> 0 || 1;
-  const u = () => {
-    s ^= s << 13;
-    s ^= s >>> 17;
-    s ^= s << 5;
-    return ((s >>> 0) + 0.5) / 4294967296;
-  };
-  return Float64Array.from(
-    { length: n },
-    () => Math.sqrt(-2 * Math.log(u())) * Math.cos(2 * Math.PI * u()),
-  );
+  const rng = seededRandom(seed);
+  return Float64Array.from({ length: n }, () => rng.normal());
 }
 
 const boxCox = (x: Float64Array, l: number) =>

@@ -24,8 +24,8 @@ import {
 import { numericCells, numericColumn } from "./numeric_column.ts";
 import { textColumn } from "./text_column.ts";
 import { parseNumber } from "./number_parse.ts";
-import { DISPLAY } from "../render/display.ts";
-import { tableSummaryBundle } from "../render/table_summary.ts";
+import { DISPLAY } from "../results/display.ts";
+import { tableSummaryBundle } from "./table_display.ts";
 
 /** What a reader knows about the source besides its columns. */
 export interface _TableMeta {

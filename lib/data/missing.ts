@@ -25,35 +25,18 @@ export const DEFAULT_MISSING: readonly string[] = Object.freeze([
  * The empty cell is always missing, whatever the list says.
  *
  * @param tokens the tokens to treat as missing
- * @returns a set for {@linkcode isMissingToken}
+ * @returns the set of tokens, lower-cased and trimmed (a cell is missing when
+ *   its trimmed, lower-cased text is in it)
  *
  * @example
  * ```ts
- * import { isMissingToken, missingSet } from "./missing.ts";
+ * import { missingSet } from "./missing.ts";
  * const set = missingSet(["n.d."]);
- * if (!isMissingToken(" N.D. ", set) || isMissingToken("NA", set)) throw new Error("unexpected");
+ * if (!set.has("n.d.") || set.has("na") || !set.has("")) throw new Error("unexpected");
  * ```
  */
 export function missingSet(tokens: readonly string[] = DEFAULT_MISSING): ReadonlySet<string> {
   const set = new Set<string>([""]);
   for (const t of tokens) set.add(String(t).trim().toLowerCase());
   return set;
-}
-
-/**
- * Whether a cell's text is a missing-value token of `set`.
- *
- * @param text the cell as read
- * @param set a set from {@linkcode missingSet}
- *
- * @example
- * ```ts
- * import { isMissingToken, missingSet } from "./missing.ts";
- * if (!isMissingToken("na", missingSet()) || isMissingToken("0", missingSet())) {
- *   throw new Error("unexpected");
- * }
- * ```
- */
-export function isMissingToken(text: string, set: ReadonlySet<string>): boolean {
-  return set.has(text.trim().toLowerCase());
 }

@@ -1,11 +1,12 @@
 /**
  * The display of a loaded table: one row per column with its kind and the
- * counts of numbers, missing and text cells, and the first text cells by
- * row, so that mistyped entries are seen before any analysis.
+ * counts of numbers, censored, missing and text cells, the limits of the
+ * censored cells, and the first text cells by row, so that mistyped entries
+ * are seen before any analysis.
  *
  * @module
  */
-import type { TableSummary } from "./table.ts";
+import type { ColumnProvenance, TableSummary } from "./table.ts";
 import type { MimeBundle } from "../results/display.ts";
 import { plainText } from "../render/escape.ts";
 import { formatCount } from "../render/format.ts";
@@ -21,13 +22,16 @@ export function tableSummaryModel(t: TableSummary): TableModel {
     const more = p.nonNumeric > cells.length
       ? ` and ${formatCount(p.nonNumeric - cells.length)} more`
       : "";
-    const note = c.kind === "numeric" && p.nonNumeric > 0
+    const text = c.kind === "numeric" && p.nonNumeric > 0
       ? `text in a numeric column: ${cells.join("; ")}${more}`
       : (c as { hint?: string | null }).hint ?? "";
+    const censored = p.censoredLeft + p.censoredRight;
+    const note = [censored > 0 ? _limitsNote(p) : "", text].filter((x) => x !== "").join("; ");
     return [
       c.name,
       c.kind,
       formatCount(p.numbers),
+      formatCount(censored),
       formatCount(p.missing),
       formatCount(p.nonNumeric),
       note,
@@ -50,6 +54,7 @@ export function tableSummaryModel(t: TableSummary): TableModel {
       { title: "column" },
       { title: "kind" },
       { title: "numbers", align: "right" },
+      { title: "censored", align: "right" },
       { title: "missing", align: "right" },
       { title: "text", align: "right" },
       { title: "note" },
@@ -57,6 +62,19 @@ export function tableSummaryModel(t: TableSummary): TableModel {
     rows,
     notes,
   };
+}
+
+/** The censored cells by side and limit: `censored below 0.5 (50), 0.2 (2); above 1000 (1)`. */
+function _limitsNote(p: ColumnProvenance): string {
+  const side = (which: "below" | "above", total: number) => {
+    if (total === 0) return "";
+    const listed = p.censoredLimits.filter((l) => l.side === which);
+    const shown = listed.map((l) => `${l.limit} (${formatCount(l.count)})`).join(", ");
+    const rest = total - listed.reduce((k, l) => k + l.count, 0);
+    return `${which} ${shown}${rest > 0 ? ` and ${formatCount(rest)} at other limits` : ""}`;
+  };
+  const parts = [side("below", p.censoredLeft), side("above", p.censoredRight)];
+  return `censored ${parts.filter((x) => x !== "").join("; ")}`;
 }
 
 /**

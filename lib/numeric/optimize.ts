@@ -1,10 +1,10 @@
 /**
- * Bracketed one-dimensional minimisation and maximisation.
+ * Bracketed one-dimensional minimisation.
  *
  * @module
  */
 
-/** Options for {@linkcode minimizeInInterval} and {@linkcode maximizeInInterval}. */
+/** Options for {@linkcode minimizeInInterval}. */
 export interface ExtremumOptions {
   /**
    * Relative tolerance on the location. Brent advises no less than the square
@@ -152,27 +152,4 @@ export function minimizeInInterval(
     }
   }
   return Object.freeze({ x, value: fx, evaluations, converged });
-}
-
-/**
- * Find a local maximum of `f` inside `[lo, hi]`: {@linkcode minimizeInInterval}
- * applied to `−f` (same method, source and accuracy), reporting `f`'s value.
- *
- * @param f the function; NaN values are treated as −∞ (never chosen)
- * @param bounds the interval `[lo, hi]`
- * @param options tolerances and budget
- * @example
- * ```ts
- * import { maximizeInInterval } from "./optimize.ts";
- * const r = maximizeInInterval((x) => Math.sin(x), [0, 3]);
- * if (Math.abs(r.x - Math.PI / 2) > 1e-7) throw new Error("unexpected");
- * ```
- */
-export function maximizeInInterval(
-  f: (x: number) => number,
-  bounds: readonly [number, number],
-  options: ExtremumOptions = {},
-): Extremum {
-  const r = minimizeInInterval((t) => -f(t), bounds, options);
-  return Object.freeze({ ...r, value: -r.value });
 }

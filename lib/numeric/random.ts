@@ -75,3 +75,36 @@ export function seededRandom(seed: number): RandomStream {
 function _rotl(x: number, k: number): number {
   return (x << k) | (x >>> (32 - k));
 }
+
+/**
+ * A seeded random subsample of `size` values, without replacement, in the
+ * order drawn: the first `size` steps of a Fisher–Yates shuffle (Durstenfeld
+ * 1964, Communications of the ACM 7:420, Algorithm 235) driven by
+ * {@linkcode seededRandom}. The shuffled index array is kept sparse (only
+ * the positions the shuffle has touched), so the memory used grows with
+ * `size`, not with `x.length`. The same seed always draws the same values.
+ *
+ * @param x the values (not modified)
+ * @param size how many to draw, 0 ≤ size ≤ x.length
+ * @param seed the seed
+ * @example
+ * ```ts
+ * import { randomSubsample } from "./random.ts";
+ * const x = Float64Array.from({ length: 100 }, (_, i) => i);
+ * const a = randomSubsample(x, 10, 3);
+ * if (a.join() !== randomSubsample(x, 10, 3).join() || new Set(a).size !== 10) throw new Error("draw");
+ * ```
+ */
+export function randomSubsample(x: Float64Array, size: number, seed: number): Float64Array {
+  const rng = seededRandom(seed);
+  const moved = new Map<number, number>(); // position → index now there, where not the identity
+  const out = new Float64Array(size);
+  for (let i = 0; i < size; i++) {
+    const j = i + rng.integer(x.length - i);
+    const atJ = moved.get(j) ?? j;
+    moved.set(j, moved.get(i) ?? i);
+    moved.delete(i);
+    out[i] = x[atJ];
+  }
+  return out;
+}

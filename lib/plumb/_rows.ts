@@ -5,7 +5,7 @@
  *
  * @module
  */
-import type { MimeBundle } from "../render/display.ts";
+import type { MimeBundle } from "../results/display.ts";
 import { plainText } from "../render/escape.ts";
 import { formatNumber, formatP } from "../render/format.ts";
 import {
@@ -15,7 +15,7 @@ import {
   type TableModel,
   tableText,
 } from "../render/table.ts";
-import type { Analysis } from "./analysis.ts";
+import type { Analysis } from "../results/analysis.ts";
 
 /** Headings of the shared columns, for display. */
 export const SUMMARY_COLUMNS: readonly TableColumn[] = Object.freeze(
@@ -47,6 +47,19 @@ export function summaryValues(a: Analysis): number[] {
     a.primary.statistic,
     a.primary.pValue,
   ];
+}
+
+/**
+ * The table note for rows whose W and p come from a seeded subsample (the n
+ * column shows every value used), or `undefined` when no row was subsampled.
+ */
+export function subsampleNote(analyses: readonly Analysis[]): string | undefined {
+  const sub = analyses.filter((a) => a.subsample !== null);
+  if (sub.length === 0) return undefined;
+  const size = sub[0].subsample!.size;
+  return `W and p of ${sub.length === 1 ? "the row" : `the ${sub.length} rows`} with more than ` +
+    `${size} values come from a seeded random subsample of ${size} (the limit of Royston's ` +
+    `calibration); n and the other columns use every value.`;
 }
 
 /** `k` empty cells. */

@@ -6,71 +6,18 @@
  * @module
  */
 import { PlumbError } from "../errors.ts";
-import { seededRandom } from "../numeric/random.ts";
+import { randomSubsample } from "../numeric/random.ts";
 import { sortedCopy } from "../numeric/sort.ts";
 import { checkFinite, checkSize } from "../stats/_input.ts";
-import { _andersonDarlingSorted } from "../stats/anderson_darling.ts";
-import { _dagostinoPearsonOf, type DagostinoPearsonResult } from "../stats/dagostino_pearson.ts";
-import { _histogramDataSorted, type HistogramData } from "../stats/histogram_data.ts";
-import { _jarqueBeraOf } from "../stats/jarque_bera.ts";
-import { _lillieforsSorted } from "../stats/lilliefors.ts";
-import { _momentsOf, _sampleShape, type Moments } from "../stats/moments.ts";
-import { _qqDataSorted, type QqData, type QqOptions } from "../stats/qq_data.ts";
+import { NORMALITY_TESTS, type PreparedSample } from "../stats/battery.ts";
+import type { DagostinoPearsonResult } from "../stats/dagostino_pearson.ts";
+import { _histogramDataSorted } from "../stats/histogram_data.ts";
+import { _momentsOf, _sampleShape, type _Shape } from "../stats/moments.ts";
+import { _qqDataSorted, type QqOptions } from "../stats/qq_data.ts";
 import type { TestResult } from "../stats/result.ts";
-import { _shapiroFranciaSorted } from "../stats/shapiro_francia.ts";
-import { _shapiroWilkSorted, SHAPIRO_WILK_MAX_N, shapiroWilk } from "../stats/shapiro_wilk.ts";
-import { type Reading, readShape } from "./reading.ts";
-
-/** One test's outcome: its result, or why it was not run. */
-export interface TestOutcome {
-  /** The test's name. */
-  readonly test: string;
-  /** The result, when the test applies at this n. */
-  readonly result?: TestResult;
-  /** Why the test was not run (e.g. too few values), in words. */
-  readonly skipped?: string;
-}
-
-/** Where the analysed values came from and what was left out. */
-export interface SampleOrigin {
-  /** What is analysed, for titles: the column, its group and any re-expression. */
-  readonly label: string;
-  /** The column's name. */
-  readonly column: string;
-  /** The group's value, when the chain is split by a column. */
-  readonly group?: string;
-  /** The re-expression applied, in words (e.g. `"log(x)"`), if any. */
-  readonly transform?: string;
-  /** Missing cells left out. */
-  readonly missingDropped: number;
-  /** Text cells left out on request. */
-  readonly textDropped: number;
-  /** The source row (1-based data row) of each value, aligned with the values. */
-  readonly rows?: ArrayLike<number>;
-}
-
-/** Everything plumbline computes about one sample. */
-export interface Analysis {
-  /** Where the values came from. */
-  readonly origin: SampleOrigin;
-  /** Values analysed. */
-  readonly n: number;
-  /** Mean, sd, skewness and kurtosis with standard errors. */
-  readonly moments: Moments;
-  /**
-   * The Shapiro–Wilk result the verdict rests on (on a seeded subsample of
-   * 5000 when n > 5000; the result's warnings say so).
-   */
-  readonly primary: TestResult;
-  /** Every test, in a fixed order, run or skipped. */
-  readonly tests: readonly TestOutcome[];
-  /** The QQ plot's data (thinned for display when n is large). */
-  readonly qq: QqData;
-  /** The histogram and fitted normal curve. */
-  readonly histogram: HistogramData;
-  /** The shape in words. */
-  readonly reading: Reading;
-}
+import { SHAPIRO_WILK_MAX_N } from "../stats/shapiro_wilk.ts";
+import type { Analysis, SampleOrigin, Subsample, TestOutcome } from "../results/analysis.ts";
+import { readShape } from "./reading.ts";
 
 /** Options for {@linkcode analyse}. */
 export interface AnalyseOptions {
@@ -91,25 +38,6 @@ export const ANALYSE_MIN_N = 4;
 
 /** The name input errors give, as `moments()` would (the first step of the analysis). */
 const _MOMENTS = "the skewness and kurtosis summary";
-
-/**
- * A seeded random subsample of `size` values (partial Fisher–Yates shuffle).
- * The shuffled index array is kept sparse (only the positions the shuffle
- * has touched), so the memory used grows with `size`, not with `x.length`.
- */
-export function _subsample(x: Float64Array, size: number, seed: number): Float64Array {
-  const rng = seededRandom(seed);
-  const moved = new Map<number, number>(); // position → index now there, where not the identity
-  const out = new Float64Array(size);
-  for (let i = 0; i < size; i++) {
-    const j = i + rng.integer(x.length - i);
-    const atJ = moved.get(j) ?? j;
-    moved.set(j, moved.get(i) ?? i);
-    moved.delete(i);
-    out[i] = x[atJ];
-  }
-  return out;
-}
 
 function _run(name: string, f: () => TestResult): TestOutcome {
   try {
@@ -160,38 +88,45 @@ export function analyse(
   const shape = _sampleShape(values, _MOMENTS);
   const m = _momentsOf(n, shape);
   const sorted = sortedCopy(values);
+  let sortedShape: _Shape | undefined;
+  const prepared: PreparedSample = {
+    n,
+    values,
+    sorted,
+    shape,
+    sortedShape: () => (sortedShape ??= _sampleShape(sorted, _MOMENTS)),
+  };
+  // The battery's first test, Shapiro–Wilk, is the primary one.
+  const [first, ...others] = NORMALITY_TESTS;
   let primary: TestResult;
+  let subsample: Subsample | null = null;
   if (n > SHAPIRO_WILK_MAX_N) {
-    const sub = shapiroWilk(_subsample(values, SHAPIRO_WILK_MAX_N, options.seed ?? 1));
+    subsample = Object.freeze({ size: SHAPIRO_WILK_MAX_N, seed: options.seed ?? 1 });
+    const sub = first.run(randomSubsample(values, subsample.size, subsample.seed));
     primary = Object.freeze({
       ...sub,
-      n,
-      method:
-        `${sub.method}, on a seeded random subsample of ${SHAPIRO_WILK_MAX_N} of the ${n} values`,
+      method: `${sub.method}, on a seeded random subsample of ${subsample.size} of the ${n} values`,
       warnings: Object.freeze([
         `Shapiro–Wilk's p-value is calibrated for at most ${SHAPIRO_WILK_MAX_N} values, so W and p ` +
-        `come from a seeded random subsample of ${SHAPIRO_WILK_MAX_N}; the other tests use all ${n}`,
+        `come from a seeded random subsample of ${subsample.size}; the other tests use all ${n}`,
         ...sub.warnings,
       ]),
     });
   } else {
-    primary = _shapiroWilkSorted(sorted);
+    primary = first.runPrepared(prepared);
   }
-  const sortedShape = _sampleShape(sorted, _MOMENTS);
   const tests: TestOutcome[] = [
-    Object.freeze({ test: "Shapiro–Wilk", result: primary }),
-    _run("Shapiro–Francia", () => _shapiroFranciaSorted(sorted)),
-    _run("Anderson–Darling", () => _andersonDarlingSorted(sorted, sortedShape)),
-    _run("Lilliefors", () => _lillieforsSorted(sorted, sortedShape)),
-    _run("D'Agostino–Pearson", () => _dagostinoPearsonOf(n, shape)),
-    _run("Jarque–Bera", () => _jarqueBeraOf(n, shape)),
+    Object.freeze({ test: first.name, result: primary }),
+    ...others.map((t) => _run(t.name, () => t.runPrepared(prepared))),
   ];
   const qqOptions: QqOptions = origin.rows
     ? { ...options.qq, rows: origin.rows }
     : { ...options.qq };
   const qq = _qqDataSorted(values, sorted, shape, qqOptions);
-  const histogram = _histogramDataSorted(values, sorted);
-  const k2 = tests[4].result as DagostinoPearsonResult | undefined;
+  const histogram = _histogramDataSorted(values, sorted, shape);
+  const k2 = tests.find((t) => t.test === "D'Agostino–Pearson")?.result as
+    | DagostinoPearsonResult
+    | undefined;
   const reading = readShape({
     n,
     moments: m,
@@ -200,12 +135,14 @@ export function analyse(
     qq,
     sortedSample: sorted,
     values,
+    subsample,
   });
   return Object.freeze({
     origin: Object.freeze({ ...origin, rows: undefined }),
     n,
     moments: m,
     primary,
+    subsample,
     tests: Object.freeze(tests),
     qq,
     histogram,

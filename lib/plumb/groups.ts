@@ -5,12 +5,9 @@
  *
  * @module
  */
-import type { Table } from "../data/table.ts";
-import { refuseCensored } from "./_censored_guard.ts";
-import { PlumbError } from "../errors.ts";
 import { cardBundle } from "../render/card.ts";
 import { chartBundle } from "../render/chart_bundle.ts";
-import { DISPLAY, type Displayable, type MimeBundle } from "../render/display.ts";
+import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
 import { escapeHtml, escapeMarkdown, plainText } from "../render/escape.ts";
 import { formatCount, formatP } from "../render/format.ts";
 import { histogramSpec } from "../render/histogram_spec.ts";
@@ -18,75 +15,12 @@ import { groupSpec } from "../render/group_spec.ts";
 import { qqSpec } from "../render/qq_spec.ts";
 import { qqSparkline } from "../render/sparkline.ts";
 import { tableHtml, tableMarkdown, type TableModel, tableText } from "../render/table.ts";
-import { type Adjustment, adjustPValues } from "../stats/multiplicity.ts";
-import { analyse, ANALYSE_MIN_N, type Analysis } from "./analysis.ts";
-import { VERDICT_SHORT } from "./reading.ts";
+import { ADJUSTMENT_NAMES, checkAdjustment } from "../stats/multiplicity.ts";
+import { VERDICT_SHORT } from "../results/reading.ts";
 import { writeSentence } from "./sentence.ts";
 import { _csv } from "./_csv.ts";
-import { blanks, SUMMARY_COLUMNS, SUMMARY_HEAD, summaryCells, summaryValues } from "./_rows.ts";
-import type { Step } from "./steps.ts";
-import { stepLabel } from "./steps.ts";
-
-/** Options for `.by(column)`. */
-export interface GroupOptions {
-  /**
-   * How p-values are adjusted across the groups: Holm (family-wise error),
-   * Benjamini–Hochberg (`"bh"`, false discovery rate) or `"none"`.
-   * @default "holm"
-   */
-  readonly adjust?: Adjustment;
-}
-
-interface _GroupState {
-  readonly table: Table;
-  readonly column: string;
-  readonly steps: readonly Step[];
-  readonly options: { readonly dropText?: boolean };
-  readonly groupBy: string;
-  readonly groupOptions: GroupOptions;
-}
-
-/** One group's screening, or why it was not screened. */
-export interface GroupRow {
-  /** The group's value. */
-  readonly group: string;
-  /** Values in the group. */
-  readonly n: number;
-  /** The analysis, when the group has enough values. */
-  readonly analysis?: Analysis;
-  /** The adjusted Shapiro–Wilk p-value. */
-  readonly adjustedP?: number;
-  /** Why the group was not screened. */
-  readonly skipped?: string;
-}
-
-/** The result of a per-group screening, as plain data. */
-export interface GroupResult {
-  readonly label: string;
-  readonly groupBy: string;
-  readonly adjust: Adjustment;
-  readonly groups: readonly GroupRow[];
-  /** Rows left out because their group cell was missing. */
-  readonly noGroup: number;
-  /** Value cells missing (and text cells dropped) across all groups. */
-  readonly missingDropped: number;
-  readonly textDropped: number;
-  /** The pooled within-group residuals (value − group mean), analysed. */
-  readonly residuals?: Analysis;
-}
-
-const _ADJUST_NAME: Record<Adjustment, string> = {
-  holm: "Holm",
-  bh: "Benjamini–Hochberg",
-  none: "unadjusted",
-};
-
-/** Natural order for group labels: numbers by value, then text. */
-function _compare(a: string, b: string): number {
-  const x = Number(a), y = Number(b);
-  if (a.trim() !== "" && b.trim() !== "" && Number.isFinite(x) && Number.isFinite(y)) return x - y;
-  return a < b ? -1 : a > b ? 1 : 0;
-}
+import * as summary from "./_rows.ts";
+import { type GroupResult, type GroupState, screenGroups } from "./group_screen.ts";
 
 /**
  * The per-group chain. Create it with `plumb(table, column).by(group)`.
@@ -99,135 +33,37 @@ function _compare(a: string, b: string): number {
  * ```
  */
 export class PlumbGroups implements Displayable {
-  readonly #s: _GroupState;
+  readonly #s: GroupState;
   #result: GroupResult | undefined;
   #bundle: Promise<MimeBundle> | undefined;
 
   /** @internal Use `plumb(...).by(column)`. */
-  constructor(state: _GroupState) {
-    const adjust = state.groupOptions.adjust ?? "holm";
-    if (!["holm", "bh", "none"].includes(adjust)) {
-      throw new PlumbError(
-        "bad-option",
-        `Unknown adjustment "${String(adjust)}": use "holm", "bh" or "none"`,
-      );
-    }
+  constructor(state: GroupState) {
+    checkAdjustment(state.groupOptions.adjust);
     this.#s = state;
     Object.freeze(this);
   }
 
   /** The screening of every group, as plain data (computed once). */
   result(): GroupResult {
-    if (this.#result) return this.#result;
-    const { table, column, steps, groupBy, options } = this.#s;
-    const adjust = this.#s.groupOptions.adjust ?? "holm";
-    // Raises "non-numeric" (naming rows) unless text cells are dropped on request.
-    const used = table.numeric(column, { dropText: options.dropText ?? false });
-    refuseCensored(used, stepLabel(column, steps));
-    const cells = table.numericCells(column);
-    const g = table.text(groupBy);
-    const byGroup = new Map<string, number[]>();
-    let noGroup = 0;
-    for (let i = 0; i < table.rowCount; i++) {
-      if (cells.missing[i] || cells.nonNumeric[i]) continue;
-      if (g.missing[i]) {
-        noGroup++;
-        continue;
-      }
-      const key = g.values[i];
-      let list = byGroup.get(key);
-      if (!list) byGroup.set(key, list = []);
-      list.push(i);
-    }
-    const label = stepLabel(column, steps);
-    const keys = [...byGroup.keys()].sort(_compare);
-    const residuals: number[] = [];
-    const rows: GroupRow[] = [];
-    for (const key of keys) {
-      const idx = byGroup.get(key)!;
-      let v: Float64Array = Float64Array.from(idx, (i) => cells.values[i]);
-      for (const s of steps) v = s.apply(v);
-      if (v.length >= 2) {
-        let mean = 0;
-        for (const t of v) mean += t;
-        mean /= v.length;
-        for (const t of v) residuals.push(t - mean);
-      }
-      if (v.length < ANALYSE_MIN_N) {
-        rows.push({
-          group: key,
-          n: v.length,
-          skipped: `only ${v.length} value${
-            v.length === 1 ? "" : "s"
-          }; at least ${ANALYSE_MIN_N} are needed`,
-        });
-        continue;
-      }
-      const rowsOf = Int32Array.from(idx, (i) => i + 1);
-      try {
-        const a = analyse(v, {
-          label: `${label} — ${groupBy} = ${key}`,
-          column,
-          group: key,
-          transform: steps.length ? label : undefined,
-          missingDropped: 0,
-          textDropped: 0,
-          rows: rowsOf,
-        });
-        rows.push({ group: key, n: v.length, analysis: a });
-      } catch (e) {
-        if (e instanceof PlumbError && e.code === "constant") {
-          rows.push({ group: key, n: v.length, skipped: "every value is the same" });
-        } else throw e;
-      }
-    }
-    const tested = rows.filter((r) => r.analysis);
-    const adj = adjustPValues(tested.map((r) => r.analysis!.primary.pValue), adjust);
-    const adjusted = new Map(tested.map((r, k) => [r.group, adj[k]]));
-    const final = rows.map((r) =>
-      Object.freeze(r.analysis ? { ...r, adjustedP: adjusted.get(r.group) } : r)
-    );
-    let res: Analysis | undefined;
-    if (residuals.length >= ANALYSE_MIN_N) {
-      try {
-        res = analyse(Float64Array.from(residuals), {
-          label: `${label} residuals within ${groupBy}`,
-          column,
-          transform: steps.length ? label : undefined,
-          missingDropped: used.provenance.missingDropped,
-          textDropped: used.provenance.textDropped,
-        });
-      } catch (e) {
-        if (!(e instanceof PlumbError && e.code === "constant")) throw e;
-      }
-    }
-    this.#result = Object.freeze({
-      label,
-      groupBy,
-      adjust,
-      groups: Object.freeze(final),
-      noGroup,
-      missingDropped: used.provenance.missingDropped,
-      textDropped: used.provenance.textDropped,
-      residuals: res,
-    });
+    this.#result ??= screenGroups(this.#s);
     return this.#result;
   }
 
   /** The per-group table model (also used for CSV and Markdown export). */
   table(): TableModel {
     const r = this.result();
-    const adjName = _ADJUST_NAME[r.adjust];
+    const adjName = ADJUSTMENT_NAMES[r.adjust];
     const rows = r.groups.map((g) => {
       const a = g.analysis;
       if (!a) {
-        return [g.group, formatCount(g.n), ...blanks(7), `not screened: ${g.skipped}`, ""];
+        return [g.group, formatCount(g.n), ...summary.blanks(7), `not screened: ${g.skipped}`, ""];
       }
       const spark = qqSparkline(a.qq, { title: `QQ sparkline of ${a.origin.label}` });
       return [
         g.group,
         formatCount(a.n),
-        ...summaryCells(a),
+        ...summary.summaryCells(a),
         formatP(g.adjustedP!),
         VERDICT_SHORT[a.reading.verdict],
         { text: "", html: spark },
@@ -238,6 +74,8 @@ export class PlumbGroups implements Displayable {
         r.groups.filter((g) => g.analysis).length
       } groups screened.`,
     ];
+    const sub = summary.subsampleNote(r.groups.flatMap((g) => (g.analysis ? [g.analysis] : [])));
+    if (sub) notes.push(sub);
     if (r.noGroup > 0) {
       notes.push(
         `${r.noGroup} row${r.noGroup === 1 ? "" : "s"} with no ${r.groupBy} value left out.`,
@@ -262,7 +100,7 @@ export class PlumbGroups implements Displayable {
       columns: [
         { title: r.groupBy },
         { title: "n", align: "right" },
-        ...SUMMARY_COLUMNS,
+        ...summary.SUMMARY_COLUMNS,
         { title: `${r.adjust === "none" ? "" : "adj. "}p (${adjName})`, align: "right" },
         { title: "reading" },
         { title: "QQ" },
@@ -283,7 +121,7 @@ export class PlumbGroups implements Displayable {
       writeSentence(g.analysis!, {
         adjusted: r.adjust === "none"
           ? undefined
-          : { p: g.adjustedP!, method: _ADJUST_NAME[r.adjust], family },
+          : { p: g.adjustedP!, method: ADJUSTMENT_NAMES[r.adjust], family },
       })
     );
     if (r.residuals) texts.push(writeSentence(r.residuals));
@@ -301,12 +139,20 @@ export class PlumbGroups implements Displayable {
   /** The per-group table as CSV (numbers unrounded). */
   toCSV(): string {
     const r = this.result();
-    const head = ["group", "n", ...SUMMARY_HEAD, "adjusted_p", "adjustment", "verdict", "note"];
+    const head = [
+      "group",
+      "n",
+      ...summary.SUMMARY_HEAD,
+      "adjusted_p",
+      "adjustment",
+      "verdict",
+      "note",
+    ];
     const lines = r.groups.map((g) => {
       const a = g.analysis;
       return a
-        ? [g.group, a.n, ...summaryValues(a), g.adjustedP, r.adjust, a.reading.verdict, ""]
-        : [g.group, g.n, ...blanks(7), r.adjust, "", g.skipped];
+        ? [g.group, a.n, ...summary.summaryValues(a), g.adjustedP, r.adjust, a.reading.verdict, ""]
+        : [g.group, g.n, ...summary.blanks(7), r.adjust, "", g.skipped];
     });
     return _csv(head, lines);
   }

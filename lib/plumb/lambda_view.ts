@@ -6,6 +6,7 @@
  *
  * @module
  */
+import { randomSubsample } from "../numeric/random.ts";
 import { boxCoxFit } from "../reexpress/box_cox_fit.ts";
 import { boxCoxProfile } from "../reexpress/box_cox_profile.ts";
 import { applyReexpression, reexpression } from "../reexpress/reexpression.ts";
@@ -15,7 +16,6 @@ import { type Chart, chart } from "../render/chart_bundle.ts";
 import { lambdaExplorerSpec } from "../render/lambda_explorer_spec.ts";
 import { qqData } from "../stats/qq_data.ts";
 import { SHAPIRO_WILK_MAX_N, shapiroWilk } from "../stats/shapiro_wilk.ts";
-import { _subsample } from "./analysis.ts";
 
 /** Grid points of the explorer. */
 export const LAMBDA_GRID_POINTS = 41;
@@ -50,7 +50,7 @@ export function lambdaExplorer(values: Float64Array, name: string): Chart {
     (_, k) => +(lo + ((hi - lo) * k) / (m - 1)).toPrecision(12),
   );
   const sample = values.length > SHAPIRO_WILK_MAX_N
-    ? _subsample(values, SHAPIRO_WILK_MAX_N, 1)
+    ? randomSubsample(values, SHAPIRO_WILK_MAX_N, 1)
     : values;
   const logLik = Array.from(
     positive ? boxCoxProfile(values, lambdas) : yeoJohnsonProfile(values, lambdas),

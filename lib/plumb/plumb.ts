@@ -10,21 +10,22 @@ import { refuseCensored } from "./_censored_guard.ts";
 import { PlumbError } from "../errors.ts";
 import { type Chart, chart, chartBundle } from "../render/chart_bundle.ts";
 import { cardBundle } from "../render/card.ts";
-import { DISPLAY, type Displayable, type MimeBundle } from "../render/display.ts";
+import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
 import { detrendedSpec, qqSpec } from "../render/qq_spec.ts";
 import { histogramSpec } from "../render/histogram_spec.ts";
 import { testsTable } from "../render/analysis_tables.ts";
 import { tableHtml, tableMarkdown, tableText } from "../render/table.ts";
-import { escapeHtml, escapeMarkdown, plainText } from "../render/escape.ts";
 import { histogramData, type HistogramOptions } from "../stats/histogram_data.ts";
 import { qqData, type QqOptions } from "../stats/qq_data.ts";
-import { analyse, ANALYSE_MIN_N, type Analysis } from "./analysis.ts";
+import { analyse, ANALYSE_MIN_N } from "./analysis.ts";
+import type { Analysis } from "../results/analysis.ts";
 import { type ReexpressRequest, resolveStep, type Step, stepLabel } from "./steps.ts";
 import { pickColumn, type PlumbSource, toTable } from "./source.ts";
-import { type SentenceOptions, writeSentence } from "./sentence.ts";
+import { type Sentence, sentenceOf, type SentenceOptions, writeSentence } from "./sentence.ts";
 import { type CandidatesView, chooseBest, reexpressionTable } from "./reexpress_view.ts";
 import { lambdaExplorer } from "./lambda_view.ts";
-import { type GroupOptions, PlumbGroups } from "./groups.ts";
+import type { GroupOptions } from "./group_screen.ts";
+import { PlumbGroups } from "./groups.ts";
 import { _csv } from "./_csv.ts";
 
 /** Options for {@linkcode plumb}. */
@@ -52,23 +53,6 @@ interface _State {
   readonly column: string;
   readonly steps: readonly Step[];
   readonly options: PlumbOptions;
-}
-
-/** A displayable sentence: the write-up paragraph. */
-export interface Sentence extends Displayable {
-  /** The paragraph. */
-  readonly text: string;
-  toString(): string;
-  toJSON(): string;
-}
-
-function _sentence(text: string): Sentence {
-  const bundle: MimeBundle = Object.freeze({
-    "text/plain": plainText(text),
-    "text/markdown": escapeMarkdown(text),
-    "text/html": `<p style="max-width:780px">${escapeHtml(text)}</p>`,
-  });
-  return Object.freeze({ text, [DISPLAY]: () => bundle, toString: () => text, toJSON: () => text });
 }
 
 /**
@@ -177,9 +161,7 @@ export class Plumb implements Displayable {
   reexpress(request: ReexpressRequest): Plumb;
   reexpress(request?: ReexpressRequest): Plumb | CandidatesView {
     if (request === undefined) return reexpressionTable(this.#load(), this.label);
-    const step = request === "best"
-      ? chooseBest(this.#load(), this.label)
-      : resolveStep(request, this.#load());
+    const step = request === "best" ? chooseBest(this.#load()) : resolveStep(request, this.#load());
     if (step === undefined) return this; // the data are best left as they are
     return new Plumb({ ...this.#state, steps: [...this.#state.steps, step] });
   }
@@ -252,7 +234,7 @@ export class Plumb implements Displayable {
 
   /** The write-up paragraph. */
   sentence(options: SentenceOptions = {}): Sentence {
-    return _sentence(writeSentence(this.analysis(), options));
+    return sentenceOf(writeSentence(this.analysis(), options));
   }
 
   /** The analysis as plain data. */

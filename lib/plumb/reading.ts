@@ -30,6 +30,10 @@
  *   Envelope exits are described but not counted in the verdict: a
  *   pointwise band's exits are strongly correlated between neighbours.
  *
+ * Kept in one file because the thresholds above and the sentences they lead
+ * to must be read side by side: the words are only as right as the rules
+ * behind them.
+ *
  * @module
  */
 import { sortFloat64 } from "../numeric/sort.ts";
@@ -38,59 +42,8 @@ import type { Moments } from "../stats/moments.ts";
 import type { QqData } from "../stats/qq_data.ts";
 import type { TestResult } from "../stats/result.ts";
 import { formatNumber } from "../render/format.ts";
-
-/** The three verdicts, as stable codes. */
-export type Verdict = "no-clear-departure" | "mild-departure" | "clear-departure";
-
-/** The verdicts in words, for display. */
-export const VERDICT_WORDS: Readonly<Record<Verdict, string>> = Object.freeze({
-  "no-clear-departure": "no clear departure from normal",
-  "mild-departure": "mild departure from normal",
-  "clear-departure": "clear departure from normal",
-});
-
-/** The verdicts in two or three words, for table cells. */
-export const VERDICT_SHORT: Readonly<Record<Verdict, string>> = Object.freeze({
-  "no-clear-departure": "no clear departure",
-  "mild-departure": "mild departure",
-  "clear-departure": "clear departure",
-});
-
-/** The facts a reading was built from, for programs. */
-export interface ReadingFacts {
-  /** Direction of a skew that stands out from noise, or `"none"`. */
-  readonly skew: "right" | "left" | "none";
-  /** Strength by |G1|. */
-  readonly skewStrength: "slight" | "moderate" | "strong";
-  /** Tails relative to normal, when G2 stands out from noise. */
-  readonly tails: "heavy" | "light" | "as expected";
-  /** Distinct values. */
-  readonly distinct: number;
-  /** Smallest gap between distinct values. */
-  readonly resolution: number;
-  /** Whether many values repeat. */
-  readonly tied: boolean;
-  /** Sarle's bimodality coefficient. */
-  readonly bimodality: number;
-  /** QQ points below / above the envelope in the lower half of the ranks. */
-  readonly lowerTail: { readonly below: number; readonly above: number };
-  /** QQ points below / above the envelope in the upper half of the ranks. */
-  readonly upperTail: { readonly below: number; readonly above: number };
-}
-
-/** The shape in words. */
-export interface Reading {
-  /** The verdict code. */
-  readonly verdict: Verdict;
-  /** One short line: the main reason for the verdict, with W and n (the verdict itself is in `verdict`). */
-  readonly headline: string;
-  /** The observations, one sentence each, most important first. */
-  readonly points: readonly string[];
-  /** What the sample size means for the tests. */
-  readonly sizeNote: string;
-  /** The numbers behind the words. */
-  readonly facts: ReadingFacts;
-}
+import type { Subsample } from "../results/analysis.ts";
+import type { Reading, ReadingFacts, Verdict } from "../results/reading.ts";
 
 /** What {@linkcode readShape} needs. */
 export interface ReadingInput {
@@ -103,6 +56,8 @@ export interface ReadingInput {
   readonly values: ArrayLike<number>;
   /** The values already sorted, when the caller has them. */
   readonly sortedSample?: Float64Array;
+  /** The seeded subsample the primary test ran on, when it did not use every value. */
+  readonly subsample?: Subsample | null;
 }
 
 const f3 = (x: number) => formatNumber(x, 3);
@@ -314,9 +269,9 @@ export function readShape(input: ReadingInput): Reading {
     sizeNote = `With ${n} values the tests have reasonable power for moderate departures`;
   } else {sizeNote =
       `With ${n} values even trivial departures give small p-values: judge by the plot and the effect sizes (G1, G2, 1 − W), not by p`;}
-  if (primary.warnings.some((w) => w.includes("subsample"))) {
-    sizeNote +=
-      `. Shapiro–Wilk used a seeded random subsample of 5000 values (its p-value is calibrated up to 5000); the other tests used all ${n}`;
+  if (input.subsample) {
+    sizeNote += `. Shapiro–Wilk used a seeded random subsample of ${input.subsample.size} values ` +
+      `(its p-value is calibrated up to 5000); the other tests used all ${n}`;
   }
 
   const a2 = Math.abs(m.G2);

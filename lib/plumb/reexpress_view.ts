@@ -7,10 +7,11 @@
  */
 import { backTransformMean } from "../reexpress/back_transform.ts";
 import { applyReexpression } from "../reexpress/reexpression.ts";
-import { type ReexpressionSearch, searchReexpressions } from "../reexpress/search.ts";
+import type { ReexpressionSearch } from "../reexpress/candidates.ts";
+import { searchReexpressions } from "../reexpress/search.ts";
 import { chartBundle } from "../render/chart_bundle.ts";
 import { comparisonSpec } from "../render/comparison_spec.ts";
-import { DISPLAY, type Displayable, type MimeBundle } from "../render/display.ts";
+import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
 import { escapeHtml, escapeMarkdown, plainText } from "../render/escape.ts";
 import { formatNumber, formatP } from "../render/format.ts";
 import { tableHtml, tableMarkdown, type TableModel, tableText } from "../render/table.ts";
@@ -167,16 +168,15 @@ export function reexpressionTable(
 }
 
 /** The chosen candidate as a step, or `undefined` when it is "as measured". */
-export function chooseBest(values: Float64Array, _name: string): Step | undefined {
+export function chooseBest(values: Float64Array): Step | undefined {
   const s = searchReexpressions(values);
   if (s.chosen.reexpression.kind === "identity") return undefined;
   return stepOf(s.chosen.reexpression, s.reason);
 }
 
 /** The chosen candidate's formula in `x` for a survey row (`"none better than x"` when none helps). */
-export function suggestReexpression(values: Float64Array, name: string): string {
+export function suggestReexpression(values: Float64Array): string {
   const s = searchReexpressions(values);
-  void name;
   if (s.chosen.reexpression.kind === "identity") return "none better than x";
   return stepOf(s.chosen.reexpression).formula;
 }

@@ -7,7 +7,7 @@
  * @module
  */
 import type { Table } from "../data/table.ts";
-import { DISPLAY, type MimeBundle } from "../render/display.ts";
+import { DISPLAY, type MimeBundle } from "../results/display.ts";
 import { escapeHtml } from "../render/escape.ts";
 import { plumb } from "./plumb.ts";
 import { survey } from "./survey.ts";

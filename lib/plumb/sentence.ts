@@ -4,9 +4,11 @@
  *
  * @module
  */
+import { escapeHtml, escapeMarkdown, plainText } from "../render/escape.ts";
 import { formatCount, formatNumber } from "../render/format.ts";
-import type { Analysis } from "./analysis.ts";
-import { VERDICT_WORDS } from "./reading.ts";
+import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
+import type { Analysis } from "../results/analysis.ts";
+import { VERDICT_WORDS } from "../results/reading.ts";
 
 /**
  * A p-value for prose: `p < 0.001` below 0.001, otherwise three decimals.
@@ -88,9 +90,9 @@ export function writeSentence(a: Analysis, options: SentenceOptions = {}): strin
     `${test}; skewness G1 = ${proseShape(m.G1)}, excess kurtosis G2 = ${proseShape(m.G2)}.`,
   );
   parts.push(`Reading: ${VERDICT_WORDS[reading.verdict]}.`);
-  if (n > 5000) {
+  if (a.subsample) {
     parts.push(
-      "W and p come from a seeded random subsample of 5000 values, the limit of Royston's calibration.",
+      `W and p come from a seeded random subsample of ${a.subsample.size} values, the limit of Royston's calibration.`,
     );
   }
   if (origin.transform) {
@@ -118,4 +120,31 @@ export function writeSentence(a: Analysis, options: SentenceOptions = {}): strin
     "Where this result feeds a clinical, safety or product-release decision, that decision follows your organisation's own procedures and the applicable standards; a normality check is one input to it.",
   );
   return parts.join(" ");
+}
+
+/** A displayable sentence: the write-up paragraph. */
+export interface Sentence extends Displayable {
+  /** The paragraph. */
+  readonly text: string;
+  toString(): string;
+  toJSON(): string;
+}
+
+/**
+ * The write-up paragraph as a displayable: text, Markdown and HTML.
+ *
+ * @param text the paragraph
+ * @example
+ * ```ts
+ * import { sentenceOf } from "./sentence.ts";
+ * if (sentenceOf("n = 12.").toJSON() !== "n = 12.") throw new Error("sentence");
+ * ```
+ */
+export function sentenceOf(text: string): Sentence {
+  const bundle: MimeBundle = Object.freeze({
+    "text/plain": plainText(text),
+    "text/markdown": escapeMarkdown(text),
+    "text/html": `<p style="max-width:780px">${escapeHtml(text)}</p>`,
+  });
+  return Object.freeze({ text, [DISPLAY]: () => bundle, toString: () => text, toJSON: () => text });
 }

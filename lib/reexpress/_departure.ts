@@ -5,6 +5,7 @@
  * @module
  */
 import { normalScores } from "../stats/plotting_positions.ts";
+import { shapiroFranciaNull } from "../stats/shapiro_francia.ts";
 
 /**
  * 1 − r², r the correlation between the ordered sample and Blom's normal
@@ -49,16 +50,13 @@ export function _departure(x: ArrayLike<number>, scores?: Float64Array): number 
 }
 
 /**
- * The median of 1 − W′ for normal samples of size n: e^μ(n) with
- * μ = −1.2725 + 1.0521·(ln ln n − ln n), Royston's (1993) normalising
- * approximation for ln(1 − W′) (Royston, P. (1993), "A pocket-calculator
- * algorithm for the Shapiro–Francia test for non-normality: an application to
- * medicine", Statistics in Medicine 12:181–184; coefficients from memory, and
- * checked by a seeded simulation in tests/reexpress/search_test.ts). Royston
+ * The median of 1 − W′ for normal samples of size n: e^μ(n), μ(n) the mean of
+ * Royston's (1993) normalising approximation for ln(1 − W′)
+ * ({@linkcode shapiroFranciaNull}; coefficients from memory, and checked by a
+ * seeded simulation in tests/reexpress/search_test.ts). Royston
  * fits 5 ≤ n ≤ 5000; below 5 the value at 5 is used, above 5000 the formula is
  * extrapolated (it keeps the 1/n-type decay seen in simulation).
  */
 export function _nullDepartureMedian(n: number): number {
-  const u = Math.log(Math.max(n, 5));
-  return Math.exp(-1.2725 + 1.0521 * (Math.log(u) - u));
+  return Math.exp(shapiroFranciaNull(Math.max(n, 5)).mean);
 }

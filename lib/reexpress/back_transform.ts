@@ -7,6 +7,7 @@
 import jStat from "../_deps/jstat.ts";
 import { PlumbError } from "../errors.ts";
 import { checkSize, finiteCopy } from "../stats/_input.ts";
+import { _meanSd } from "../stats/moments.ts";
 import { applyReexpression, invertReexpression, type Reexpression } from "./reexpression.ts";
 
 /** Options for {@linkcode backTransformMean}. */
@@ -101,12 +102,7 @@ export function backTransformMean(
   checkSize(x.length, 2, Number.POSITIVE_INFINITY, what);
   const y = applyReexpression(finiteCopy(x, what), r);
   const n = y.length;
-  let m = 0;
-  for (const t of y) m += t;
-  m /= n;
-  let ss = 0;
-  for (const t of y) ss += (t - m) * (t - m);
-  const sd = Math.sqrt(ss / (n - 1));
+  const { mean: m, sd } = _meanSd(y);
   const tq = jStat.studentt.inv(1 - (1 - level) / 2, n - 1) as number;
   const half = (tq * sd) / Math.sqrt(n);
   const [est, a, b] = invertReexpression([m, m - half, m + half], r);

@@ -6,15 +6,9 @@
  */
 import { PlumbError } from "../errors.ts";
 import { checkSize, finiteCopy } from "../stats/_input.ts";
-import { andersonDarling } from "../stats/anderson_darling.ts";
-import { dagostinoPearson } from "../stats/dagostino_pearson.ts";
-import { jarqueBera } from "../stats/jarque_bera.ts";
-import { lilliefors } from "../stats/lilliefors.ts";
+import { NORMALITY_TESTS } from "../stats/battery.ts";
 import { moments } from "../stats/moments.ts";
 import { normalScores } from "../stats/plotting_positions.ts";
-import type { TestResult } from "../stats/result.ts";
-import { shapiroFrancia } from "../stats/shapiro_francia.ts";
-import { shapiroWilk } from "../stats/shapiro_wilk.ts";
 import { boxCoxFit } from "./box_cox_fit.ts";
 import type { LambdaFit } from "./lambda_fit.ts";
 import { nearestLadderPower } from "./ladder.ts";
@@ -22,100 +16,14 @@ import { logShift } from "./log.ts";
 import { applyReexpression, type Reexpression, reexpression } from "./reexpression.ts";
 import { yeoJohnsonFit } from "./yeo_johnson_fit.ts";
 import { _departure, _nullDepartureMedian } from "./_departure.ts";
-
-/** One normality test re-run on a candidate. */
-export interface CandidateTest {
-  /** The test's name, e.g. `"Shapiro–Wilk"`. */
-  readonly test: string;
-  /** The result, or `null` when the test does not apply here. */
-  readonly result: TestResult | null;
-  /** Why the test did not apply (its own message), or `null`. */
-  readonly note: string | null;
-}
-
-/** One re-expression tried, re-tested and placed: plain, frozen data. */
-export interface ReexpressionCandidate {
-  /** 1 for the chosen candidate, then 2, 3, … */
-  readonly rank: number;
-  /** What was applied. */
-  readonly reexpression: Reexpression;
-  /** 1 − W′ of the re-expressed values (0 = exactly on a QQ line). */
-  readonly departure: number;
-  /** Whether the departure is within the chance margin of the best one. */
-  readonly closeToBest: boolean;
-  /** Place in the simplicity order (0 = as measured, 6 = fitted Yeo–Johnson). */
-  readonly simplicity: number;
-  /** Moment skewness g1 of the re-expressed values (`null` for n < 4). */
-  readonly skewness: number | null;
-  /** Moment excess kurtosis g2 of the re-expressed values (`null` for n < 4). */
-  readonly excessKurtosis: number | null;
-  /** Every normality test, re-run on the re-expressed values. */
-  readonly tests: readonly CandidateTest[];
-  /** Where the candidate came from (a shift rule, a ladder choice, a fitted λ). */
-  readonly notes: readonly string[];
-}
-
-/** The outcome of {@linkcode searchReexpressions}: plain, frozen data. */
-export interface ReexpressionSearch {
-  /** Number of values. */
-  readonly n: number;
-  /** Every candidate tried, best first. */
-  readonly candidates: readonly ReexpressionCandidate[];
-  /** The first candidate: the one to carry forward. */
-  readonly chosen: ReexpressionCandidate;
-  /** Why the chosen one was chosen, in words. */
-  readonly reason: string;
-  /** The ranking rule, in words. */
-  readonly rule: string;
-  /** The chance margin used: median 1 − W′ of normal samples of this size. */
-  readonly margin: number;
-  /** The Box–Cox fit (positive data only), or `null`. */
-  readonly boxCox: LambdaFit | null;
-  /** The Yeo–Johnson fit (data with zeros or negatives only), or `null`. */
-  readonly yeoJohnson: LambdaFit | null;
-  /** Re-expressions not tried, and why. */
-  readonly skipped: readonly string[];
-}
-
-/** Options for {@linkcode searchReexpressions}. */
-export interface SearchOptions {
-  /**
-   * Level of the λ intervals (used to pick the ladder power).
-   * @default 0.95
-   */
-  readonly level?: number;
-  /**
-   * λ range for the Box–Cox and Yeo–Johnson fits.
-   * @default [-5, 5]
-   */
-  readonly range?: readonly [number, number];
-  /**
-   * Base of the log candidate.
-   * @default "e"
-   */
-  readonly logBase?: "e" | 10;
-}
-
-/** The ranking rule, for reports. */
-export const RANKING_RULE =
-  "Each candidate's departure is 1 − W′ (one minus the squared QQ correlation). " +
-  "Candidates whose departure exceeds the smallest by no more than the median departure " +
-  "of truly normal samples of the same size count as equally good; among those the " +
-  "simplest is chosen, in the order: as measured, log, square root, reciprocal, a ladder " +
-  "power, fitted Box–Cox λ, fitted Yeo–Johnson λ. The rest follow by departure";
-
-const _TESTS: readonly [string, (x: Float64Array) => TestResult][] = [
-  ["Shapiro–Wilk", shapiroWilk],
-  ["Shapiro–Francia", shapiroFrancia],
-  ["Anderson–Darling", andersonDarling],
-  ["Lilliefors", lilliefors],
-  ["D'Agostino–Pearson", dagostinoPearson],
-  ["Jarque–Bera", jarqueBera],
-];
-
-function _fmt(v: number): string {
-  return v < 1e-3 ? v.toExponential(2) : v.toPrecision(3);
-}
+import {
+  _fmt,
+  _reason,
+  type CandidateTest,
+  RANKING_RULE,
+  type ReexpressionSearch,
+  type SearchOptions,
+} from "./candidates.ts";
 
 interface _Draft {
   reexpression: Reexpression;
@@ -132,9 +40,9 @@ interface _Draft {
  * positive data, Box–Cox at its maximum-likelihood λ̂ and at the ladder power
  * (−2, −1, −½, 0, ½, 1, 2) nearest λ̂ inside the λ interval, when that power is
  * not already one of the above; for data with zeros or negatives, Yeo–Johnson
- * at its λ̂. Every normality test (Shapiro–Wilk, Shapiro–Francia,
- * Anderson–Darling, Lilliefors, D'Agostino–Pearson, Jarque–Bera) is re-run on
- * every candidate; a test that does not apply (too few or too many values) is
+ * at its λ̂. Every normality test of the battery (`stats/battery.ts`:
+ * Shapiro–Wilk, Shapiro–Francia, Anderson–Darling, Lilliefors,
+ * D'Agostino–Pearson, Jarque–Bera) is re-run on every candidate; a test that does not apply (too few or too many values) is
  * recorded with its reason, not thrown.
  *
  * Ranking rule (plumbline's own; see {@linkcode RANKING_RULE}). Departure is
@@ -289,7 +197,7 @@ export function searchReexpressions(
       );
       return [];
     }
-    const tests = _TESTS.map(([test, run]): CandidateTest => {
+    const tests = NORMALITY_TESTS.map(({ name: test, run }): CandidateTest => {
       try {
         return Object.freeze({ test, result: run(y), note: null });
       } catch (e) {
@@ -350,38 +258,4 @@ export function searchReexpressions(
     yeoJohnson: yj,
     skipped: Object.freeze(skipped),
   });
-}
-
-function _reason(
-  chosen: ReexpressionCandidate,
-  best: ReexpressionCandidate,
-  all: readonly ReexpressionCandidate[],
-  margin: number,
-  n: number,
-): string {
-  const dep = (c: ReexpressionCandidate) => `${c.reexpression.label}: ${_fmt(c.departure)}`;
-  const chance = `${_fmt(margin)}, what normal samples of ${n} typically show`;
-  const simpler = all.filter((c) => c.simplicity < chosen.simplicity && !c.closeToBest);
-  const isAsIs = chosen.reexpression.kind === "identity";
-  if (chosen === best) {
-    const head = isAsIs
-      ? "No re-expression needed: the data as measured are as close to normal as any candidate"
-      : `${chosen.reexpression.label} departs least from normal of all candidates ` +
-        `(1 − W′ = ${_fmt(chosen.departure)})`;
-    const tail = simpler.length === 0 || isAsIs
-      ? ""
-      : `; every simpler candidate departs by more than the chance margin (${chance}): ` +
-        simpler.map(dep).join(", ");
-    return head + tail;
-  }
-  const head = isAsIs
-    ? "No re-expression needed: the data as measured"
-    : `${chosen.reexpression.label} is chosen: it`;
-  const lead = isAsIs ? " depart" : " departs";
-  return `${head}${lead} from normal (1 − W′ = ${_fmt(chosen.departure)}) no more than ` +
-    `the best candidate, ${dep(best)}, plus the chance margin (${chance}), and ` +
-    `${isAsIs ? "keep the original units" : "is simpler to interpret and back-transform"}` +
-    (simpler.length > 0 && !isAsIs
-      ? `; simpler candidates depart by more: ${simpler.map(dep).join(", ")}`
-      : "");
 }

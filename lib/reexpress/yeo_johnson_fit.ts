@@ -4,7 +4,7 @@
  * @module
  */
 import type { LambdaFit, LambdaFitOptions } from "./lambda_fit.ts";
-import { _yeoJohnsonProfile } from "./_profile.ts";
+import { _yeoJohnsonProfile } from "./_profile_yeo_johnson.ts";
 import { _fitLambda, _subsample } from "./_fit.ts";
 import { _lambdaSample } from "./_sample.ts";
 

@@ -3,7 +3,8 @@
  *
  * @module
  */
-import { _logLik, _yeoJohnsonProfile } from "./_profile.ts";
+import { _logLik } from "./_profile.ts";
+import { _yeoJohnsonProfile } from "./_profile_yeo_johnson.ts";
 import { _lambdaGrid, _lambdaSample } from "./_sample.ts";
 
 /**

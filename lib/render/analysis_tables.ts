@@ -4,7 +4,7 @@
  *
  * @module
  */
-import type { TestOutcome } from "../plumb/analysis.ts";
+import type { TestOutcome } from "../results/analysis.ts";
 import { formatNumber, formatP } from "./format.ts";
 import type { TableModel } from "./table.ts";
 

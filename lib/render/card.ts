@@ -5,10 +5,10 @@
  *
  * @module
  */
-import type { Analysis } from "../plumb/analysis.ts";
-import { type Verdict, VERDICT_WORDS } from "../plumb/reading.ts";
+import type { Analysis } from "../results/analysis.ts";
+import { type Verdict, VERDICT_WORDS } from "../results/reading.ts";
 import { testsTable } from "./analysis_tables.ts";
-import type { MimeBundle } from "./display.ts";
+import type { MimeBundle } from "../results/display.ts";
 import { escapeHtml, escapeMarkdown, plainText } from "./escape.ts";
 import { formatCentre, formatCount, formatNumber } from "./format.ts";
 import { tableHtml, tableMarkdown, tableText } from "./table.ts";

@@ -12,7 +12,7 @@ import {
   type MimeBundle,
   type ReadyDisplayable,
   VEGALITE_MIME,
-} from "./display.ts";
+} from "../results/display.ts";
 import { plainText } from "./escape.ts";
 import { accessibleSvg, renderSvg } from "./svg.ts";
 
@@ -97,7 +97,7 @@ export interface Chart extends Displayable {
  * @example
  * ```ts
  * import { chart } from "./chart_bundle.ts";
- * import { DISPLAY } from "./display.ts";
+ * import { DISPLAY } from "../results/display.ts";
  * const c = chart({ data: { values: [{ a: 1 }] }, mark: "tick", encoding: { x: { field: "a", type: "quantitative" } } });
  * const ready = await c.prepare();
  * if (!ready[DISPLAY]()["text/html"]) throw new Error("prepared");

@@ -1,7 +1,6 @@
 /**
  * Escaping for every string that reaches a display: HTML and SVG text and
- * attributes, Markdown table cells, plain text, and Vega expression string
- * literals.
+ * attributes, Markdown table cells and plain text.
  *
  * @module
  */
@@ -90,19 +89,4 @@ export function escapeMarkdown(s: string): string {
     .replace(/[\\`*_\[\]|~]/g, (c) => "\\" + c)
     .replace(/^(\s*)([#+\-])/, "$1\\$2")
     .replace(/^(\s*\d+)([.)])(?=\s|$)/, "$1\\$2");
-}
-
-/**
- * A Vega expression string literal holding `s` exactly: JSON quoting, with
- * the line and paragraph separators escaped too.
- *
- * @param s any string
- * @example
- * ```ts
- * import { vegaString } from "./escape.ts";
- * if (vegaString(`it's "x"`) !== `"it's \\"x\\""`) throw new Error("vega");
- * ```
- */
-export function vegaString(s: string): string {
-  return JSON.stringify(String(s)).replace(/\u2028/g, "\\u2028").replace(/\u2029/g, "\\u2029");
 }

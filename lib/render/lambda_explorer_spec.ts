@@ -10,6 +10,10 @@
  * the plots can be compared as the slider moves. Fixed field names: profile
  * `lam`, `ll`; points `lam`, `z`, `s`, `lo`, `hi`; labels `lam`, `txt`.
  *
+ * Kept in one file because it builds one spec whose layers refer to each
+ * other by these field names and by the slider's parameter name: split up,
+ * the names would have to be kept in step across files.
+ *
  * @module
  */
 import type { TopLevelSpec } from "../_deps/vega_lite.ts";

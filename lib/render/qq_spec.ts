@@ -12,7 +12,8 @@
  * @module
  */
 import type { TopLevelSpec } from "../_deps/vega_lite.ts";
-import { _keptRanks, type QqData } from "../stats/qq_data.ts";
+import { thinRanks } from "../numeric/thin_ranks.ts";
+import type { QqData } from "../stats/qq_data.ts";
 import { formatCentre, formatCount, formatNumber, roundSig } from "./format.ts";
 import { CHART_CONFIG, PALETTE, PANEL } from "./theme.ts";
 
@@ -234,7 +235,7 @@ export function detrendedSpec(q: QqData, options: QqSpecOptions = {}): TopLevelS
  */
 export function _pickIndices(shown: number, max: number): number[] {
   if (shown <= max) return Array.from({ length: shown }, (_, k) => k);
-  return _keptRanks(shown, max, Math.floor(max / 4)).map((r) => r - 1);
+  return thinRanks(shown, max, Math.floor(max / 4)).map((r) => r - 1);
 }
 
 /** Options of one small QQ panel inside a composed chart. */

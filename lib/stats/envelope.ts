@@ -22,36 +22,7 @@
 import { PlumbError } from "../errors.ts";
 import { betaCdfPair, betaQuantile, logBeta } from "../numeric/beta.ts";
 import { normalQuantile } from "../numeric/normal.ts";
-
-/**
- * The p-quantile of the i-th smallest of n independent uniform values,
- * that is of Beta(i, n − i + 1).
- *
- * Accuracy: within 1e-12 relative of R's `qbeta` on the cases in
- * tests/fixtures/envelope.json. Ranks 1 and n use the closed forms
- * `1 − (1 − p)^(1/n)` and `p^(1/n)`.
- *
- * @param i the rank, 1 ≤ i ≤ n
- * @param n the sample size
- * @param p the probability, 0 < p < 1
- * @returns the quantile in (0, 1)
- * @example
- * ```ts
- * import { uniformOrderQuantile } from "./envelope.ts";
- * // the median of the middle of 3 uniforms is ½ by symmetry
- * if (Math.abs(uniformOrderQuantile(2, 3, 0.5) - 0.5) > 1e-15) throw new Error("median");
- * ```
- */
-export function uniformOrderQuantile(i: number, n: number, p: number): number {
-  _checkRank(i, n);
-  if (!(p > 0 && p < 1)) {
-    throw new PlumbError(
-      "bad-option",
-      `Cannot compute an order-statistic quantile at probability ${p}: use a value strictly between 0 and 1`,
-    );
-  }
-  return betaQuantile(p, i, n - i + 1);
-}
+import { seededRandom } from "../numeric/random.ts";
 
 function _checkRank(i: number, n: number): void {
   if (!Number.isInteger(n) || n < 1) {
@@ -220,20 +191,6 @@ export function normalEnvelope(n: number, options: EnvelopeOptions = {}): Envelo
   });
 }
 
-/** A small seeded generator: SplitMix32-style mixing of a Weyl sequence. */
-function _uniformStream(seed: number): () => number {
-  let s = seed >>> 0;
-  return () => {
-    s = (s + 0x9e3779b9) >>> 0;
-    let z = s;
-    z = Math.imul(z ^ (z >>> 16), 0x85ebca6b) >>> 0;
-    z = Math.imul(z ^ (z >>> 13), 0xc2b2ae35) >>> 0;
-    z = (z ^ (z >>> 16)) >>> 0;
-    // 32 random bits plus half a step: never 0, never 1
-    return (z + 0.5) / 4294967296;
-  };
-}
-
 const _tailCache = new Map<string, number>();
 
 /** Options for {@linkcode simultaneousTail}. */
@@ -262,7 +219,8 @@ export interface SimultaneousOptions {
  * simulated ordered uniform sample u₍₁₎ … u₍ₙ₎ record
  * `min over i of 2·min(Fᵢ(u₍ᵢ₎), 1 − Fᵢ(u₍ᵢ₎))` with Fᵢ the Beta(i, n − i + 1)
  * CDF, then take the (1 − level) quantile of those minima. The ordered
- * uniforms are built from exponential spacings (Rényi 1953). Cached per
+ * uniforms are built from exponential spacings (Rényi 1953), drawn from
+ * plumbline's seeded generator (`numeric/random.ts`). Cached per
  * (n, level, draws, seed).
  *
  * @param n sample size, 1 … 5000
@@ -296,7 +254,7 @@ export function simultaneousTail(n: number, options: SimultaneousOptions = {}): 
   const key = `${n}|${level}|${draws}|${seed}`;
   const hit = _tailCache.get(key);
   if (hit !== undefined) return hit;
-  const rand = _uniformStream(seed);
+  const rng = seededRandom(seed);
   const logB = new Float64Array(n);
   for (let i = 1; i <= n; i++) logB[i - 1] = logBeta(i, n - i + 1);
   const minima = new Float64Array(draws);
@@ -305,10 +263,10 @@ export function simultaneousTail(n: number, options: SimultaneousOptions = {}): 
     // ordered uniforms: partial sums of n + 1 exponentials, normalised
     let sum = 0;
     for (let i = 0; i < n; i++) {
-      sum -= Math.log(rand());
+      sum -= Math.log(rng.uniform());
       u[i] = sum;
     }
-    sum -= Math.log(rand());
+    sum -= Math.log(rng.uniform());
     let m = 1;
     for (let i = 0; i < n; i++) {
       const [lo, up] = betaCdfPair(u[i] / sum, i + 1, n - i, logB[i]);

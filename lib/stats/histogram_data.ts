@@ -9,8 +9,8 @@
  *   Diaconis 1981, "On the histogram as a density estimator: L2 theory",
  *   Zeitschrift für Wahrscheinlichkeitstheorie und verwandte Gebiete
  *   57:453–476). The quartiles are Hyndman & Fan's (1996, The American
- *   Statistician 50:361–365) type 7, found by selection (Hoare 1961,
- *   Communications of the ACM 4:321, Algorithm 65 FIND) in linear time.
+ *   Statistician 50:361–365) type 7, found by selection (`numeric/select.ts`)
+ *   without sorting a large sample.
  *   When the IQR is 0 the Scott rule is used instead, and the result says so.
  * - `"scott"`: h = 3.49 · sd · n^(−1/3) (Scott 1979, "On optimal and
  *   data-based histograms", Biometrika 66:605–610).
@@ -23,8 +23,11 @@
  * @module
  */
 import { PlumbError } from "../errors.ts";
+import { ldexp, rescaleExponent } from "../numeric/ldexp.ts";
 import { normalPdf } from "../numeric/normal.ts";
+import { selectRanks } from "../numeric/select.ts";
 import { checkNotConstant, checkSize, checkSpreadFinite, finiteCopy } from "./_input.ts";
+import { _sampleShape, type _Shape } from "./moments.ts";
 
 /** A bin-width rule. */
 export type BinRule = "freedman-diaconis" | "scott" | "sturges";
@@ -72,67 +75,28 @@ export interface HistogramData {
   readonly curveY: readonly number[];
 }
 
-/** k-th smallest (0-based) of a, rearranging a in place (Hoare's FIND). */
-function _select(a: Float64Array, k: number): number {
-  let lo = 0;
-  let hi = a.length - 1;
-  while (lo < hi) {
-    const pivot = a[(lo + hi) >>> 1];
-    let i = lo;
-    let j = hi;
-    while (i <= j) {
-      while (a[i] < pivot) i++;
-      while (a[j] > pivot) j--;
-      if (i <= j) {
-        const t = a[i];
-        a[i] = a[j];
-        a[j] = t;
-        i++;
-        j--;
-      }
-    }
-    if (k <= j) hi = j;
-    else if (k >= i) lo = i;
-    else return a[k];
-  }
-  return a[k];
-}
-
-/** Type-7 quantile at probability p, using selection on a scratch copy. */
-export function _quantile7(scratch: Float64Array, p: number): number {
-  const h = (scratch.length - 1) * p;
+/** Type-7 quantile at probability p, from the two order statistics around it. */
+function _quantile7(at: (rank: number) => number, n: number, p: number): number {
+  const h = (n - 1) * p;
   const lo = Math.floor(h);
-  const v = _select(scratch, lo);
+  const v = at(lo + 1);
   if (h === lo) return v;
-  // the next order statistic is the minimum of the part above lo
-  let next = Infinity;
-  for (let i = lo + 1; i < scratch.length; i++) if (scratch[i] < next) next = scratch[i];
-  return v + (h - lo) * (next - v);
+  return v + (h - lo) * (at(lo + 2) - v);
 }
 
-/** Beyond these magnitudes the sample is binned after an exact rescaling by a power of two. */
-const _RESCALE_BELOW = 2 ** -200;
-const _RESCALE_ABOVE = 2 ** 200;
-
-/** v · 2^k in two steps, exact whenever the result and the middle step are normal numbers. */
-function _times2(v: number, k: number): number {
-  const h = Math.trunc(k / 2);
-  return v * 2 ** h * 2 ** (k - h);
-}
-
-function _meanSd(x: Float64Array): [number, number] {
-  let s = 0;
-  for (let i = 0; i < x.length; i++) s += x[i];
-  const m0 = s / x.length;
-  let c = 0;
-  let ss = 0;
-  for (let i = 0; i < x.length; i++) {
-    const d = x[i] - m0;
-    c += d;
-    ss += d * d;
+/** The interquartile range (type 7) of data in any order, by selection. */
+function _iqrBySelection(data: Float64Array): number {
+  const n = data.length;
+  const ranks = new Set<number>();
+  for (const p of [0.25, 0.75]) {
+    const lo = Math.floor((n - 1) * p);
+    ranks.add(lo + 1);
+    if (lo + 2 <= n) ranks.add(lo + 2);
   }
-  const n = x.length;
-  return [m0 + c / n, Math.sqrt(Math.max(0, (ss - (c * c) / n) / (n - 1)))];
+  const wanted = [...ranks].sort((a, b) => a - b);
+  const got = selectRanks(data, wanted).value;
+  const at = (r: number) => got[wanted.indexOf(r)];
+  return _quantile7(at, n, 0.75) - _quantile7(at, n, 0.25);
 }
 
 /**
@@ -160,50 +124,39 @@ export function histogramData(x: ArrayLike<number>, options: HistogramOptions = 
     if (data[i] > max) max = data[i];
   }
   checkNotConstant(Float64Array.of(min, max), what);
-  const big = Math.max(-min, max);
-  if (big > _RESCALE_ABOVE || big < _RESCALE_BELOW) {
+  const k = rescaleExponent(Math.max(-min, max));
+  if (k !== 0) {
     // Bin x·2ᵏ, whose range, squares and density cannot overflow or underflow,
     // and map the lengths back (counts and curve heights do not change).
-    const k = -Math.floor(Math.log2(big));
-    const h = histogramData(data.map((v) => _times2(v, k)), options);
-    checkSpreadFinite(_times2(h.sd, -k), what);
-    const back = (a: readonly number[]) => Object.freeze(a.map((v) => _times2(v, -k)));
+    const h = histogramData(data.map((v) => ldexp(v, k)), options);
+    checkSpreadFinite(ldexp(h.sd, -k), what);
+    const back = (a: readonly number[]) => Object.freeze(a.map((v) => ldexp(v, -k)));
     const edges = back(h.edges) as number[];
     return Object.freeze({
       ...h,
       // A bin spanning values near −1.8e308 to +1.8e308 is wider than the largest double.
-      binWidth: Math.min(Number.MAX_VALUE, _times2(h.binWidth, -k)),
+      binWidth: Math.min(Number.MAX_VALUE, ldexp(h.binWidth, -k)),
       edges: Object.freeze([min, ...edges.slice(1, -1), max]),
-      mean: _times2(h.mean, -k),
-      sd: _times2(h.sd, -k),
+      mean: ldexp(h.mean, -k),
+      sd: ldexp(h.sd, -k),
       curveX: Object.freeze([min, ...back(h.curveX).slice(1, -1), max]),
     });
   }
-  return _histogramBuild(data, min, max, options, () => {
-    const scratch = data.slice();
-    return _quantile7(scratch, 0.75) - _quantile7(scratch, 0.25);
-  });
-}
-
-/** Type-7 quantile at probability p of a sample sorted ascending. */
-function _sortedQuantile7(sorted: Float64Array, p: number): number {
-  const h = (sorted.length - 1) * p;
-  const lo = Math.floor(h);
-  const v = sorted[lo];
-  if (h === lo) return v;
-  return v + (h - lo) * (sorted[lo + 1] - v);
+  const { mean, sd } = _sampleShape(data, what);
+  return _histogramBuild(data, { min, max, mean, sd }, options, () => _iqrBySelection(data));
 }
 
 /**
- * {@linkcode histogramData} for a sample whose sorted copy the caller
- * already holds: `values` finite and not constant, in their original order
- * (the mean and sd are summed in that order), and `sorted` the same values
- * ascending. Gives the same result as `histogramData(values, options)`
- * without copying the sample or selecting the quartiles again.
+ * {@linkcode histogramData} for a sample whose sorted copy and
+ * {@linkcode _sampleShape} the caller already holds: `values` finite and not
+ * constant, in their original order, and `sorted` the same values ascending.
+ * Gives the same result as `histogramData(values, options)` without copying
+ * the sample, summing it or selecting the quartiles again.
  */
 export function _histogramDataSorted(
   values: Float64Array,
   sorted: Float64Array,
+  shape: _Shape,
   options: HistogramOptions = {},
 ): HistogramData {
   const what = "a histogram";
@@ -212,26 +165,25 @@ export function _histogramDataSorted(
   const min = sorted[0];
   const max = sorted[n - 1];
   checkNotConstant(Float64Array.of(min, max), what);
-  const big = Math.max(-min, max);
-  if (big > _RESCALE_ABOVE || big < _RESCALE_BELOW) return histogramData(values, options);
+  if (rescaleExponent(Math.max(-min, max)) !== 0) return histogramData(values, options);
+  const at = (rank: number) => sorted[rank - 1];
   return _histogramBuild(
     values,
-    min,
-    max,
+    { min, max, mean: shape.mean, sd: shape.sd },
     options,
-    () => _sortedQuantile7(sorted, 0.75) - _sortedQuantile7(sorted, 0.25),
+    () => _quantile7(at, n, 0.75) - _quantile7(at, n, 0.25),
   );
 }
 
 /** The histogram of finite, non-constant data with moderate magnitudes (see histogramData). */
 function _histogramBuild(
   data: Float64Array,
-  min: number,
-  max: number,
+  summary: { min: number; max: number; mean: number; sd: number },
   options: HistogramOptions,
   interquartile: () => number,
 ): HistogramData {
   const n = data.length;
+  const { min, max, mean, sd } = summary;
   const maxBins = options.maxBins ?? 200;
   const curvePoints = options.curvePoints ?? 121;
   if (!Number.isInteger(maxBins) || maxBins < 1) {
@@ -246,7 +198,6 @@ function _histogramBuild(
       `Cannot use curvePoints = ${curvePoints}: use a whole number of at least 2`,
     );
   }
-  const [mean, sd] = _meanSd(data);
   let rule: BinRule = options.rule ?? "freedman-diaconis";
   const range = max - min;
   const cube = Math.cbrt(n);

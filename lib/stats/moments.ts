@@ -5,6 +5,7 @@
  *
  * @module
  */
+import { ldexp, rescaleExponent } from "../numeric/ldexp.ts";
 import { checkNotConstant, checkSize, checkSpreadFinite, finiteCopy } from "./_input.ts";
 
 /** Mean, spread and shape of a sample. Frozen plain data. */
@@ -33,7 +34,7 @@ export interface Moments {
  * Internal summary shared by the moment-based tests. The sample is handled
  * as u = x·2^scaleExp (an exact rescaling, 0 unless the magnitudes are
  * extreme); `centreHi + centreLo` is the mean of u carried in two parts and
- * `sdScaled` the sd of u, so that {@linkcode _standardised} stays accurate
+ * `sdScaled` the sd of u, so that {@linkcode _zScore} stays accurate
  * when the spread is tiny next to the mean and cannot overflow.
  */
 export interface _Shape {
@@ -45,16 +46,6 @@ export interface _Shape {
   readonly centreHi: number;
   readonly centreLo: number;
   readonly sdScaled: number;
-}
-
-/** Below 2⁻²⁰⁰ or above 2²⁰⁰ the values are rescaled so that x⁴ can neither overflow nor underflow. */
-const _RESCALE_BELOW = 2 ** -200;
-const _RESCALE_ABOVE = 2 ** 200;
-
-/** v · 2^k in two steps, exact whenever the result and the middle step are normal numbers. */
-function _times2(v: number, k: number): number {
-  const h = Math.trunc(k / 2);
-  return v * 2 ** h * 2 ** (k - h);
 }
 
 /**
@@ -80,9 +71,8 @@ export function _sampleShape(s: Float64Array, what: string): _Shape {
     else if (v > hi) hi = v;
   }
   if (lo === hi) checkNotConstant(s, what); // a constant sample is sorted, so this throws
-  const big = Math.max(Math.abs(lo), Math.abs(hi));
-  const k = big > _RESCALE_ABOVE || big < _RESCALE_BELOW ? -Math.floor(Math.log2(big)) : 0;
-  const u = k === 0 ? s : s.map((v) => _times2(v, k));
+  const k = rescaleExponent(Math.max(Math.abs(lo), Math.abs(hi)));
+  const u = k === 0 ? s : s.map((v) => ldexp(v, k));
 
   // Pass 1: compensated mean.
   let sum = 0;
@@ -125,8 +115,8 @@ export function _sampleShape(s: Float64Array, what: string): _Shape {
   const m4 = a4 - 4 * delta * a3 + 6 * dd * a2 - 3 * dd * dd;
   const sdScaled = Math.sqrt(m2 * n / (n - 1));
   return {
-    mean: _times2(c0 + delta, -k),
-    sd: _times2(sdScaled, -k),
+    mean: ldexp(c0 + delta, -k),
+    sd: ldexp(sdScaled, -k),
     g1: m3 / (m2 * Math.sqrt(m2)),
     g2: m4 / (m2 * m2) - 3,
     scaleExp: k,
@@ -136,17 +126,28 @@ export function _sampleShape(s: Float64Array, what: string): _Shape {
   };
 }
 
-/** z-scores (x − mean)/sd of the sample `s` described by `shape`, in a new array. */
-export function _standardised(s: Float64Array, shape: _Shape): Float64Array {
-  const z = new Float64Array(s.length);
-  for (let i = 0; i < s.length; i++) z[i] = _zScore(s[i], shape);
-  return z;
+/**
+ * Mean and standard deviation (divisor n − 1) of a finite sample of n ≥ 2:
+ * those of {@linkcode _sampleShape}, and an sd of exactly 0 for a constant
+ * sample (which `_sampleShape` refuses). The one place outside the moments
+ * summary where a mean and sd are taken.
+ */
+export function _meanSd(x: Float64Array): { readonly mean: number; readonly sd: number } {
+  let lo = x[0];
+  let hi = x[0];
+  for (let i = 1; i < x.length; i++) {
+    if (x[i] < lo) lo = x[i];
+    else if (x[i] > hi) hi = x[i];
+  }
+  if (lo === hi) return { mean: lo, sd: 0 };
+  const { mean, sd } = _sampleShape(x, "a mean and standard deviation");
+  return { mean, sd };
 }
 
 /** The z-score (v − mean)/sd of one value of the sample described by `shape`. */
 export function _zScore(v: number, shape: _Shape): number {
   const k = shape.scaleExp;
-  const u = k === 0 ? v : _times2(v, k);
+  const u = k === 0 ? v : ldexp(v, k);
   return (u - shape.centreHi - shape.centreLo) / shape.sdScaled;
 }
 

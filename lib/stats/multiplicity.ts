@@ -8,6 +8,38 @@ import { PlumbError } from "../errors.ts";
 /** The adjustment methods plumbline offers. */
 export type Adjustment = "holm" | "bh" | "none";
 
+/** Each adjustment's name in words, for tables and sentences. */
+export const ADJUSTMENT_NAMES: Readonly<Record<Adjustment, string>> = Object.freeze({
+  holm: "Holm",
+  bh: "Benjamini–Hochberg",
+  none: "unadjusted",
+});
+
+/**
+ * The adjustment named by an option, checked: `"holm"` when absent, and
+ * `PlumbError("bad-option")` for anything that is not a method plumbline
+ * offers.
+ *
+ * @param method the option's value
+ * @example
+ * ```ts
+ * import { checkAdjustment } from "./multiplicity.ts";
+ * if (checkAdjustment(undefined) !== "holm" || checkAdjustment("bh") !== "bh") throw new Error("adjust");
+ * ```
+ */
+export function checkAdjustment(method: unknown): Adjustment {
+  const m = method ?? "holm";
+  if (m === "holm" || m === "bh" || m === "none") return m;
+  return _unknownAdjustment(m);
+}
+
+function _unknownAdjustment(method: unknown): never {
+  throw new PlumbError(
+    "bad-option",
+    `Unknown p-value adjustment "${String(method)}": use "holm", "bh" or "none"`,
+  );
+}
+
 function _check(p: readonly number[]): void {
   for (let i = 0; i < p.length; i++) {
     if (!(p[i] >= 0 && p[i] <= 1)) {
@@ -94,12 +126,7 @@ export function benjaminiHochbergAdjust(p: readonly number[]): number[] {
 export function adjustPValues(p: readonly number[], method: Adjustment): number[] {
   if (method === "holm") return holmAdjust(p);
   if (method === "bh") return benjaminiHochbergAdjust(p);
-  if (method === "none") {
-    _check(p);
-    return [...p];
-  }
-  throw new PlumbError(
-    "bad-option",
-    `Unknown p-value adjustment "${String(method)}": use "holm", "bh" or "none"`,
-  );
+  if (method !== "none") _unknownAdjustment(method);
+  _check(p);
+  return [...p];
 }

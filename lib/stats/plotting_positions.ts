@@ -101,3 +101,38 @@ export function normalScores(
   }
   return out;
 }
+
+/** How many sample sizes {@linkcode blomScoresUpper} keeps (oldest evicted first). */
+const _BLOM_CACHE_LIMIT = 64;
+const _blomCache = new Map<number, Float64Array>();
+
+/**
+ * The upper half of Blom's normal scores for a sample of n, largest first:
+ * element k is −Φ⁻¹(p₍ₖ₊₁₎) = Φ⁻¹(p₍ₙ₋ₖ₎), p at Blom's offset (k = 0 … ⌊n/2⌋ − 1),
+ * the approximate expected value of the (k + 1)-th largest standard normal
+ * order statistic (Blom 1958). The lower half is its negative. Computed once
+ * per n and cached: the Shapiro–Wilk coefficients and the Shapiro–Francia
+ * statistic both start from these scores. The array is shared: do not modify it.
+ *
+ * @param n the sample size, ≥ 2
+ * @example
+ * ```ts
+ * import { blomScoresUpper, normalScores } from "./plotting_positions.ts";
+ * const m = blomScoresUpper(5);
+ * if (m.length !== 2 || m[0] !== normalScores(5)[4]) throw new Error("Blom");
+ * ```
+ */
+export function blomScoresUpper(n: number): Float64Array {
+  const hit = _blomCache.get(n);
+  if (hit !== undefined) return hit;
+  const half = Math.floor(n / 2);
+  const m = new Float64Array(half);
+  const denominator = n + 1 - 2 * BLOM_OFFSET;
+  for (let k = 0; k < half; k++) m[k] = -normalQuantile((k + 1 - BLOM_OFFSET) / denominator);
+  if (_blomCache.size >= _BLOM_CACHE_LIMIT) {
+    const oldest = _blomCache.keys().next().value;
+    if (oldest !== undefined) _blomCache.delete(oldest);
+  }
+  _blomCache.set(n, m);
+  return m;
+}

@@ -4,7 +4,8 @@
  *
  * @module
  */
-import { normalQuantile, normalSf } from "../numeric/normal.ts";
+import { normalSf } from "../numeric/normal.ts";
+import { blomScoresUpper } from "./plotting_positions.ts";
 import { checkSize, sortedSample, tiesWarning } from "./_input.ts";
 import { freezeResult, type TestResult } from "./result.ts";
 
@@ -12,27 +13,27 @@ const _NAME = "the Shapiro–Francia test";
 const _MIN_N = 5;
 const _MAX_N = 5000;
 
-/** Blom scores m_i = Φ⁻¹((i − 3/8)/(n + 1/4)), upper half, and Σm² (both halves); cached per n. */
-const _scores = new Map<number, { m: Float64Array; ss: number }>();
-const _CACHE_LIMIT = 64;
-
-function _blom(n: number): { m: Float64Array; ss: number } {
-  const hit = _scores.get(n);
-  if (hit) return hit;
-  const half = Math.floor(n / 2);
-  const m = new Float64Array(half);
-  let ss = 0;
-  for (let k = 0; k < half; k++) {
-    m[k] = -normalQuantile((k + 1 - 0.375) / (n + 0.25));
-    ss += 2 * m[k] * m[k];
-  }
-  if (_scores.size >= _CACHE_LIMIT) {
-    const oldest = _scores.keys().next().value;
-    if (oldest !== undefined) _scores.delete(oldest);
-  }
-  const entry = { m, ss };
-  _scores.set(n, entry);
-  return entry;
+/**
+ * Royston's (1993) normalising approximation for the Shapiro–Francia
+ * statistic: ln(1 − W′) of a normal sample of n is treated as normal with
+ * mean −1.2725 + 1.0521(v − u) and sd 1.0308 − 0.26758(v + 2/u), where
+ * u = ln n and v = ln u (Royston, P. (1993), "A pocket-calculator algorithm
+ * for the Shapiro–Francia test for non-normality: an application to
+ * medicine", Statistics in Medicine 12:181–184; constants transcribed from
+ * memory of the paper). Royston fits 5 ≤ n ≤ 5000.
+ *
+ * @param n the sample size
+ * @example
+ * ```ts
+ * import { shapiroFranciaNull } from "./shapiro_francia.ts";
+ * const { mean, sd } = shapiroFranciaNull(100);
+ * if (!(mean < -4 && sd > 0)) throw new Error("ln(1 − W′) is small and spread for normal data");
+ * ```
+ */
+export function shapiroFranciaNull(n: number): { readonly mean: number; readonly sd: number } {
+  const u = Math.log(n);
+  const v = Math.log(u);
+  return { mean: -1.2725 + 1.0521 * (v - u), sd: 1.0308 - 0.26758 * (v + 2 / u) };
 }
 
 /**
@@ -41,14 +42,12 @@ function _blom(n: number): { m: Float64Array; ss: number } {
  * ordered sample and approximate expected normal order statistics, here
  * Blom's scores m_i = Φ⁻¹((i − 3/8)/(n + 1/4)).
  *
- * p-value by Royston's approximation (Royston 1993, "A pocket-calculator
- * algorithm for the Shapiro–Francia test for non-normality: an application
- * to medicine", Statistics in Medicine 12:181–184): with u = log n and
- * v = log u, log(1 − W′) is treated as normal with mean −1.2725 + 1.0521(v − u)
- * and sd 1.0308 − 0.26758(v + 2/u); the p-value is its upper tail. Royston
- * states the approximation for 5 ≤ n ≤ 5000. (The constants were
- * transcribed from memory of the published paper; the reference test checks
- * the arithmetic against an independent implementation, not the constants.)
+ * p-value by Royston's approximation (Royston 1993, see
+ * {@linkcode shapiroFranciaNull}): log(1 − W′) is treated as normal, and the
+ * p-value is its upper tail. Royston states the approximation for
+ * 5 ≤ n ≤ 5000. (The constants were transcribed from memory of the published
+ * paper; the reference test checks the arithmetic against an independent
+ * implementation, not the constants.)
  *
  * Errors: `PlumbError` with code `"too-few"` (n < 5), `"too-many"`
  * (n > 5000), `"non-finite"`, `"constant"`.
@@ -74,7 +73,9 @@ export function shapiroFrancia(x: ArrayLike<number>): TestResult {
 export function _shapiroFranciaSorted(s: Float64Array): TestResult {
   const n = s.length;
   checkSize(n, _MIN_N, _MAX_N, _NAME);
-  const { m, ss } = _blom(n);
+  const m = blomScoresUpper(n);
+  let ss = 0;
+  for (let k = 0; k < m.length; k++) ss += 2 * m[k] * m[k];
   const lo = s[0];
   // Centre and scale by the range; when the range overflows (values near
   // ±1.8e308 of both signs), halve before subtracting.
@@ -100,10 +101,7 @@ export function _shapiroFranciaSorted(s: Float64Array): TestResult {
   const root = Math.sqrt(ss * sxx);
   const oneMinus = Math.max(0, ((root - sxm) * (root + sxm)) / (ss * sxx));
   const w = 1 - oneMinus;
-  const u = Math.log(n);
-  const v = Math.log(u);
-  const mu = -1.2725 + 1.0521 * (v - u);
-  const sigma = 1.0308 - 0.26758 * (v + 2 / u);
+  const { mean: mu, sd: sigma } = shapiroFranciaNull(n);
   const p = oneMinus === 0 ? 1 : normalSf((Math.log(oneMinus) - mu) / sigma);
   const warnings: string[] = [];
   const ties = tiesWarning(s);

@@ -22,7 +22,7 @@
  *
  * @module
  */
-import { normalQuantile } from "../numeric/normal.ts";
+import { blomScoresUpper } from "./plotting_positions.ts";
 
 /** Royston (1992) polynomial for aₙ, in u = 1/√n (constant term excluded). */
 const _C1 = [0, 0.221157, -0.147981, -2.07119, 4.434685, -2.706056];
@@ -64,12 +64,9 @@ export function shapiroWilkCoefficients(n: number): Float64Array {
     a[0] = Math.SQRT1_2;
   } else {
     // m[k] for k = 0 … half−1 is the (k+1)-th largest expected order statistic (positive).
-    const m = new Float64Array(half);
+    const m = blomScoresUpper(n);
     let summ2 = 0;
-    for (let k = 0; k < half; k++) {
-      m[k] = -normalQuantile((k + 1 - 0.375) / (n + 0.25));
-      summ2 += m[k] * m[k];
-    }
+    for (let k = 0; k < half; k++) summ2 += m[k] * m[k];
     summ2 *= 2;
     const ssumm2 = Math.sqrt(summ2);
     const u = 1 / Math.sqrt(n);

@@ -5,6 +5,7 @@
  *
  * @module
  */
+import { seededRandom } from "../../lib/numeric/random.ts";
 import assert from "node:assert/strict";
 import { PlumbError } from "../../lib/errors.ts";
 
@@ -98,16 +99,10 @@ export function ulpStep(x: number, k: number): number {
   return Number.isFinite(y) ? y : x;
 }
 
-/** A small seeded generator (mulberry32), for large samples built from one seed. */
+/** Uniforms in (0, 1) from plumbline's seeded generator, for large samples built from one seed. */
 export function prng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  const rng = seededRandom(seed);
+  return () => rng.uniform();
 }
 
 /** The kinds of extreme sample {@linkcode extremeSample} builds. */

@@ -11,7 +11,7 @@
 import assert from "node:assert/strict";
 import fc from "fast-check";
 import { loadTable } from "../../lib/data/load_table.ts";
-import { DISPLAY, type MimeBundle, VEGALITE_MIME } from "../../lib/render/display.ts";
+import { DISPLAY, type MimeBundle, VEGALITE_MIME } from "../../lib/results/display.ts";
 import { renderSvg } from "../../lib/render/svg.ts";
 import { plumb } from "../../lib/plumb/plumb.ts";
 import { survey } from "../../lib/plumb/survey.ts";

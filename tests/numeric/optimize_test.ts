@@ -1,6 +1,6 @@
 import { equal, ok, throws } from "node:assert/strict";
 import fc from "fast-check";
-import { maximizeInInterval, minimizeInInterval } from "../../lib/numeric/optimize.ts";
+import { minimizeInInterval } from "../../lib/numeric/optimize.ts";
 import { assertClose } from "../_assert_close.ts";
 
 // Tolerance: Brent's localmin locates a smooth minimum to about
@@ -35,13 +35,6 @@ Deno.test("NaN values are never chosen; budget exhaustion is reported", () => {
   equal(b.converged, false);
   equal(b.evaluations, 4);
   throws(() => minimizeInInterval((x) => x, [1, 1]), RangeError);
-});
-
-Deno.test("maximizeInInterval reports f's own value", () => {
-  const r = maximizeInInterval((x) => -((x + 0.5) ** 2) + 4, [-3, 3]);
-  assertClose(r.x, -0.5, LOC, "vertex");
-  assertClose(r.value, 4, { abs: 1e-12 }, "maximum value");
-  ok(Object.isFrozen(r));
 });
 
 Deno.test("property: quartic-plus-parabola minima are located to 1e-7", () => {

@@ -5,12 +5,15 @@
  */
 import { deepEqual, equal, throws } from "node:assert/strict";
 import { PlumbError } from "../../lib/errors.ts";
-import { seededRandom } from "../../lib/numeric/random.ts";
+import { randomSubsample, seededRandom } from "../../lib/numeric/random.ts";
 import { SPLIT_MIN_N } from "../../lib/numeric/sort.ts";
-import { _subsample, analyse } from "../../lib/plumb/analysis.ts";
+import { analyse } from "../../lib/plumb/analysis.ts";
 import { readShape } from "../../lib/plumb/reading.ts";
 import { andersonDarling } from "../../lib/stats/anderson_darling.ts";
-import { dagostinoPearson } from "../../lib/stats/dagostino_pearson.ts";
+import {
+  dagostinoPearson,
+  type DagostinoPearsonResult,
+} from "../../lib/stats/dagostino_pearson.ts";
 import { histogramData } from "../../lib/stats/histogram_data.ts";
 import { jarqueBera } from "../../lib/stats/jarque_bera.ts";
 import { lilliefors } from "../../lib/stats/lilliefors.ts";
@@ -21,7 +24,7 @@ import { shapiroWilk } from "../../lib/stats/shapiro_wilk.ts";
 
 const ORIGIN = { label: "x", column: "x", missingDropped: 0, textDropped: 0 };
 
-/** The dense partial Fisher–Yates shuffle the sparse `_subsample` must reproduce. */
+/** The dense partial Fisher–Yates shuffle the sparse `randomSubsample` must reproduce. */
 function denseSubsample(x: Float64Array, size: number, seed: number): Float64Array {
   const rng = seededRandom(seed);
   const idx = new Int32Array(x.length).map((_, i) => i);
@@ -85,6 +88,8 @@ for (const [n, kind] of CASES) {
     const primary = n > 5000 ? shapiroWilk(denseSubsample(x, 5000, 1)) : shapiroWilk(x);
     equal(a.primary.statistic, primary.statistic);
     equal(a.primary.pValue, primary.pValue);
+    equal(a.primary.n, Math.min(n, 5000), "the primary test's n is the values it used");
+    deepEqual(a.subsample, n > 5000 ? { size: 5000, seed: 1 } : null);
     const expected = [
       primary,
       unwrap(() => shapiroFrancia(x)),
@@ -97,26 +102,33 @@ for (const [n, kind] of CASES) {
       const got = a.tests[t].result ?? { skipped: a.tests[t].skipped };
       deepEqual(got, expected[t], a.tests[t].test);
     }
-    deepEqual(a.qq, qqData(x, { rows }));
+    const qq = qqData(x, { rows });
+    deepEqual(a.qq, qq);
     deepEqual(a.histogram, histogramData(x));
+    // The reading from the public functions' results alone, none taken from the analysis.
+    const k2 = expected[4] as DagostinoPearsonResult | { skipped: string };
     const reading = readShape({
       n,
       moments: moments(x),
-      primary: a.primary,
-      dagostino: a.tests[4].result as never,
-      qq: a.qq,
+      primary,
+      dagostino: "skipped" in k2 ? undefined : k2,
+      qq,
       values: x,
+      subsample: n > 5000 ? { size: 5000, seed: 1 } : null,
     });
     deepEqual(a.reading, reading);
   });
 }
 
-Deno.test("_subsample (sparse) draws exactly the dense shuffle's subsample", () => {
+Deno.test("randomSubsample (sparse) draws exactly the dense shuffle's subsample", () => {
   const x = sample(20000, 3, "normal");
   for (const seed of [1, 2, 99]) {
-    deepEqual(_subsample(x, 5000, seed), denseSubsample(x, 5000, seed));
+    deepEqual(randomSubsample(x, 5000, seed), denseSubsample(x, 5000, seed));
   }
-  deepEqual(_subsample(x.subarray(0, 5000), 5000, 4), denseSubsample(x.subarray(0, 5000), 5000, 4));
+  deepEqual(
+    randomSubsample(x.subarray(0, 5000), 5000, 4),
+    denseSubsample(x.subarray(0, 5000), 5000, 4),
+  );
 });
 
 Deno.test("analyse: input errors name the moments summary, as before the shared sort", () => {

@@ -4,7 +4,7 @@ import { PlumbError } from "../../lib/errors.ts";
 import { logShift } from "../../lib/reexpress/log.ts";
 import { plumb } from "../../lib/plumb/plumb.ts";
 import { survey } from "../../lib/plumb/survey.ts";
-import { DISPLAY, type MimeBundle } from "../../lib/render/display.ts";
+import { DISPLAY, type MimeBundle } from "../../lib/results/display.ts";
 import { SHAPES } from "./_shapes.ts";
 
 // Invented test table: a skewed column with zeros, a near-normal one, a group column,

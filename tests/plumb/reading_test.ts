@@ -1,4 +1,4 @@
-import { equal, match, ok } from "node:assert/strict";
+import { deepEqual, equal, match, ok } from "node:assert/strict";
 import { analyse } from "../../lib/plumb/analysis.ts";
 import { SHAPES } from "./_shapes.ts";
 
@@ -61,7 +61,9 @@ Deno.test("reading: normal n = 50,000 is no clear departure, judged by effect si
   equal(a.reading.verdict, "no-clear-departure");
   match(a.reading.sizeNote, /even trivial departures give small p-values/);
   match(a.reading.sizeNote, /seeded random subsample of 5000/);
-  equal(a.primary.n, 50000);
+  equal(a.n, 50000);
+  equal(a.primary.n, 5000, "W and p come from the subsample, and say so in their n");
+  deepEqual(a.subsample, { size: 5000, seed: 1 });
   ok(
     a.primary.warnings[0].startsWith(
       "Shapiro–Wilk's p-value is calibrated for at most 5000 values",

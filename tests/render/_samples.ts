@@ -5,6 +5,7 @@
  * @module
  */
 import type { TopLevelSpec } from "vega-lite";
+import { normalSample } from "../_shared.ts";
 import { histogramData } from "../../lib/stats/histogram_data.ts";
 import { qqData } from "../../lib/stats/qq_data.ts";
 import { comparisonSpec } from "../../lib/render/comparison_spec.ts";
@@ -13,19 +14,8 @@ import { histogramSpec } from "../../lib/render/histogram_spec.ts";
 import { lambdaExplorerSpec } from "../../lib/render/lambda_explorer_spec.ts";
 import { detrendedSpec, qqSpec } from "../../lib/render/qq_spec.ts";
 
-/** Standard normals from xorshift32 (Marsaglia 2003) and Box–Muller (1958). */
-export function normals(n: number, seed: number): Float64Array {
-  let s = seed >>> 0 || 1;
-  const u = () => {
-    s ^= s << 13;
-    s ^= s >>> 17;
-    s ^= s << 5;
-    return ((s >>> 0) + 0.5) / 4294967296;
-  };
-  const out = new Float64Array(n);
-  for (let i = 0; i < n; i++) out[i] = Math.sqrt(-2 * Math.log(u())) * Math.cos(2 * Math.PI * u());
-  return out;
-}
+/** Seeded standard normals. */
+export const normals = normalSample;
 
 /** A right-skewed positive sample: exp(μ + σ·Z). */
 export function skewed(n: number, seed: number): Float64Array {

@@ -1,6 +1,6 @@
 import assert from "node:assert/strict";
 import { chart, chartBundle } from "../../lib/render/chart_bundle.ts";
-import { DISPLAY, displayable, lazyDisplayable, VEGALITE_MIME } from "../../lib/render/display.ts";
+import { DISPLAY, displayable, lazyDisplayable, VEGALITE_MIME } from "../../lib/results/display.ts";
 import { qqSpec } from "../../lib/render/qq_spec.ts";
 import { qqData } from "../../lib/stats/qq_data.ts";
 

@@ -1,5 +1,5 @@
 import assert from "node:assert/strict";
-import { escapeHtml, escapeMarkdown, plainText, vegaString } from "../../lib/render/escape.ts";
+import { escapeHtml, escapeMarkdown, plainText } from "../../lib/render/escape.ts";
 
 Deno.test("escapeHtml escapes the five markup characters and control characters", () => {
   assert.equal(
@@ -28,11 +28,4 @@ Deno.test("escapeMarkdown escapes Markdown and HTML and flattens line breaks", (
   assert.equal(escapeMarkdown("# heading"), "\\# heading");
   assert.equal(escapeMarkdown("+ 1"), "\\+ 1");
   assert.equal(escapeMarkdown("0.25 and −1.5 (n = 3)"), "0.25 and −1.5 (n = 3)");
-});
-
-Deno.test("vegaString gives a Vega string literal that reads back exactly", () => {
-  const s = `it's "quoted" \\ back\u2028slash`;
-  const lit = vegaString(s);
-  assert.equal(lit, `"it's \\"quoted\\" \\\\ back\\u2028slash"`);
-  assert.equal(JSON.parse(lit), s);
 });

@@ -1,7 +1,7 @@
 import assert from "node:assert/strict";
 import { compile } from "vega-lite";
 import { chartBundle } from "../../lib/render/chart_bundle.ts";
-import { VEGALITE_MIME } from "../../lib/render/display.ts";
+import { VEGALITE_MIME } from "../../lib/results/display.ts";
 import { renderSvg } from "../../lib/render/svg.ts";
 import { KINDS, specsFor } from "./_samples.ts";
 

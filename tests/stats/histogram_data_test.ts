@@ -2,6 +2,7 @@ import assert from "node:assert/strict";
 import { assertClose } from "../_assert_close.ts";
 import { PlumbError } from "../../lib/errors.ts";
 import { histogramData } from "../../lib/stats/histogram_data.ts";
+import { seededRandom } from "../../lib/numeric/random.ts";
 
 /** Type-7 quantile by sorting (Hyndman & Fan 1996), independent of the selection code. */
 function quantile7(x: ArrayLike<number>, p: number): number {
@@ -11,15 +12,10 @@ function quantile7(x: ArrayLike<number>, p: number): number {
   return lo + 1 < s.length ? s[lo] + (h - lo) * (s[lo + 1] - s[lo]) : s[lo];
 }
 
+/** Seeded standard exponentials. */
 function sample(n: number): number[] {
-  let s = 99;
-  const u = () => {
-    s ^= s << 13;
-    s ^= s >>> 17;
-    s ^= s << 5;
-    return ((s >>> 0) + 0.5) / 4294967296;
-  };
-  return Array.from({ length: n }, () => -Math.log(u()));
+  const rng = seededRandom(99);
+  return Array.from({ length: n }, () => -Math.log(rng.uniform()));
 }
 
 Deno.test("Freedman–Diaconis bins: k = ⌈range / (2·IQR·n^(−1/3))⌉, every value counted once", () => {

@@ -4,20 +4,9 @@ import { PlumbError } from "../../lib/errors.ts";
 import { normalEnvelope } from "../../lib/stats/envelope.ts";
 import { normalScores } from "../../lib/stats/plotting_positions.ts";
 import { qqData } from "../../lib/stats/qq_data.ts";
+import { normalSample } from "../_shared.ts";
 
-/** A seeded xorshift32 sample of standard normals (Box & Muller 1958). */
-function normals(n: number, seed: number): Float64Array {
-  let s = seed >>> 0 || 1;
-  const u = () => {
-    s ^= s << 13;
-    s ^= s >>> 17;
-    s ^= s << 5;
-    return ((s >>> 0) + 0.5) / 4294967296;
-  };
-  const out = new Float64Array(n);
-  for (let i = 0; i < n; i++) out[i] = Math.sqrt(-2 * Math.log(u())) * Math.cos(2 * Math.PI * u());
-  return out;
-}
+const normals = normalSample;
 
 Deno.test("qqData orders the values, keeps their rows and fits mean and sd", () => {
   const x = [4.1, 3.9, 4.4, 4.0, 4.2, 3.7, 4.6];
@@ -100,33 +89,6 @@ Deno.test("qqData rejects unusable input with PlumbError", () => {
     assert.equal(e.message, "Cannot use maxPoints = 5: use a whole number of at least 20");
     return true;
   });
-});
-
-Deno.test("selection without a full sort gives exactly the sorted values, for awkward samples", async () => {
-  const { _keptRanks, _selectRanks } = await import("../../lib/stats/qq_data.ts");
-  const n = 200_000;
-  const z = normals(n, 77);
-  const cases: Record<string, Float64Array> = {
-    normal: z,
-    exponential: z.map((v, i) => -Math.log((i % 9973 + 0.5) / 9973) * (1 + 0 * v)),
-    rounded: z.map((v) => Math.round(v * 10) / 10),
-    "half zeros": z.map((v, i) => (i % 2 === 0 ? 0 : v)),
-    "already sorted": z.slice().sort(),
-    reversed: z.slice().sort().reverse(),
-    "wild outliers": z.map((v, i) => (i % 50_000 === 0 ? v * 1e12 : v)),
-  };
-  for (const [name, x] of Object.entries(cases)) {
-    const ranks = _keptRanks(n, 800, 200);
-    const sorted = x.slice().sort();
-    const got = _selectRanks(x, ranks);
-    const rows = new Set<number>();
-    ranks.forEach((r, k) => {
-      assert.equal(got.value[k], sorted[r - 1], `${name}: rank ${r}`);
-      assert.equal(x[got.row[k]], got.value[k], `${name}: row of rank ${r}`);
-      rows.add(got.row[k]);
-    });
-    assert.equal(rows.size, ranks.length, `${name}: every kept rank has its own row`);
-  }
 });
 
 Deno.test("a simultaneous envelope is wider than the pointwise one at every rank", () => {

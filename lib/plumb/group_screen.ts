@@ -1,0 +1,171 @@
+/**
+ * The per-group screening behind `.by(column)`, as plain data: the groups in
+ * natural order, each analysed (or skipped with the reason), p-values
+ * adjusted across them, and the pooled within-group residuals.
+ *
+ * @module
+ */
+import type { Table } from "../data/table.ts";
+import { PlumbError } from "../errors.ts";
+import type { Analysis } from "../results/analysis.ts";
+import { _meanSd } from "../stats/moments.ts";
+import { type Adjustment, adjustPValues, checkAdjustment } from "../stats/multiplicity.ts";
+import { refuseCensored } from "./_censored_guard.ts";
+import { analyse, ANALYSE_MIN_N } from "./analysis.ts";
+import { type Step, stepLabel } from "./steps.ts";
+
+/** Options for `.by(column)`. */
+export interface GroupOptions {
+  /**
+   * How p-values are adjusted across the groups: Holm (family-wise error),
+   * Benjamini–Hochberg (`"bh"`, false discovery rate) or `"none"`.
+   * @default "holm"
+   */
+  readonly adjust?: Adjustment;
+}
+
+/** What a per-group chain holds: the table, the variable and its steps, the grouping. */
+export interface GroupState {
+  readonly table: Table;
+  readonly column: string;
+  readonly steps: readonly Step[];
+  readonly options: { readonly dropText?: boolean };
+  readonly groupBy: string;
+  readonly groupOptions: GroupOptions;
+}
+
+/** One group's screening, or why it was not screened. */
+export interface GroupRow {
+  /** The group's value. */
+  readonly group: string;
+  /** Values in the group. */
+  readonly n: number;
+  /** The analysis, when the group has enough values. */
+  readonly analysis?: Analysis;
+  /** The adjusted Shapiro–Wilk p-value. */
+  readonly adjustedP?: number;
+  /** Why the group was not screened. */
+  readonly skipped?: string;
+}
+
+/** The result of a per-group screening, as plain data. */
+export interface GroupResult {
+  readonly label: string;
+  readonly groupBy: string;
+  readonly adjust: Adjustment;
+  readonly groups: readonly GroupRow[];
+  /** Rows left out because their group cell was missing. */
+  readonly noGroup: number;
+  /** Value cells missing (and text cells dropped) across all groups. */
+  readonly missingDropped: number;
+  readonly textDropped: number;
+  /** The pooled within-group residuals (value − group mean), analysed. */
+  readonly residuals?: Analysis;
+}
+
+/** Natural order for group labels: numbers by value, then text. */
+function _compare(a: string, b: string): number {
+  const x = Number(a), y = Number(b);
+  if (a.trim() !== "" && b.trim() !== "" && Number.isFinite(x) && Number.isFinite(y)) return x - y;
+  return a < b ? -1 : a > b ? 1 : 0;
+}
+
+/**
+ * Screen one variable within each group of a grouping column: one analysis
+ * per group with enough values, adjusted p-values across the groups, and the
+ * pooled within-group residuals (value − group mean) analysed.
+ *
+ * @param state the table, the column and its steps, the grouping column and options
+ */
+export function screenGroups(state: GroupState): GroupResult {
+  const { table, column, steps, groupBy, options } = state;
+  const adjust = checkAdjustment(state.groupOptions.adjust);
+  // Raises "non-numeric" (naming rows) unless text cells are dropped on request.
+  const used = table.numeric(column, { dropText: options.dropText ?? false });
+  refuseCensored(used, stepLabel(column, steps));
+  const cells = table.numericCells(column);
+  const g = table.text(groupBy);
+  const byGroup = new Map<string, number[]>();
+  let noGroup = 0;
+  for (let i = 0; i < table.rowCount; i++) {
+    if (cells.missing[i] || cells.nonNumeric[i]) continue;
+    if (g.missing[i]) {
+      noGroup++;
+      continue;
+    }
+    const key = g.values[i];
+    let list = byGroup.get(key);
+    if (!list) byGroup.set(key, list = []);
+    list.push(i);
+  }
+  const label = stepLabel(column, steps);
+  const keys = [...byGroup.keys()].sort(_compare);
+  const residuals: number[] = [];
+  const rows: GroupRow[] = [];
+  for (const key of keys) {
+    const idx = byGroup.get(key)!;
+    let v: Float64Array = Float64Array.from(idx, (i) => cells.values[i]);
+    for (const s of steps) v = s.apply(v);
+    if (v.length >= 2) {
+      const { mean } = _meanSd(v);
+      for (const t of v) residuals.push(t - mean);
+    }
+    if (v.length < ANALYSE_MIN_N) {
+      rows.push({
+        group: key,
+        n: v.length,
+        skipped: `only ${v.length} value${
+          v.length === 1 ? "" : "s"
+        }; at least ${ANALYSE_MIN_N} are needed`,
+      });
+      continue;
+    }
+    const rowsOf = Int32Array.from(idx, (i) => i + 1);
+    try {
+      const a = analyse(v, {
+        label: `${label} — ${groupBy} = ${key}`,
+        column,
+        group: key,
+        transform: steps.length ? label : undefined,
+        missingDropped: 0,
+        textDropped: 0,
+        rows: rowsOf,
+      });
+      rows.push({ group: key, n: v.length, analysis: a });
+    } catch (e) {
+      if (e instanceof PlumbError && e.code === "constant") {
+        rows.push({ group: key, n: v.length, skipped: "every value is the same" });
+      } else throw e;
+    }
+  }
+  const tested = rows.filter((r) => r.analysis);
+  const adj = adjustPValues(tested.map((r) => r.analysis!.primary.pValue), adjust);
+  const adjusted = new Map(tested.map((r, k) => [r.group, adj[k]]));
+  const final = rows.map((r) =>
+    Object.freeze(r.analysis ? { ...r, adjustedP: adjusted.get(r.group) } : r)
+  );
+  let res: Analysis | undefined;
+  if (residuals.length >= ANALYSE_MIN_N) {
+    try {
+      res = analyse(Float64Array.from(residuals), {
+        label: `${label} residuals within ${groupBy}`,
+        column,
+        transform: steps.length ? label : undefined,
+        missingDropped: used.provenance.missingDropped,
+        textDropped: used.provenance.textDropped,
+      });
+    } catch (e) {
+      if (!(e instanceof PlumbError && e.code === "constant")) throw e;
+    }
+  }
+  return Object.freeze({
+    label,
+    groupBy,
+    adjust,
+    groups: Object.freeze(final),
+    noGroup,
+    missingDropped: used.provenance.missingDropped,
+    textDropped: used.provenance.textDropped,
+    residuals: res,
+  });
+}
