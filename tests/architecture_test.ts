@@ -89,6 +89,7 @@ function _resolve(from: string, spec: string): string | null {
 /** Why an import breaks the rules, or null when it keeps them. */
 function _violation(imp: Import): string | null {
   const fromLayer = _layerOf(imp.from);
+  if (imp.to.startsWith("node:")) return null; // the runtime's built-in modules
   if (!imp.to.startsWith(".")) {
     return fromLayer === "_deps" ? null : "imports a package directly (only lib/_deps/ may)";
   }
@@ -146,6 +147,7 @@ Deno.test("the import rules catch what they are meant to catch", () => {
   assert.match(String(check("results/x.ts", 'import { a } from "../render/y.ts";')[0]), /results/);
   assert.deepEqual(check("numeric/x.ts", 'import { a } from "../results/y.ts";'), [null]);
   assert.match(String(check("stats/x.ts", 'import x from "npm:jstat@1.9.6";')[0]), /package/);
+  assert.deepEqual(check("render/x.ts", 'import { deflateSync } from "node:zlib";'), [null]);
   assert.match(String(check("stats/x.ts", 'const m = await import("../plumb/y.ts");')[0]), /above/);
   // A doc example's import line is not an import.
   assert.deepEqual(check("stats/x.ts", '/**\n * import { a } from "../plumb/y.ts";\n */'), []);
