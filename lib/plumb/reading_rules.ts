@@ -31,7 +31,7 @@
  *
  * @module
  */
-import type { Verdict } from "./reading.ts";
+import type { Verdict } from "../results/reading.ts";
 
 /** Every threshold of the reading, with its source in the module header. */
 export const READING_RULES = Object.freeze({

@@ -16,7 +16,7 @@
  * @module
  */
 import { PlumbError } from "../errors.ts";
-import type { MimeBundle } from "./display.ts";
+import type { MimeBundle } from "../results/display.ts";
 import { escapeHtml } from "./escape.ts";
 
 /** The file types a display can be saved as. */

@@ -22,9 +22,9 @@
  */
 import { seededRandom } from "../../lib/numeric/random.ts";
 import { sortFloat64 } from "../../lib/numeric/sort.ts";
-import { _subsample } from "../../lib/plumb/analysis.ts";
+import { randomSubsample } from "../../lib/numeric/random.ts";
 import { gatherEvidence } from "../../lib/plumb/reading_evidence.ts";
-import type { Verdict } from "../../lib/plumb/reading.ts";
+import type { Verdict } from "../../lib/results/reading.ts";
 import { _momentsOf, _sampleShape } from "../../lib/stats/moments.ts";
 import { _shapiroWilkSorted } from "../../lib/stats/shapiro_wilk.ts";
 
@@ -62,7 +62,7 @@ function verdictOf(x: Float64Array): Verdict {
   const n = x.length;
   const sorted = sortFloat64(x.slice());
   if (sorted[0] === sorted[n - 1]) return "no-clear-departure";
-  const sw = _shapiroWilkSorted(n > 5000 ? sortFloat64(_subsample(x, 5000, 1)) : sorted);
+  const sw = _shapiroWilkSorted(n > 5000 ? sortFloat64(randomSubsample(x, 5000, 1)) : sorted);
   if (n < 4) {
     const mean = (sorted[0] + sorted[1] + sorted[2]) / 3;
     const sd = Math.sqrt(sorted.reduce((s, v) => s + (v - mean) ** 2, 0) / 2);
