@@ -28,28 +28,12 @@
  * @module
  */
 import { PlumbError } from "../errors.ts";
+import { log1pmx, stirlingCorrection } from "./gamma.ts";
 import { normalQuantile } from "./normal.ts";
 
 /** Stirling-series threshold: arguments below it are shifted up first. */
 const _STIRLING_MIN = 10;
 const _HALF_LOG_2PI = 0.9189385332046728; // ½·log(2π)
-
-/**
- * Stirling's correction δ(x) = log Γ(x) − [(x − ½)log x − x + ½log 2π],
- * for x ≥ 10 (Abramowitz & Stegun 6.1.41; coefficients B₂ₖ/(2k(2k − 1))
- * from the Bernoulli numbers).
- */
-function _stirlingDelta(x: number): number {
-  const r = 1 / x;
-  const r2 = r * r;
-  return r *
-    (1 / 12 -
-      r2 *
-        (1 / 360 -
-          r2 *
-            (1 / 1260 -
-              r2 * (1 / 1680 - r2 * (1 / 1188 - r2 * (691 / 360360 - r2 * (1 / 156)))))));
-}
 
 /**
  * log B(a, b) for a, b > 0, without cancellation between large terms.
@@ -81,7 +65,29 @@ export function logBeta(a: number, b: number): number {
   const la = a <= b ? Math.log(a / s) : Math.log1p(-b / s);
   const lb = a <= b ? Math.log1p(-a / s) : Math.log(b / s);
   return (a - 0.5) * la + (b - 0.5) * lb - 0.5 * Math.log(s) + _HALF_LOG_2PI +
-    _stirlingDelta(a) + _stirlingDelta(b) - _stirlingDelta(s) + shift;
+    stirlingCorrection(a) + stirlingCorrection(b) - stirlingCorrection(s) + shift;
+}
+
+/**
+ * log of the prefactor xᵃ(1 − x)ᵇ/B(a, b). For a, b ≥ 10 it is written, with
+ * s = a + b and d = x·s − a, as a·[log(1 + d/a) − d/a] + b·[log(1 − d/b) + d/b]
+ * + ½·log(ab/(2πs)) + δ(s) − δ(a) − δ(b) (δ from Stirling's series; the ±d
+ * terms cancel exactly), so that no two terms of size a or b cancel — the
+ * form of Temme (1979, SIAM Journal on Mathematical Analysis 10:757–766)
+ * and of the saddle-point binomial terms of Loader (2000, "Fast and accurate
+ * computation of binomial probabilities").
+ */
+function _logPrefactor(x: number, a: number, b: number, lx: number, l1x: number, logB: number) {
+  const s = a + b;
+  const d = x * s - a;
+  // Away from the centre (|d| > a/2 or b/2) the direct form is as good, and
+  // better near x = 0 or 1, where log x and log(1 − x) carry full precision
+  // but 1 ± d/a would be formed with an absolute error of about s·ε.
+  if (a < _STIRLING_MIN || b < _STIRLING_MIN || Math.abs(d) > 0.5 * Math.min(a, b)) {
+    return a * lx + b * l1x - logB;
+  }
+  return a * log1pmx(d / a) + b * log1pmx(-d / b) + 0.5 * Math.log((a * b) / (2 * Math.PI * s)) +
+    stirlingCorrection(s) - stirlingCorrection(a) - stirlingCorrection(b);
 }
 
 /** Continued fraction of A&S 26.5.8 by modified Lentz; converges for x < (a+1)/(a+b+2). */
@@ -184,14 +190,16 @@ export function betaCdfPair(
       const lower = _binomialUpper(b, a, l1x, lx, logB);
       return [lower, 1 - lower];
     }
-    const lower = Math.exp(a * lx + b * l1x - logB) * _betaContinuedFraction(x, a, b) / a;
+    const lower = Math.exp(_logPrefactor(x, a, b, lx, l1x, logB)) *
+      _betaContinuedFraction(x, a, b) / a;
     return [lower, 1 - lower];
   }
   if (x < 0.5 && Number.isInteger(a) && a <= _BINOMIAL_SUM_MAX) {
     const upper = _binomialUpper(a, b, lx, l1x, logB);
     return [1 - upper, upper];
   }
-  const upper = Math.exp(a * lx + b * l1x - logB) * _betaContinuedFraction(1 - x, b, a) / b;
+  const upper = Math.exp(_logPrefactor(x, a, b, lx, l1x, logB)) *
+    _betaContinuedFraction(1 - x, b, a) / b;
   return [1 - upper, upper];
 }
 
