@@ -11,11 +11,11 @@ import assert from "node:assert/strict";
 const LIB = new URL("../lib/", import.meta.url);
 
 /** Layers from the bottom up: a module may import its own layer and those below it. */
-const LAYERS = ["numeric", "stats", "reexpress", "render", "data", "plumb"] as const;
+const LAYERS = ["numeric", "stats", "reexpress", "stakes", "render", "data", "plumb"] as const;
 type Layer = (typeof LAYERS)[number];
 /** Modules every layer may import: errors, the result types and display protocol, packages. */
 const SHARED = ["errors", "results", "_deps"] as const;
-/** Layers whose imports of stats and reexpress must be type-only: they handle plain results. */
+/** Layers whose imports of stats, reexpress and stakes must be type-only: they handle plain results. */
 const TYPES_ONLY_FROM_STATS: readonly string[] = ["render", "results"];
 
 /** The hard limit on a file's length, and the length above which its header must say why. */
@@ -101,7 +101,8 @@ function _violation(imp: Import): string | null {
   if (toLayer === "errors" || toLayer === "_deps" || toLayer === fromLayer) return null;
   if (toLayer === "results") return null;
   if (
-    TYPES_ONLY_FROM_STATS.includes(fromLayer) && (toLayer === "stats" || toLayer === "reexpress")
+    TYPES_ONLY_FROM_STATS.includes(fromLayer) &&
+    (toLayer === "stats" || toLayer === "reexpress" || toLayer === "stakes")
   ) {
     return imp.typeOnly ? null : `${fromLayer} may import only types from ${toLayer}`;
   }
@@ -124,7 +125,7 @@ Deno.test("every folder of lib/ is a known layer or shared module", () => {
   for (const f of files) assert.ok(known.includes(_layerOf(f)), `${f}: not in a known layer`);
 });
 
-Deno.test("lib/ imports only downward: numeric < stats < reexpress < render < data < plumb", () => {
+Deno.test("lib/ imports only downward: numeric < stats < reexpress < stakes < render < data < plumb", () => {
   const bad: string[] = [];
   for (const [f, text] of texts) {
     for (const imp of _imports(f, text)) {
@@ -143,6 +144,9 @@ Deno.test("the import rules catch what they are meant to catch", () => {
   assert.match(String(check("data/x.ts", 'import { a } from "../plumb/y.ts";')[0]), /above/);
   assert.match(String(check("render/x.ts", 'import { a } from "../stats/y.ts";')[0]), /types/);
   assert.deepEqual(check("render/x.ts", 'import type { A } from "../stats/y.ts";'), [null]);
+  assert.match(String(check("render/x.ts", 'import { a } from "../stakes/y.ts";')[0]), /types/);
+  assert.match(String(check("stakes/x.ts", 'import { a } from "../render/y.ts";')[0]), /above/);
+  assert.deepEqual(check("stakes/x.ts", 'import { a } from "../reexpress/y.ts";'), [null]);
   assert.deepEqual(check("render/x.ts", 'import { type A, type B } from "../stats/y.ts";'), [null]);
   assert.match(String(check("results/x.ts", 'import { a } from "../render/y.ts";')[0]), /results/);
   assert.deepEqual(check("numeric/x.ts", 'import { a } from "../results/y.ts";'), [null]);

@@ -1,0 +1,195 @@
+/**
+ * Whether the normal-theory answer and the answer that does not assume
+ * normality differ by enough to matter, quantity by quantity. The rules are
+ * plumbline's own (no published rule exists for this comparison); each
+ * compares the difference with the sampling or resampling noise of the
+ * robust answer, so that a difference smaller than that noise never counts.
+ *
+ * - Central range: it matters when a normal-theory limit lies outside the
+ *   confidence interval of the rank-based limit, or below zero for a
+ *   quantity that is never negative; with fewer than 120 values or an open
+ *   interval and no flag, it is unclear (the rank limits are too uncertain).
+ * - Fraction outside: it matters when the normal fit's fraction lies outside
+ *   the observed fraction's exact interval; when it does not but the normal
+ *   and re-expressed fits differ by more than a factor of 2 (each counted
+ *   from 1 per million), it is unclear: the data cannot tell which is right.
+ * - Capability: it matters when the re-expressed or percentile-based Cpk lies
+ *   outside the interval of the normal-theory Cpk.
+ * - Mean: it matters when an end of the bootstrap interval differs from the
+ *   t interval's by more than a tenth of the t half-width and by more than
+ *   three times the bootstrap end's own resampling error.
+ *
+ * @module
+ */
+import { normalPdf, normalQuantile } from "../numeric/normal.ts";
+import type { CentralRange } from "./central_range.ts";
+import { RANK_LIMITS_MIN_N } from "./central_range.ts";
+import type { CapabilityStakes, OutsideFractions } from "./specification.ts";
+
+/** The three verdicts plumbline gives on a difference. */
+export type StakesVerdict = "matters" | "negligible" | "unclear";
+
+/** One quantity's verdict and the reasons for it. */
+export interface QuantityJudgement {
+  /** Whether the difference matters. */
+  readonly verdict: StakesVerdict;
+  /** Why, in sentences. */
+  readonly reasons: readonly string[];
+}
+
+/** The verdicts of a stakes result: plain, frozen data. */
+export interface StakesJudgement {
+  /** The central range. */
+  readonly range: QuantityJudgement;
+  /** The fraction outside the limits (`null` without limits). */
+  readonly outside: QuantityJudgement | null;
+  /** The capability indices (`null` without limits). */
+  readonly capability: QuantityJudgement | null;
+  /** The mean's interval. */
+  readonly mean: QuantityJudgement;
+  /** `"matters"` if any quantity's does, else `"unclear"` if any is, else `"negligible"`. */
+  readonly overall: StakesVerdict;
+}
+
+/** The mean's intervals, as the judge needs them. */
+interface _Mean {
+  readonly level: number;
+  readonly t: readonly [number, number];
+  readonly bootstrap: readonly [number | null, number | null];
+  readonly bootstrapDetail: { readonly resamples: number };
+  readonly tDetail: { readonly tQuantile: number };
+}
+
+function _g(v: number): string {
+  return String(+v.toPrecision(3)).replace("-", "−");
+}
+
+function _pct(v: number): string {
+  if (v === 0) return "0%";
+  const p = v * 100;
+  return p >= 0.1 ? `${_g(p)}%` : `${_g(v * 1e6)} per million`;
+}
+
+function _q(verdict: StakesVerdict, reasons: string[]): QuantityJudgement {
+  return Object.freeze({ verdict, reasons: Object.freeze(reasons) });
+}
+
+function _range(r: CentralRange, n: number): QuantityJudgement {
+  if (r.flags.length > 0) return _q("matters", r.flags.map((f) => f.message));
+  const pct = `${+(r.ranksCiLevel * 100).toPrecision(6)}%`;
+  const open = r.ranksCi.some(([a, b]) => a === null || b === null);
+  if (n < RANK_LIMITS_MIN_N || open) {
+    return _q("unclear", [
+      `The normal-theory limits lie inside the ${pct} intervals of the rank-based limits, but ` +
+      `with ${n} values those intervals are ${open ? "open on one side" : "wide"}: ` +
+      "too few values to tell the two answers apart",
+    ]);
+  }
+  return _q("negligible", [
+    `Both normal-theory limits lie inside the ${pct} intervals of the rank-based limits`,
+  ]);
+}
+
+function _outside(o: OutsideFractions): QuantityJudgement {
+  const [lo, hi] = o.observedCi;
+  const pct = `${+(o.level * 100).toPrecision(6)}%`;
+  if (o.normal < lo || o.normal > hi) {
+    return _q("matters", [
+      `The normal fit puts ${_pct(o.normal)} outside the limits; the observed ${
+        _pct(o.observed)
+      } ` +
+      `(${pct} interval ${_pct(lo)} to ${_pct(hi)}) rules that out`,
+    ]);
+  }
+  if (o.reexpressed !== null) {
+    const floor = 1e-6;
+    const ratio = (Math.max(o.normal, o.reexpressed) + floor) /
+      (Math.min(o.normal, o.reexpressed) + floor);
+    if (ratio > 2) {
+      return _q("unclear", [
+        `The normal fit puts ${_pct(o.normal)} outside the limits and the re-expressed fit ` +
+        `${_pct(o.reexpressed)}; both agree with the observed ${_pct(o.observed)} ` +
+        `(${pct} interval ${_pct(lo)} to ${_pct(hi)}), so the data cannot tell which is right`,
+      ]);
+    }
+  }
+  return _q("negligible", [
+    `The normal fit's ${_pct(o.normal)} outside the limits agrees with the observed ` +
+    `${_pct(o.observed)} (${pct} interval ${_pct(lo)} to ${_pct(hi)})` +
+    (o.reexpressed === null ? "" : ` and with the re-expressed fit's ${_pct(o.reexpressed)}`),
+  ]);
+}
+
+function _capability(c: CapabilityStakes): QuantityJudgement {
+  const [lo, hi] = c.normal.cpkCi;
+  const pct = `${+(c.normal.level * 100).toPrecision(6)}%`;
+  const others: [string, number][] = [];
+  if (c.reexpressed !== null) others.push(["re-expressed", c.reexpressed.cpk]);
+  if (c.percentile.cpk !== null) others.push(["percentile-based", c.percentile.cpk]);
+  if (others.length === 0) {
+    return _q("unclear", [
+      "No index that does not assume normality is available here " +
+      "(no re-expression, and too few values for the percentile-based one)",
+    ]);
+  }
+  const out = others.filter(([, v]) => v < lo || v > hi);
+  const text = (list: [string, number][]) =>
+    list.map(([name, v]) => `the ${name} Cpk ${_g(v)}`).join(" and ");
+  const base = `the normal-theory Cpk ${_g(c.normal.cpk)} (${pct} interval ${_g(lo)} to ${_g(hi)})`;
+  if (out.length > 0) return _q("matters", [`${_cap(text(out))} lies outside ${base}`]);
+  return _q("negligible", [
+    `${_cap(text(others))} lie${others.length === 1 ? "s" : ""} inside ${base}`,
+  ]);
+}
+
+function _cap(s: string): string {
+  return s.charAt(0).toUpperCase() + s.slice(1);
+}
+
+function _mean(m: _Mean): QuantityJudgement {
+  const [b0, b1] = m.bootstrap;
+  if (b0 === null || b1 === null) {
+    return _q("unclear", ["The bootstrap interval could not be formed for these data"]);
+  }
+  const half = (m.t[1] - m.t[0]) / 2;
+  const alpha = (1 - m.level) / 2;
+  const z = normalQuantile(1 - alpha);
+  // resampling error of a bootstrap quantile: √(α(1 − α)/B)/φ(z_α) standard errors
+  const se = half / m.tDetail.tQuantile;
+  const mcse = Math.sqrt((alpha * (1 - alpha)) / m.bootstrapDetail.resamples) / normalPdf(z) * se;
+  const diff = Math.max(Math.abs(b0 - m.t[0]), Math.abs(b1 - m.t[1]));
+  const bar = Math.max(0.1 * half, 3 * mcse);
+  const share = `${_g((diff / half) * 100)}% of the t interval's half-width`;
+  if (diff > bar) {
+    return _q("matters", [
+      `The bootstrap interval's ends differ from the t interval's by up to ${share}: ` +
+      "the sample's skewness moves the mean's uncertainty to one side",
+    ]);
+  }
+  return _q("negligible", [
+    `The bootstrap and t intervals differ by at most ${share}`,
+  ]);
+}
+
+/** The verdicts for a stakes result. */
+export function _judge(
+  range: CentralRange,
+  outside: OutsideFractions | null,
+  capability: CapabilityStakes | null,
+  mean: _Mean,
+  n: number,
+): StakesJudgement {
+  const parts = {
+    range: _range(range, n),
+    outside: outside === null ? null : _outside(outside),
+    capability: capability === null ? null : _capability(capability),
+    mean: _mean(mean),
+  };
+  const all = Object.values(parts).filter((p) => p !== null).map((p) => p!.verdict);
+  const overall: StakesVerdict = all.includes("matters")
+    ? "matters"
+    : all.includes("unclear")
+    ? "unclear"
+    : "negligible";
+  return Object.freeze({ ...parts, overall });
+}
