@@ -32,7 +32,11 @@ async function timeR(x: Float64Array, expr: string, reps: number): Promise<numbe
       `ts <- sapply(seq_len(${reps}), function(i) system.time(f())[["elapsed"]])`,
       "cat(median(ts))",
     ].join("\n");
-    const out = await new Deno.Command("Rscript", { args: ["-e", script], stdout: "piped", stderr: "piped" })
+    const out = await new Deno.Command("Rscript", {
+      args: ["-e", script],
+      stdout: "piped",
+      stderr: "piped",
+    })
       .output();
     if (!out.success) throw new Error(new TextDecoder().decode(out.stderr));
     return Number(new TextDecoder().decode(out.stdout).trim());
@@ -55,12 +59,16 @@ for (const n of [100, 1000, 10000]) {
     "b <- boot(x, function(d, i) mean(d[i]), R = 2000); boot.ci(b, type = 'bca', L = x - mean(x))",
     n >= 10000 ? 5 : 15,
   );
-  const py = await timePython({
-    name: "",
-    data: () => x,
-    ours: () => 0,
-    python: "s.bootstrap((x,), np.mean, n_resamples=2000, method='BCa', random_state=1)",
-  }, x, 2);
+  const py = await timePython(
+    {
+      name: "",
+      data: () => x,
+      ours: () => 0,
+      python: "s.bootstrap((x,), np.mean, n_resamples=2000, method='BCa', random_state=1)",
+    },
+    x,
+    2,
+  );
   console.log(
     `| BCa of the mean, B = 2000, n = ${n} | ${fmtTime(ours)} | ${fmtTime(r)} | ` +
       `${(ours / r).toFixed(2)} | ${fmtTime(py)} | ${(ours / py).toFixed(2)} |`,
@@ -69,6 +77,8 @@ for (const n of [100, 1000, 10000]) {
 for (const n of [1000, 100000]) {
   const x = lognormal(n);
   const ours = timeOurs(() => stakes(x, { lower: 0.3, upper: 4 }), 2);
-  console.log(`| whole stakes view (search, range, limits, mean), n = ${n} | ${fmtTime(ours)} | | | | |`);
+  console.log(
+    `| whole stakes view (search, range, limits, mean), n = ${n} | ${fmtTime(ours)} | | | | |`,
+  );
 }
 console.log(`load average after: ${load()}`);
