@@ -17,6 +17,7 @@ import { type TInterval, tInterval } from "../stats/mean_interval.ts";
 import { _sampleShape } from "../stats/moments.ts";
 import { _levelOption } from "../stats/quantile_interval.ts";
 import { _judge, type StakesJudgement } from "./_judge.ts";
+import { _stakesJSON } from "./_json.ts";
 import { type _ScaleModel, _scaleModel } from "./_model.ts";
 import { _centralRange, type CentralRange } from "./central_range.ts";
 import { _specification, type CapabilityStakes, type OutsideFractions } from "./specification.ts";
@@ -227,81 +228,7 @@ export function stakes(x: ArrayLike<number>, options: StakesOptions = {}): Stake
     mean,
     judgement,
     cautions: Object.freeze([STAKES_CAUTION]),
-    toJSON: () => _toJSON(result),
+    toJSON: () => _stakesJSON(result),
   };
   return Object.freeze(result);
-}
-
-function _toJSON(s: Omit<Stakes, "toJSON">): Record<string, unknown> {
-  const range: Record<string, unknown> = {
-    coverage: s.range.coverage,
-    normal: s.range.normal,
-    ...(s.range.reexpressed === null ? {} : { reexpressed: s.range.reexpressed }),
-    ranks: s.range.ranks,
-    ranksCi: s.range.ranksCi,
-    ranksCiRanks: s.range.ranksCiRanks,
-    ranksCiCoverage: s.range.ranksCiCoverage,
-    ranksCiLevel: s.range.ranksCiLevel,
-    flags: s.range.flags,
-    notes: s.range.notes,
-  };
-  const out: Record<string, unknown> = {
-    n: s.n,
-    reexpression: s.reexpression,
-    reexpressionNote: s.reexpressionNote,
-    range,
-  };
-  if (s.outside !== null) {
-    const o = s.outside;
-    out.outside = {
-      lower: o.lower,
-      upper: o.upper,
-      normal: o.normal,
-      normalSides: o.normalSides,
-      ...(o.reexpressed === null ? {} : { reexpressed: o.reexpressed }),
-      ...(o.reexpressedSides === null ? {} : { reexpressedSides: o.reexpressedSides }),
-      observed: o.observed,
-      observedCounts: o.observedCounts,
-      observedCi: o.observedCi,
-      level: o.level,
-    };
-  }
-  if (s.capability !== null) {
-    const c = s.capability;
-    out.capability = {
-      cp: c.normal.cp,
-      cpCi: c.normal.cpCi,
-      cpk: c.normal.cpk,
-      cpkCi: c.normal.cpkCi,
-      cpl: c.normal.cpl,
-      cpu: c.normal.cpu,
-      level: c.normal.level,
-      ...(c.reexpressed === null ? {} : {
-        reexpressed: {
-          cp: c.reexpressed.cp,
-          cpCi: c.reexpressed.cpCi,
-          cpk: c.reexpressed.cpk,
-          cpkCi: c.reexpressed.cpkCi,
-          limits: [c.reexpressed.lower, c.reexpressed.upper],
-        },
-      }),
-      percentile: c.percentile,
-      notes: c.notes,
-    };
-  }
-  const m = s.mean;
-  out.mean = {
-    estimate: m.estimate,
-    level: m.level,
-    t: m.t,
-    bootstrap: m.bootstrap,
-    resamples: m.bootstrapDetail.resamples,
-    seed: m.seed,
-    acceleration: m.bootstrapDetail.acceleration,
-    bias: m.bootstrapDetail.bias,
-    notes: m.notes,
-  };
-  out.judgement = s.judgement;
-  out.cautions = s.cautions;
-  return out;
 }

@@ -2,11 +2,11 @@
  * The t interval for a population mean: x̄ ± t_{1−α/2, n−1}·s/√n (Student
  * 1908, "The probable error of a mean", Biometrika 6:1–25), exact for
  * normal data and approximately right for others as n grows. The t quantile
- * is {@linkcode studentTQuantile} (within 1e-12 relative of R's `qt`).
+ * is {@linkcode studentTUpper} (within 1e-11 relative of R's `qt`).
  *
  * @module
  */
-import { studentTQuantile } from "../numeric/student_t.ts";
+import { studentTUpper } from "../numeric/student_t.ts";
 import { checkSize, checkSpreadFinite, finiteCopy } from "./_input.ts";
 import { _sampleShape } from "./moments.ts";
 import { _levelOption } from "./quantile_interval.ts";
@@ -58,7 +58,7 @@ export function tInterval(x: ArrayLike<number>, options: MeanIntervalOptions = {
   const n = v.length;
   const { mean, sd } = _sampleShape(v, what);
   checkSpreadFinite(sd, what);
-  const tq = studentTQuantile(1 - (1 - level) / 2, n - 1);
+  const tq = studentTUpper((1 - level) / 2, n - 1);
   const half = (tq * sd) / Math.sqrt(n);
   return Object.freeze({
     n,
