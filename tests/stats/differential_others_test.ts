@@ -93,11 +93,20 @@ Deno.test({
         assertClose(m[k], e[k], tol, `${k}, ${ctx}`);
       }
       const k2 = dagostinoPearson(x);
-      assertClose(k2.skewnessZ, e.zs, tol, `skewness Z, ${ctx}`);
       const flipped = k2.warnings.some((w) => w.includes("Anscombe–Glynn"));
       assertClose(k2.kurtosisZ, flipped ? -e.zk : e.zk, tol, `kurtosis Z, ${ctx}`);
-      assertClose(k2.statistic, e.k2, tol, `K², ${ctx}`);
-      assertClose(k2.pValue, e.pk2, pTol, `K² p, ${ctx}`);
+      if (e.g1 === 0) {
+        // An exactly symmetric sample (e.g. nine equally spaced rounded values):
+        // scipy 1.10's skewtest replaces a zero intermediate y by 1 and reports
+        // Z ≈ 1.02 instead of 0, so its Z, K² and p are not a reference here;
+        // D'Agostino's (1970) score of g1 = 0 is 0 and K² is the kurtosis score².
+        equal(k2.skewnessZ, 0, `skewness Z of a symmetric sample, ${ctx}`);
+        assertClose(k2.statistic, k2.kurtosisZ ** 2, tol, `K² = Zk², ${ctx}`);
+      } else {
+        assertClose(k2.skewnessZ, e.zs, tol, `skewness Z, ${ctx}`);
+        assertClose(k2.statistic, e.k2, tol, `K², ${ctx}`);
+        assertClose(k2.pValue, e.pk2, pTol, `K² p, ${ctx}`);
+      }
       const jb = jarqueBera(x);
       assertClose(jb.statistic, e.jb, tol, `JB, ${ctx}`);
       assertClose(jb.pValue, e.pjb, pTol, `JB p, ${ctx}`);
