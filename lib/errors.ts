@@ -38,7 +38,9 @@ export type PlumbErrorCode =
   /** Values recorded below or above a limit where a method needs measured values. */
   | "censored"
   /** A file type (by its extension) that this display cannot be saved as. */
-  | "unsupported-format";
+  | "unsupported-format"
+  /** A model term that earlier terms already explain (aliased, collinear). */
+  | "collinear";
 
 /**
  * An error raised by plumbline for input it cannot use.
