@@ -123,8 +123,28 @@ function _reduceBlock(r: Float64Array, c: number, b: Float64Array, len: number):
     const scale = 1 / (alpha - beta);
     for (let i = 0; i < len; i++) b[vk + i] *= scale;
     r[k * c + k] = beta;
-    // v = (1 at row k of R, b[vk …] in the block); apply I − τvvᵀ to columns j > k
-    for (let j = k + 1; j < c; j++) {
+    // v = (1 at row k of R, b[vk …] in the block); apply I − τvvᵀ to columns
+    // j > k, two at a time (one pass over v for both dot products and both updates)
+    let j = k + 1;
+    for (; j + 1 < c; j += 2) {
+      const bj = j * len, bj2 = bj + len;
+      let dot = r[j * c + k], dot2 = r[(j + 1) * c + k];
+      for (let i = 0; i < len; i++) {
+        const vi = b[vk + i];
+        dot += vi * b[bj + i];
+        dot2 += vi * b[bj2 + i];
+      }
+      dot *= tau;
+      dot2 *= tau;
+      r[j * c + k] -= dot;
+      r[(j + 1) * c + k] -= dot2;
+      for (let i = 0; i < len; i++) {
+        const vi = b[vk + i];
+        b[bj + i] -= dot * vi;
+        b[bj2 + i] -= dot2 * vi;
+      }
+    }
+    if (j < c) {
       const bj = j * len;
       let dot = r[j * c + k];
       for (let i = 0; i < len; i++) dot += b[vk + i] * b[bj + i];

@@ -146,44 +146,62 @@ export interface _ColumnStats {
 const _STATS_BLOCK = 4096;
 
 /**
- * The range, mean and centred norm of a column over the n complete rows.
- * Pass 1: range and mean m. Pass 2: with t = (x − m)/b, b the largest
- * deviation, Σt and Σt²; the centre is m + b·Σt/n and the centred norm
- * b·√(Σt² − (Σt)²/n), which neither overflows nor loses the digits of a
- * small spread about a large mean.
+ * The range, mean and centred norm of a column over the n complete rows, in
+ * one pass over shifted data: with K the first value and t = x − K, the
+ * centre is K + Σt/n and the centred norm √(Σt² − (Σt)²/n) (the
+ * shifted-data algorithm: Chan, Golub & LeVeque 1983, The American
+ * Statistician 37:242–247), accurate unless K lies far from the mean. When
+ * that cancellation would cost more than 8 digits, or Σt² overflows or
+ * underflows, a second pass shifts by the first pass's mean and divides by a
+ * power of two near the spread (exact).
  */
 export function _columnStats(source: _Source, rows: Int32Array | null, n: number): _ColumnStats {
   const raw: _ColumnSpec = { source, centre: 0, scale: 1 };
   const buf = new Float64Array(Math.min(n, _STATS_BLOCK));
-  let min = Infinity, max = -Infinity, sum = 0;
+  if (n === 0) return { min: Infinity, max: -Infinity, centre: 0, norm: 0 };
+  _fillColumn(raw, rows, 0, 1, buf, 0);
+  const first = _shiftedSums(raw, rows, n, buf, buf[0], 1);
+  const { min, max } = first;
+  if (min === max) return { min, max, centre: min, norm: 0 };
+  let pass = first, shift = buf[0], b = 1;
+  const ok = (q: typeof first) =>
+    Number.isFinite(q.st2) && q.st2 > 1e-280 && q.st2 - (q.st * q.st) / n > 1e-8 * q.st2;
+  if (!ok(pass)) {
+    // the sums overflowed or underflowed, or the first value lies far from the
+    // mean: shift by the mean, scale by a power of two near the spread (exact)
+    const guess = shift + pass.st / n;
+    shift = Number.isFinite(guess) && guess >= min && guess <= max ? guess : min / 2 + max / 2;
+    b = 2 ** Math.floor(Math.log2(Math.max(max - shift, shift - min)));
+    pass = _shiftedSums(raw, rows, n, buf, shift, b);
+  }
+  return {
+    min,
+    max,
+    centre: shift + b * (pass.st / n),
+    norm: b * Math.sqrt(Math.max(0, pass.st2 - (pass.st * pass.st) / n)),
+  };
+}
+
+function _shiftedSums(
+  raw: _ColumnSpec,
+  rows: Int32Array | null,
+  n: number,
+  buf: Float64Array,
+  shift: number,
+  b: number,
+): { min: number; max: number; st: number; st2: number } {
+  let min = Infinity, max = -Infinity, st = 0, st2 = 0;
   for (let start = 0; start < n; start += _STATS_BLOCK) {
     const len = Math.min(_STATS_BLOCK, n - start);
     _fillColumn(raw, rows, start, len, buf, 0);
     for (let i = 0; i < len; i++) {
       const v = buf[i];
-      sum += v;
       if (v < min) min = v;
       if (v > max) max = v;
-    }
-  }
-  if (n === 0 || min === max) return { min, max, centre: n === 0 ? 0 : min, norm: 0 };
-  let m = sum / n;
-  if (!Number.isFinite(m)) m = min / 2 + max / 2; // the sum overflowed: any centre inside the range
-  const big = Math.max(max - m, m - min);
-  let st = 0, st2 = 0;
-  for (let start = 0; start < n; start += _STATS_BLOCK) {
-    const len = Math.min(_STATS_BLOCK, n - start);
-    _fillColumn(raw, rows, start, len, buf, 0);
-    for (let i = 0; i < len; i++) {
-      const t = (buf[i] - m) / big;
+      const t = (v - shift) / b;
       st += t;
       st2 += t * t;
     }
   }
-  return {
-    min,
-    max,
-    centre: m + big * (st / n),
-    norm: big * Math.sqrt(Math.max(0, st2 - (st * st) / n)),
-  };
+  return { min, max, st, st2 };
 }

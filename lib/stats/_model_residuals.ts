@@ -97,7 +97,8 @@ export function _studentize(e: Float64Array, h: Float64Array, rank: number, desi
     studentized[i] = q / Math.sqrt(deleted / (df - 1));
   }
   const ys = design.responseScale;
-  const residuals = e.map((v) => v * ys);
+  const residuals = e; // scaled back in place: e is the fit's own array
+  for (let i = 0; i < n; i++) residuals[i] *= ys;
   return {
     residuals,
     standardized,
