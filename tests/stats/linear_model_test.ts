@@ -93,3 +93,21 @@ for (const c of fixture.cases) {
     }
   });
 }
+
+// An independent check of R and of plumbline on the ill-conditioned and badly
+// scaled cases: mpmath at 60 digits (tests/fixtures/linear_model_mp.json,
+// written by tools/fixtures/linear_model_mp.py from the same inputs).
+const precise = JSON.parse(
+  await Deno.readTextFile(new URL("../fixtures/linear_model_mp.json", import.meta.url)),
+) as { library: { mpmath: string }; cases: { name: string; hat: number[]; rstudent: number[] }[] };
+
+for (const m of precise.cases) {
+  Deno.test(`linear model vs mpmath ${precise.library.mpmath} at 60 digits: ${m.name}`, () => {
+    const c = fixture.cases.find((k) => k.name === m.name)!;
+    const fit = fitCase(c);
+    assertVector(fit.leverages, m.hat, 1e-11, `${m.name}: leverages vs mpmath`);
+    assertVector(fit.studentized, m.rstudent, 1e-11, `${m.name}: rstudent vs mpmath`);
+    // and R's own values, for the record of its accuracy on these cases
+    assertVector(m.rstudent, c.expected.rstudent, 1e-9, `${m.name}: R rstudent vs mpmath`);
+  });
+}
