@@ -9,7 +9,7 @@
  * side of the median, whatever the values' scale).
  *
  * Checked by seeded simulation (tests/stats/serial_dependence_test.ts and
- * tools/simulations/serial_dependence.ts): with α = 0.05, independent
+ * tools/sim/serial_dependence.ts): with α = 0.05, independent
  * normal, exponential and rounded data are flagged in about 4–5% of samples
  * at n = 20 … 1000, and an AR(1) series with φ = 0.7 at n = 200 in all of
  * them.

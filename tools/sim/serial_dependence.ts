@@ -2,7 +2,7 @@
  * How often the serial-dependence check flags independent data (false
  * alarms) and dependent data (power), by seeded simulation: 2,000 samples
  * per cell, α = 0.05. Prints a Markdown table for the README.
- * Run: `deno run tools/simulations/serial_dependence.ts [samples]`.
+ * Run: `deno run tools/sim/serial_dependence.ts [samples]`.
  *
  * @module
  */
