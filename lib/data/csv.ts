@@ -1,6 +1,10 @@
 /**
  * The general CSV reader, built on csv-parse: quoted fields (with delimiters,
- * quotes and line breaks inside), any of `\n`, `\r\n` or `\r` line ends.
+ * quotes and line breaks inside), any of `\n`, `\r\n` or `\r` line ends
+ * (`\r\r\n` counts as two lines, but never makes a blank row). Cells are
+ * trimmed of every Unicode space,
+ * and blank lines at the end of the text are never rows, as in the quick
+ * reader.
  *
  * @module
  */
@@ -18,7 +22,8 @@ import { uniqueNames } from "./header.ts";
 interface _Parsed {
   readonly record: string[];
   readonly raw: string;
-  readonly info: { readonly lines: number };
+  /** The line where the record ends and the byte offset just after it. */
+  readonly info: { readonly lines: number; readonly bytes: number };
 }
 
 /**
@@ -61,11 +66,24 @@ export function _readCsv(
   let first = 0;
   while (first < all.length && blank(all[first])) first++;
   if (first === all.length) throw _noHeader(source);
-  const end = all.length;
   const header = all[first].record;
+  // In a one-column table a blank line is a missing cell, but not the empty
+  // "line" between the two ends of "\r\r\n" (a CRLF file whose "\n" was
+  // turned into "\r\n" once more): a line end written twice over. Its lines
+  // are still counted. csv-parse gives each record's end as a byte offset.
+  const bytes = header.length === 1 && text.includes("\r\r\n") ? _encoder.encode(text) : null;
+  const phantom = (r: number) => {
+    if (bytes === null || !blank(all[r])) return false;
+    const from = all[r - 1].info.bytes;
+    return all[r].info.bytes === from + 2 && bytes[from - 1] === 13 && bytes[from] === 13 &&
+      bytes[from + 1] === 10;
+  };
+  // Blank lines at the end of the text are never rows.
+  let end = all.length;
+  while (end > first + 1 && blank(all[end - 1])) end--;
   const parsed = [all[first]];
   for (let r = first + 1; r < end; r++) {
-    if (header.length === 1 || !blank(all[r])) parsed.push(all[r]);
+    if (header.length === 1 ? !phantom(r) : !blank(all[r])) parsed.push(all[r]);
   }
   const { names, renamed } = uniqueNames(header);
   const rows = parsed.length - 1;
@@ -91,15 +109,16 @@ export function _readCsv(
     lines[r] = line;
     if (record.length !== names.length) throw _ragged(source, line, record.length, names.length);
     for (let j = 0; j < record.length; j++) {
-      const cell = record[j];
-      const trimmed = cell.trim();
-      strings[j][r] = rules.missing.has(trimmed.toLowerCase()) ? "" : cell;
+      // Trimmed of every Unicode space, as the quick reader trims.
+      const trimmed = record[j].trim();
+      strings[j][r] = rules.missing.has(trimmed.toLowerCase()) ? "" : trimmed;
       _storeTextCell(columns[j], r, trimmed, line, rules);
     }
   }
   return { columns, rowCount: rows, renamed };
 }
 
+const _encoder = new TextEncoder();
 const _lineBreaks = /\r\n|\r|\n/g;
 
 /**

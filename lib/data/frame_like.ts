@@ -11,6 +11,15 @@
  * an object with `toArray()`, a `values` array, an iterator, or `length`
  * with `get(i)`.
  *
+ * Nulls are honoured: a column that reports a `nullCount` (Apache Arrow
+ * vectors) is read through its iterator, which yields `null` where the
+ * validity mask says so (its `toArray()` gives the masked slots' stale
+ * values, often 0), and so is one whose `toArray()` length differs from its
+ * `length`. Arrow date and timestamp columns become `Date` cells (text),
+ * never their epoch milliseconds. A single series (a polars `Series`, an
+ * Arrow vector: `toArray()` and a `length`) is one column, named by its
+ * `name` when it has one.
+ *
  * @module
  */
 import { PlumbError } from "../errors.ts";
@@ -92,6 +101,28 @@ function _names(bag: _Bag): string[] | null {
   return null;
 }
 
+/**
+ * The cells of a single series — an object with `toArray()` and a `length`
+ * (a polars `Series`, an Arrow vector) — or null for anything else.
+ *
+ * @param value any object
+ *
+ * @example
+ * ```ts
+ * import { seriesCells } from "./frame_like.ts";
+ * const series = { name: "torque", length: 2, toArray: () => [1.2, null] };
+ * if (seriesCells(series)?.length !== 2 || seriesCells({ x: [1] }) !== null) {
+ *   throw new Error("unexpected");
+ * }
+ * ```
+ */
+export function seriesCells(value: object): ArrayLike<unknown> | null {
+  const bag = value as _Bag;
+  if (typeof bag["toArray"] !== "function") return null;
+  if (typeof bag["length"] !== "number" && typeof bag["len"] !== "function") return null;
+  return _cells(value);
+}
+
 /** A column object as an array-like of cells, or null when it has no known shape. */
 function _cells(column: unknown): ArrayLike<unknown> | null {
   if (Array.isArray(column)) return column;
@@ -100,18 +131,41 @@ function _cells(column: unknown): ArrayLike<unknown> | null {
   }
   if (typeof column !== "object" || column === null) return null;
   const bag = column as _Bag;
+  const iterable =
+    typeof (column as { [Symbol.iterator]?: unknown })[Symbol.iterator] === "function";
   if (typeof bag["toArray"] === "function") {
-    return _cells((bag["toArray"] as () => unknown).call(column));
+    // Arrow: toArray() ignores the validity mask and gives dates as epoch
+    // milliseconds; the iterator honours the mask.
+    const nulls = typeof bag["nullCount"] === "number" && bag["nullCount"] > 0;
+    const temporal = /^(Date|Timestamp)/.test(String(bag["type"] ?? ""));
+    if (iterable && (nulls || temporal)) {
+      return _dates(Array.from(column as Iterable<unknown>), temporal);
+    }
+    const cells = _cells((bag["toArray"] as () => unknown).call(column));
+    if (
+      cells !== null && iterable && typeof bag["length"] === "number" &&
+      cells.length !== bag["length"]
+    ) {
+      return Array.from(column as Iterable<unknown>);
+    }
+    return cells;
   }
   const values = bag["values"];
   if (Array.isArray(values) || (ArrayBuffer.isView(values) && !(values instanceof DataView))) {
     return values as ArrayLike<unknown>;
   }
-  const iterator = (column as { [Symbol.iterator]?: unknown })[Symbol.iterator];
-  if (typeof iterator === "function") return Array.from(column as Iterable<unknown>);
+  if (iterable) return Array.from(column as Iterable<unknown>);
   if (typeof bag["length"] === "number" && typeof bag["get"] === "function") {
     const get = bag["get"] as (i: number) => unknown;
     return Array.from({ length: bag["length"] as number }, (_, i) => get.call(column, i));
   }
   return null;
+}
+
+/** Epoch milliseconds of a date or timestamp column as `Date` cells. */
+function _dates(cells: unknown[], temporal: boolean): unknown[] {
+  if (!temporal) return cells;
+  return cells.map((c) =>
+    typeof c === "number" ? new Date(c) : typeof c === "bigint" ? new Date(Number(c)) : c
+  );
 }

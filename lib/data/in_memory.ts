@@ -17,7 +17,9 @@
  * missing; a string is read like a CSV cell (strict numbers, missing
  * tokens, censored values such as `"<0.5"`, `decimal` "." unless given);
  * `{ below: 0.5 }` and `{ above: 1000 }` are censored cells (below or above
- * that limit); ±Infinity, booleans, dates and other objects are text. Row
+ * that limit); a BigInt is a number when a double holds it exactly and text
+ * otherwise (the `"non-numeric"` error then says why); ±Infinity, booleans,
+ * dates and other objects are text. Row
  * numbers in provenance are 1-based positions; there are no line numbers.
  *
  * Censored values in bulk: in an object or `Map` of columns, a column may be
@@ -159,8 +161,10 @@ function _memoryColumn(
     } else if (typeof v === "string") {
       _storeTextCell(col, i, v.trim(), null, rules);
     } else if (typeof v === "bigint") {
+      // A BigInt that no double holds exactly (beyond ±2^53, unless a power of
+      // two fits) is kept as text, never rounded without a word.
       const x = Number(v);
-      if (Number.isFinite(x)) col.values[i] = x;
+      if (Number.isFinite(x) && BigInt(x) === v) col.values[i] = x;
       else _storeText(col, i, String(v), null);
     } else if (!_storeCensoredCell(col, i, v)) {
       _storeText(col, i, _show(v), null);

@@ -134,18 +134,40 @@ async function _readFile(
 ): Promise<{ bytes: Uint8Array; release: () => void }> {
   const shown = JSON.stringify(path instanceof URL ? path.href : path);
   try {
-    // One read into a buffer of the file's size (faster than Deno.readFile).
     using file = await Deno.open(path);
-    const size = (await file.stat()).size;
+    const info = await file.stat();
+    if (info.isDirectory) {
+      throw new PlumbError(
+        "bad-option",
+        `Cannot read ${shown}: it is a folder; give the path of a file inside it`,
+        { path: String(path) },
+      );
+    }
+    // A regular file is read in one go into a buffer of its size (faster than
+    // Deno.readFile). Pipes, devices and files that report no size (/proc)
+    // are read to their end, however long.
+    const size = info.isFile ? info.size : 0;
     // One spare byte, so that a final line break can be added without a copy.
-    const buffer = _borrow(size + 1);
+    let buffer = _borrow(Math.max(size, 1 << 16) + 1);
     const release = () => {
       _spare = new WeakRef(buffer);
     };
     let filled = 0;
     try {
-      while (filled < size) {
-        const got = await file.read(buffer.subarray(filled, size));
+      for (;;) {
+        if (filled === buffer.length - 1) {
+          // Full: more only if the source has more (a pipe, or a file that grew).
+          const probe = new Uint8Array(1 << 16);
+          const got = await file.read(probe);
+          if (got === null) break;
+          const bigger = new Uint8Array(Math.max(2 * buffer.length, filled + got + 1));
+          bigger.set(buffer.subarray(0, filled));
+          bigger.set(probe.subarray(0, got), filled);
+          buffer = bigger;
+          filled += got;
+          continue;
+        }
+        const got = await file.read(buffer.subarray(filled, buffer.length - 1));
         if (got === null) break;
         filled += got;
       }
@@ -153,9 +175,11 @@ async function _readFile(
       release();
       throw e;
     }
-    if (filled > 0 && buffer[filled - 1] !== 10) buffer[filled++] = 10;
+    // The spare byte after the content stays free: the CSV reader may end
+    // the last line there (UTF-8 text only; a "\n" would break UTF-16).
     return { bytes: buffer.subarray(0, filled), release };
   } catch (e) {
+    if (e instanceof PlumbError) throw e;
     if (e instanceof Deno.errors.NotFound) {
       throw new PlumbError(
         "not-found",

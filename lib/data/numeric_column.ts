@@ -201,12 +201,20 @@ function _nonNumericMessage(table: Table, name: string, p: ColumnProvenance): st
     hints.push("infinite values are not accepted");
   }
   const other = table.decimal === "." ? "," : ".";
+  // Integers kept as text because no double holds them (BigInt cells).
+  const big = (t: string) => /^-?\d{16,}$/.test(t) && !Number.isSafeInteger(Number(t));
   if (
     cells.some((c) =>
+      !big(c.text) &&
       parseNumber(c.text, { decimal: other }) === parseNumber(c.text, { decimal: other })
     )
   ) {
     hints.push(`some cells would read as numbers with decimal: ${JSON.stringify(other)}`);
+  }
+  if (cells.some((c) => big(c.text))) {
+    hints.push(
+      "integers beyond ±2^53 (9007199254740992) cannot be held exactly as numbers; convert them with Number() first if rounding them is acceptable",
+    );
   }
   const word = cells.find((c) => limitWordSide(c.text) !== null);
   if (word !== undefined) {

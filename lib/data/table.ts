@@ -184,14 +184,29 @@ export interface NumericCells {
   readonly nonNumeric: Uint8Array;
 }
 
-/** A column's cells as text, aligned with the table's rows (for grouping). */
+/** A group label that was written in several ways differing only in spaces. */
+export interface MergedLabel {
+  /** The label used: surrounding spaces removed, inner runs of spaces made one space. */
+  readonly label: string;
+  /** Every spelling met, in order of first appearance (the label itself included when met). */
+  readonly spellings: readonly string[];
+}
+
+/**
+ * A column's cells as labels, aligned with the table's rows (for grouping).
+ * Labels that differ only in spaces — surrounding ones, no-break spaces,
+ * doubled spaces — are one label: `" A"`, `"A "` and `"A\u00a0"` all read
+ * `"A"`, and `merged` says which spellings were merged.
+ */
 export interface TextColumn {
   /** The column's name. */
   readonly name: string;
-  /** One string per row; `""` where the cell is missing. Frozen. */
+  /** One label per row; `""` where the cell is missing. Frozen. */
   readonly values: readonly string[];
   /** 1 where the cell is missing, 0 elsewhere. */
   readonly missing: Uint8Array;
+  /** The labels written in more than one way, with their spellings (empty when none). */
+  readonly merged: readonly MergedLabel[];
 }
 
 /** Options for {@linkcode Table.numeric}. */

@@ -5,7 +5,7 @@
  *
  * @module
  */
-import type { Table } from "../data/table.ts";
+import type { MergedLabel, Table } from "../data/table.ts";
 import { PlumbError } from "../errors.ts";
 import type { Analysis } from "../results/analysis.ts";
 import { _meanSd } from "../stats/moments.ts";
@@ -61,6 +61,8 @@ export interface GroupResult {
   readonly textDropped: number;
   /** The pooled within-group residuals (value − group mean), analysed. */
   readonly residuals?: Analysis;
+  /** Group labels written in several ways that differ only in spaces, merged into one group. */
+  readonly mergedLabels: readonly MergedLabel[];
 }
 
 /** Natural order for group labels: numbers by value, then text. */
@@ -167,5 +169,32 @@ export function screenGroups(state: GroupState): GroupResult {
     missingDropped: used.provenance.missingDropped,
     textDropped: used.provenance.textDropped,
     residuals: res,
+    mergedLabels: g.merged,
   });
+}
+
+/**
+ * The note for labels merged because they differ only in spaces, with each
+ * spelling shown so that its spaces can be seen (`"A\u00a0"`).
+ *
+ * @example
+ * ```ts
+ * import { mergedLabelsNote } from "./group_screen.ts";
+ * const note = mergedLabelsNote("line", [{ label: "A", spellings: ["A", " A", "A\u00a0"] }]);
+ * if (note !== 'Labels of line that differ only in spaces were merged: "A" (written "A", " A", "A\\u00a0").') {
+ *   throw new Error(note);
+ * }
+ * ```
+ */
+export function mergedLabelsNote(by: string, merged: readonly MergedLabel[]): string {
+  const visible = (s: string) =>
+    JSON.stringify(s).replace(
+      /[\u0080-\uffff]/g,
+      (c) => /\s|\u200b|\u180e/.test(c) ? `\\u${c.charCodeAt(0).toString(16).padStart(4, "0")}` : c,
+    );
+  const shown = merged.slice(0, 5).map((m) =>
+    `${visible(m.label)} (written ${m.spellings.map(visible).join(", ")})`
+  );
+  const more = merged.length > 5 ? ` and ${merged.length - 5} more labels` : "";
+  return `Labels of ${by} that differ only in spaces were merged: ${shown.join("; ")}${more}.`;
 }

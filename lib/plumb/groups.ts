@@ -20,7 +20,12 @@ import { VERDICT_SHORT } from "../results/reading.ts";
 import { writeSentence } from "./sentence.ts";
 import { _csv } from "./_csv.ts";
 import * as summary from "./_rows.ts";
-import { type GroupResult, type GroupState, screenGroups } from "./group_screen.ts";
+import {
+  type GroupResult,
+  type GroupState,
+  mergedLabelsNote,
+  screenGroups,
+} from "./group_screen.ts";
 
 /**
  * The per-group chain. Create it with `plumb(table, column).by(group)`.
@@ -76,6 +81,7 @@ export class PlumbGroups implements Displayable {
     ];
     const sub = summary.subsampleNote(r.groups.flatMap((g) => (g.analysis ? [g.analysis] : [])));
     if (sub) notes.push(sub);
+    if (r.mergedLabels.length > 0) notes.push(mergedLabelsNote(r.groupBy, r.mergedLabels));
     if (r.noGroup > 0) {
       notes.push(
         `${r.noGroup} row${r.noGroup === 1 ? "" : "s"} with no ${r.groupBy} value left out.`,

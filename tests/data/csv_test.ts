@@ -107,11 +107,11 @@ Deno.test("blank lines are skipped and line numbers still count them", async () 
   assert.deepEqual(t.info("v").provenance.nonNumericCells, [{ row: 2, line: 5, text: "x" }]);
 });
 
-Deno.test("in a one-column table a blank line is a missing cell, counted", () => {
+Deno.test("in a one-column table a blank line is a missing cell, counted; blank lines at the end are not cells", () => {
   for (const reader of ["auto", "csv-parse"] as const) {
     const t = tableFromCsv("\nv\n1\n\nx\n\n", { reader });
-    assert.equal(t.rowCount, 4);
-    assert.equal(t.info("v").provenance.missing, 2);
+    assert.equal(t.rowCount, 3);
+    assert.equal(t.info("v").provenance.missing, 1);
     assert.deepEqual(t.info("v").provenance.nonNumericCells, [{ row: 3, line: 5, text: "x" }]);
   }
 });
@@ -272,4 +272,44 @@ Deno.test("a quote or a lone carriage return late in the text hands over to csv-
   assert.equal(t.text("a").values[100], "x, y");
   const cr = tableFromCsv("a,b\r1,2\r3,4\r");
   assert.deepEqual(Array.from(cr.numeric("b").values), [2, 4]);
+});
+
+Deno.test("a delimiter that can be part of a number: both readers split alike", () => {
+  // "-2--3" with delimiter "-": the fields are "", "2", "", "3", never −2 and −3.
+  for (const reader of ["auto", "csv-parse"] as const) {
+    assert.throws(
+      () => tableFromCsv("a-b\n-2--3\n", { delimiter: "-", reader }),
+      /at line 2: 4 fields where the header has 2/,
+      reader,
+    );
+    const t = tableFromCsv("a-b-c\n1.5-2e3-+4\n", { delimiter: "-", reader });
+    assert.deepEqual([1.5, 2000, 4], ["a", "b", "c"].map((c) => t.numeric(c).values[0]), reader);
+  }
+  assert.deepEqual(
+    Array.from(tableFromCsv("a+b\n1+2\n", { delimiter: "+" }).numeric("b").values),
+    [2],
+  );
+  assert.throws(
+    () => tableFromCsv("a1b\n", { delimiter: "1" }),
+    /give one character other than a digit/,
+  );
+});
+
+Deno.test("\\r\\r\\n line ends and blank lines at the end make no phantom missing cells", () => {
+  for (const reader of ["auto", "csv-parse"] as const) {
+    const doubled = tableFromCsv("v\r\r\n1\r\r\n2\r\r\n3\r\r\n", { reader });
+    assert.equal(doubled.rowCount, 3, reader);
+    assert.equal(doubled.info("v").provenance.missing, 0, reader);
+    // Lines are still counted as an editor shows them (CR, then CR LF).
+    const bad = tableFromCsv("v\r\r\n1\r\r\nx\r\r\n", { reader });
+    assert.deepEqual(bad.info("v").provenance.nonNumericCells, [{ row: 2, line: 5, text: "x" }]);
+    const trailing = tableFromCsv("v\n1\n2\n\n\n\n\n\n", { reader });
+    assert.equal(trailing.rowCount, 2, reader);
+    assert.equal(trailing.info("v").provenance.missing, 0, reader);
+    // A blank line between values is still a missing cell, and a quoted empty
+    // cell at the end is a row.
+    const inner = tableFromCsv('v\r\n1\r\n\r\n2\r\n""\r\n\r\n', { reader: "csv-parse" });
+    assert.equal(inner.rowCount, 4);
+    assert.equal(inner.info("v").provenance.missing, 2);
+  }
 });

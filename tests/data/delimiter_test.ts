@@ -12,6 +12,9 @@ Deno.test("detectDelimiter picks the candidate that splits every line alike", ()
     ["single\n1\n2\n", ","],
     ["", ","],
     ["a,b|c\n1,2|3\n4,5|6\n", ","],
+    // A header with a comma in a name, over decimal-comma numbers: ";" splits them.
+    ["Zeit;Konzentration, mg/L\n1;2,5\n2;3,1\n3;4,7\n", ";"],
+    ["Probe;Wert, µg/L;Lot\n1;2,5;A\n2;3,1;B\n", ";"],
   ];
   for (const [text, expected] of cases) {
     assert.equal(detectDelimiter(text), expected, JSON.stringify(text));

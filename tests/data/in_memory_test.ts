@@ -175,3 +175,49 @@ Deno.test("tableFromMemory is the synchronous form", () => {
   const t = tableFromMemory({ v: [1, 2] });
   assert.deepEqual(Array.from(t.numeric("v").values), [1, 2]);
 });
+
+Deno.test("values that are not tables are refused, saying what to give instead", async () => {
+  function* readings() {
+    yield 1;
+  }
+  const cases: [unknown, RegExp][] = [
+    [readings(), /^Cannot make a table from an iterator or generator: collect its values first/],
+    [new Set([1, 2]), /^Cannot make a table from a Set: give its values as an array, Array\.from/],
+    [new ArrayBuffer(16), /^Cannot make a table from raw bytes \(ArrayBuffer\): for numbers, view/],
+    [new DataView(new ArrayBuffer(8)), /^Cannot make a table from raw bytes \(DataView\)/],
+    [Promise.resolve([1, 2]), /^Cannot make a table from a promise: await it first/],
+    [{}, /^Cannot make a table from an object with no columns \(an empty object\)/],
+    [new Map(), /^Cannot make a table from an empty Map: it has no columns/],
+    [
+      new (class Batch {})(),
+      /^Cannot make a table from an object with no columns \(an instance of Batch\)/,
+    ],
+    [new Date(0), /^Cannot make a table from a Date/],
+    [true, /^Cannot make a table from boolean/],
+  ];
+  for (const [data, message] of cases) {
+    await assert.rejects(() => loadTable(data as object), (e: unknown) => {
+      assert.ok(e instanceof PlumbError, String(e));
+      assert.equal(e.code, "bad-option");
+      assert.match(e.message, message);
+      return true;
+    }, String(message));
+  }
+});
+
+Deno.test("BigInt cells: numbers when a double holds them exactly, text (reported) otherwise", async () => {
+  const t = await loadTable([1n, 2n ** 53n, 2n ** 53n + 1n, -(2n ** 64n), 5n]);
+  const p = t.info("value").provenance;
+  assert.equal(p.numbers, 4);
+  assert.deepEqual(p.nonNumericCells, [{ row: 3, line: null, text: "9007199254740993" }]);
+  assert.throws(() => t.numeric("value"), (e: unknown) => {
+    assert.ok(e instanceof PlumbError);
+    assert.equal(e.code, "non-numeric");
+    assert.match(
+      e.message,
+      /row 3 "9007199254740993" \(integers beyond ±2\^53 \(9007199254740992\) cannot be held exactly as numbers; convert them with Number\(\) first if rounding them is acceptable\)/,
+    );
+    assert.doesNotMatch(e.message, /decimal/);
+    return true;
+  });
+});

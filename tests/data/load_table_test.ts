@@ -99,7 +99,9 @@ Deno.test("property: numbers written to CSV read back identically", async () => 
         const cols = rows[0].length;
         const header = Array.from({ length: cols }, (_, k) => `c${k}`).join(delimiter);
         const show = (v: number | null) => {
-          if (v === null) return "";
+          // A one-column row with an empty cell is written "" (as Python's csv
+          // module does): a blank line at the end of a text is not a row.
+          if (v === null) return cols === 1 ? '""' : "";
           // String(-0) is "0": write the sign so the round trip can keep it.
           const plain = Object.is(v, -0) ? "-0" : String(v);
           const s = delimiter === ";" ? plain.replace(".", ",") : plain;
@@ -123,4 +125,43 @@ Deno.test("property: numbers written to CSV read back identically", async () => 
     ),
     { seed: 424242, numRuns: 300 },
   );
+});
+
+Deno.test("a ';' file whose header holds a comma is read on ';' with decimal commas", async () => {
+  const t = await loadTable("Zeit;Konzentration, mg/L\n1;2,5\n2;3,1\n3;4,7\n");
+  assert.equal(t.delimiter, ";");
+  assert.deepEqual(t.columns.map((c) => c.name), ["Zeit", "Konzentration, mg/L"]);
+  assert.deepEqual(Array.from(t.numeric("Konzentration, mg/L").values), [2.5, 3.1, 4.7]);
+});
+
+Deno.test("a named pipe and a /proc file are read to their end; a folder is refused", async () => {
+  const dir = await Deno.makeTempDir();
+  try {
+    const fifo = `${dir}/lab.pipe`;
+    const made = await new Deno.Command("mkfifo", { args: [fifo] }).output();
+    assert.ok(made.success, "mkfifo");
+    const text = "v\n" + Array.from({ length: 50_000 }, (_, i) => i % 97).join("\n") + "\n";
+    const writer = (async () => {
+      using f = await Deno.open(fifo, { write: true });
+      const bytes = new TextEncoder().encode(text);
+      for (let k = 0; k < bytes.length; k += 4096) await f.write(bytes.subarray(k, k + 4096));
+    })();
+    const t = await loadTable(fifo);
+    await writer;
+    assert.equal(t.rowCount, 50_000);
+    assert.equal(t.info("v").provenance.numbers, 50_000);
+  } finally {
+    await Deno.remove(dir, { recursive: true });
+  }
+  if (Deno.build.os === "linux") {
+    // /proc files report a size of 0 and are read all the same.
+    const t = await loadTable("/proc/self/status", { delimiter: ":" });
+    assert.ok(t.rowCount > 10, `rows ${t.rowCount}`);
+  }
+  await assert.rejects(() => loadTable(new URL(".", import.meta.url)), (e: unknown) => {
+    assert.ok(e instanceof PlumbError);
+    assert.equal(e.code, "bad-option");
+    assert.match(e.message, /: it is a folder; give the path of a file inside it$/);
+    return true;
+  });
 });

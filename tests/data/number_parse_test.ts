@@ -1,6 +1,7 @@
 import assert from "node:assert/strict";
 import fc from "fast-check";
-import { _scanNumber, _wideDecimal, parseNumber } from "../../lib/data/number_parse.ts";
+import { _scanNumber, parseNumber } from "../../lib/data/number_parse.ts";
+import { _wideDecimal } from "../../lib/data/_wide_decimal.ts";
 import { tableFromCsv } from "../../lib/data/csv_text.ts";
 
 Deno.test("parseNumber accepts the strict grammar", () => {

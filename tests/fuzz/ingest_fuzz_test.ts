@@ -239,11 +239,17 @@ Deno.test("ingest fuzz: random and mutated CSV gives a table or a PlumbError", a
         const bytes = _mutate(_encoder.encode(text), ops);
         const what = `CSV ${JSON.stringify(_decoder.decode(bytes).slice(0, 200))}`;
         slowest = Math.max(slowest, await _loadBoth(bytes, dir, what));
-        // The two readers must agree on every text they both accept.
+        // The two readers must agree on every text, given as bytes (invalid
+        // UTF-8 is an error for both) and as a decoded string.
         const decoded = _decoder.decode(bytes);
         const auto = await _load(() => tableFromCsv(bytes));
-        const general = await _load(() => tableFromCsv(decoded, { reader: "csv-parse" }));
-        assert.equal(_summary(general), _summary(auto), `${what}: readers disagree`);
+        const general = await _load(() => tableFromCsv(bytes, { reader: "csv-parse" }));
+        assert.equal(_summary(general), _summary(auto), `${what}: readers disagree on bytes`);
+        assert.equal(
+          _summary(await _load(() => tableFromCsv(decoded, { reader: "csv-parse" }))),
+          _summary(await _load(() => tableFromCsv(decoded))),
+          `${what}: readers disagree on the decoded text`,
+        );
         if (auto.ok) tables++;
         else errors++;
       }),
