@@ -45,7 +45,7 @@ import {
 } from "./_raw_column.ts";
 import { _buildTable } from "./_build_table.ts";
 import { _isTable } from "./_table_store.ts";
-import { _columnsOf, _isRecord } from "./_memory_shapes.ts";
+import { _columnsOf, _isRecord, type _Pair } from "./_memory_shapes.ts";
 import { uniqueNames } from "./header.ts";
 import { _cellRules, _checkLimitColumns, type CellOptions } from "./read_options.ts";
 
@@ -85,7 +85,6 @@ export interface MemoryOptions extends CellOptions {
  */
 export function tableFromMemory(data: unknown, options: MemoryOptions = {}): Table {
   if (_isTable(data)) return data;
-  const rules = _cellRules(options, ".");
   const name = options.name ?? "value";
   if (typeof name !== "string" || name.trim() === "") {
     throw new PlumbError(
@@ -93,7 +92,27 @@ export function tableFromMemory(data: unknown, options: MemoryOptions = {}): Tab
       `Cannot name a column ${JSON.stringify(name)}: give a non-empty name`,
     );
   }
-  const pairs = _columnsOf(data, name);
+  return _tableFromPairs(_columnsOf(data, name), options, { source: "memory" });
+}
+
+/** Where columns read by another reader came from, for provenance. */
+export interface _PairsSource {
+  /** The table's source name. */
+  readonly source: string;
+  /** The line (or sheet row) of a 0-based row, when the source has lines. */
+  readonly lineOf?: (row: number) => number;
+}
+
+/**
+ * A table from (name, cells) pairs of equal length: the in-memory cell
+ * rules, with the reader's source name and line numbers.
+ */
+export function _tableFromPairs(
+  pairs: readonly _Pair[],
+  options: CellOptions,
+  from: _PairsSource,
+): Table {
+  const rules = _cellRules(options, ".");
   const { names, renamed } = uniqueNames(pairs.map((p) => p[0]));
   _checkLimitColumns(rules, names);
   const length = pairs.length === 0 ? 0 : pairs[0][1].length;
@@ -108,11 +127,12 @@ export function tableFromMemory(data: unknown, options: MemoryOptions = {}): Tab
       );
     }
   });
+  const lineOf = from.lineOf ?? null;
   const columns = pairs.map(([original, cells, censor], j) =>
-    _memoryColumn(names[j], original, cells, rules, censor)
+    _memoryColumn(names[j], original, cells, rules, censor, lineOf)
   );
   return _buildTable(columns, {
-    source: "memory",
+    source: from.source,
     rowCount: length,
     renamed,
     delimiter: null,
@@ -126,13 +146,14 @@ function _memoryColumn(
   cells: ArrayLike<unknown>,
   rules: _CellRules,
   censor: ArrayLike<unknown> | undefined,
+  lineOf: ((row: number) => number) | null,
 ): _RawColumn {
   const kept: ArrayLike<unknown> = ArrayBuffer.isView(cells)
     ? (cells as unknown as Float64Array).slice()
     : Array.from(cells);
   const n = kept.length;
   const col: _RawColumn = {
-    ..._newColumn(name, n, () => [], () => null),
+    ..._newColumn(name, n, () => [], (row) => lineOf?.(row) ?? null),
     originalName,
     texts: _cached(() => {
       const out: string[] = new Array(n);
@@ -155,19 +176,19 @@ function _memoryColumn(
     } else if (typeof v === "number") {
       if (Number.isFinite(v)) col.values[i] = v;
       else if (v !== v) _missing(col, i);
-      else _storeText(col, i, String(v), null);
+      else _storeText(col, i, String(v), lineOf?.(i) ?? null);
     } else if (v === null || v === undefined) {
       _missing(col, i);
     } else if (typeof v === "string") {
-      _storeTextCell(col, i, v.trim(), null, rules);
+      _storeTextCell(col, i, v.trim(), lineOf?.(i) ?? null, rules);
     } else if (typeof v === "bigint") {
       // A BigInt that no double holds exactly (beyond ±2^53, unless a power of
       // two fits) is kept as text, never rounded without a word.
       const x = Number(v);
       if (Number.isFinite(x) && BigInt(x) === v) col.values[i] = x;
-      else _storeText(col, i, String(v), null);
+      else _storeText(col, i, String(v), lineOf?.(i) ?? null);
     } else if (!_storeCensoredCell(col, i, v)) {
-      _storeText(col, i, _show(v), null);
+      _storeText(col, i, _show(v), lineOf?.(i) ?? null);
     }
   }
   return col;

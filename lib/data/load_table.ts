@@ -9,6 +9,8 @@ import { PlumbError } from "../errors.ts";
 import { _tableFromCsv, type CsvOptions, tableFromCsv } from "./csv_text.ts";
 import { type MemoryOptions, tableFromMemory } from "./in_memory.ts";
 import { _isTable } from "./_table_store.ts";
+import { _sniffBinary } from "./_encoding.ts";
+import { tableFromWorkbook } from "./workbook.ts";
 
 /**
  * What `loadTable` accepts: a file path (string or `file:` URL), CSV text,
@@ -32,10 +34,16 @@ export interface LoadTableOptions extends Omit<CsvOptions, "sourceName">, Memory
    * @default "auto"
    */
   readonly from?: "auto" | "path" | "text" | "memory";
+  /**
+   * For an Excel workbook: the sheet to read, by name or 1-based position.
+   * @default the first visible sheet
+   */
+  readonly sheet?: string | number;
 }
 
 /**
- * Load a table from a CSV file, CSV text or in-memory data.
+ * Load a table from a CSV file, an Excel workbook, CSV text or in-memory
+ * data.
  *
  * Every cell ends up a number, missing, or text, and each column records how
  * many of each it had and the first text cells with their row (and line).
@@ -89,10 +97,27 @@ export async function loadTable(
     );
   }
   const buffer = await _readFile(source);
+  const sourceName = _baseName(source);
+  // Workbooks are recognised by their bytes, whatever the file is called.
+  const kind = _sniffBinary(buffer.bytes);
+  if (kind === "xlsx") {
+    try {
+      return await tableFromWorkbook(buffer.bytes, { ...options, sourceName });
+    } finally {
+      buffer.release();
+    }
+  }
+  if (options.sheet !== undefined) {
+    buffer.release();
+    throw new PlumbError(
+      "bad-option",
+      `Cannot pick a sheet of ${sourceName}: it is not an Excel workbook; leave out the sheet option`,
+    );
+  }
   // The buffer goes back for the next file unless the table keeps it.
   let kept = false;
   try {
-    return _tableFromCsv(buffer.bytes, { ...options, sourceName: _baseName(source) }, () => {
+    return _tableFromCsv(buffer.bytes, { ...options, sourceName }, () => {
       kept = true;
     });
   } finally {
