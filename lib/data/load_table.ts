@@ -9,8 +9,10 @@ import { PlumbError } from "../errors.ts";
 import { _tableFromCsv, type CsvOptions, tableFromCsv } from "./csv_text.ts";
 import { type MemoryOptions, tableFromMemory } from "./in_memory.ts";
 import { _isTable } from "./_table_store.ts";
-import { _sniffBinary } from "./_encoding.ts";
+import { type _BinaryKind, _sniffBinary } from "./_encoding.ts";
 import { tableFromWorkbook } from "./workbook.ts";
+import { tableFromParquet } from "./parquet.ts";
+import { tableFromArrowFile } from "./arrow_file.ts";
 
 /**
  * What `loadTable` accepts: a file path (string or `file:` URL), CSV text,
@@ -42,8 +44,8 @@ export interface LoadTableOptions extends Omit<CsvOptions, "sourceName">, Memory
 }
 
 /**
- * Load a table from a CSV file, an Excel workbook, CSV text or in-memory
- * data.
+ * Load a table from a file (CSV, Excel workbook, Parquet, Arrow IPC), CSV
+ * text or in-memory data.
  *
  * Every cell ends up a number, missing, or text, and each column records how
  * many of each it had and the first text cells with their row (and line).
@@ -98,11 +100,26 @@ export async function loadTable(
   }
   const buffer = await _readFile(source);
   const sourceName = _baseName(source);
-  // Workbooks are recognised by their bytes, whatever the file is called.
-  const kind = _sniffBinary(buffer.bytes);
-  if (kind === "xlsx") {
+  // Workbooks, Parquet and Arrow files are recognised by their bytes,
+  // whatever the file is called (and by their name when the bytes are damaged).
+  const kind = _sniffBinary(buffer.bytes) ?? _kindByName(sourceName);
+  const reader = kind === "xlsx"
+    ? tableFromWorkbook
+    : kind === "parquet"
+    ? tableFromParquet
+    : kind === "arrow" || kind === "arrow-stream"
+    ? tableFromArrowFile
+    : null;
+  if (reader !== null) {
+    if (options.sheet !== undefined && kind !== "xlsx") {
+      buffer.release();
+      throw new PlumbError(
+        "bad-option",
+        `Cannot pick a sheet of ${sourceName}: it is not an Excel workbook; leave out the sheet option`,
+      );
+    }
     try {
-      return await tableFromWorkbook(buffer.bytes, { ...options, sourceName });
+      return await reader(buffer.bytes, { ...options, sourceName });
     } finally {
       buffer.release();
     }
@@ -142,6 +159,15 @@ function _borrow(size: number): Uint8Array {
     return old;
   }
   return new Uint8Array(size);
+}
+
+/** The kind a file's name suggests, for files whose first bytes are damaged. */
+function _kindByName(name: string): _BinaryKind | null {
+  const ext = name.toLowerCase().split(".").pop() ?? "";
+  if (ext === "xlsx" || ext === "xlsm") return "xlsx";
+  if (ext === "parquet") return "parquet";
+  if (ext === "arrow" || ext === "feather" || ext === "ipc") return "arrow";
+  return null;
 }
 
 function _isMemory(source: unknown): boolean {
