@@ -97,7 +97,8 @@ function _sign(t: string): string | null {
 /**
  * Words that say a value was below a limit without giving the limit: read as
  * left-censored only where the user gives the column's limit. Compared after
- * trimming, without regard to case (common practice in laboratory exports).
+ * trimming, without regard to case (common practice in laboratory exports;
+ * `n.n.` is the German "nicht nachweisbar").
  * A sign followed by letters (`<LOD`, `< LOQ`, `<MDL`) counts too, see
  * {@linkcode limitWordSide}.
  */
@@ -105,6 +106,7 @@ export const BELOW_LIMIT_WORDS: readonly string[] = Object.freeze([
   "nd",
   "n.d.",
   "n/d",
+  "n.n.",
   "bdl",
   "bld",
   "not detected",

@@ -32,7 +32,8 @@ export interface LoadTableOptions extends Omit<CsvOptions, "sourceName">, Memory
    * What the source is. With `"auto"`: a `Table` is returned as it is; a
    * string with a line break (`\n` or `\r`) is CSV text; any other string,
    * and a `URL`, is a file path; anything else is in-memory data. A one-line
-   * CSV text therefore needs `from: "text"`.
+   * CSV text therefore needs `from: "text"`, and so do CSV bytes (a
+   * `Uint8Array`, read with their byte-order mark or `encoding`).
    * @default "auto"
    */
   readonly from?: "auto" | "path" | "text" | "memory";
@@ -84,10 +85,10 @@ export async function loadTable(
     return tableFromMemory(source, options);
   }
   if (from === "text" || (from === "auto" && typeof source === "string" && /[\r\n]/.test(source))) {
-    if (typeof source !== "string") {
+    if (typeof source !== "string" && !(source instanceof Uint8Array)) {
       throw new PlumbError(
         "bad-option",
-        'Cannot read a non-string as CSV text: with from: "text" give a string',
+        'Cannot read this value as CSV text: with from: "text" give a string or its bytes (a Uint8Array)',
       );
     }
     return tableFromCsv(source, options);

@@ -71,7 +71,9 @@ Deno.test("a sign without a clean number is not a limit", () => {
 });
 
 Deno.test("limit words: their side, and nothing else counts", () => {
-  for (const w of ["ND", "n.d.", "N/D", "bdl", "BLD", "not detected", "<LOD", "< LOQ", "<MDL"]) {
+  for (
+    const w of ["ND", "n.d.", "n.n.", "N/D", "bdl", "BLD", "not detected", "<LOD", "< LOQ", "<MDL"]
+  ) {
     assert.equal(limitWordSide(w), -1, w);
   }
   for (const w of ["TNTC", ">ULOQ", "> range", "above range"]) assert.equal(limitWordSide(w), 1, w);

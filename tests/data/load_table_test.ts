@@ -43,7 +43,7 @@ Deno.test("a file path as a string and as a URL; the source is the file name", a
 Deno.test("from names the source kind; wrong combinations are refused", async () => {
   await assert.rejects(
     () => loadTable([1], { from: "text" }),
-    /^PlumbError: Cannot read a non-string as CSV text/,
+    /^PlumbError: Cannot read this value as CSV text: with from: "text" give a string or its bytes/,
   );
   await assert.rejects(
     () => loadTable([1], { from: "path" }),

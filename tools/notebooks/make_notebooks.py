@@ -93,6 +93,49 @@ NOTEBOOKS = {
         ("code", 'console.log(fill.toCSV());'),
         ("code", 'console.log(survey(table, { dropText: true }).toMarkdown());'),
     ],
+    "04_data_in.ipynb": [
+        ("md", "# Data in: workbooks, Parquet, data frames and awkward CSV\n\n" + INVENTED + " The lab's "
+         "exports below (`demo/lab_export.xlsx`, `demo/fills.parquet`) hold the same invented rows and "
+         "are written by `tools/make_demo_exports.ts`.\n\nWhatever the source, every cell ends up a "
+         "number, a censored value (below or above a limit), missing, or text, and the table says how "
+         "many of each."),
+        ("code", 'import { loadTable, plumb } from "../mod.ts";\n'
+                 'const qc = await loadTable("../demo/lab_export.xlsx");\nqc;'),
+        ("md", "## The workbook\n\nThe first visible sheet is read; its title row and the blank row under it "
+         "are skipped, the sampling day reads as text, and oxygen readings written `<4` (below the 4 ppb "
+         "detection limit) are kept as censored values with their limit, counted apart from numbers. "
+         "Row numbers in messages are the sheet's own. Pick another sheet with `{ sheet: \"Notes\" }`."),
+        ("code", 'const fills = await loadTable("../demo/fills.parquet");\nfills;'),
+        ("md", "## Parquet, Arrow and data frames\n\nNulls are missing cells in every columnar source; an "
+         "Arrow column's null slots are never read as 0."),
+        ("code", 'import * as arrow from "npm:apache-arrow@21.2.0";\n'
+                 'const torque = arrow.vectorFromArray([1.92, null, 2.05, 1.77, null, 1.88], new arrow.Float64());\n'
+                 'await loadTable(new arrow.Table({ torque }));'),
+        ("code", 'import pl from "npm:nodejs-polars@0.25.2";\n'
+                 'const frame = pl.DataFrame({ line: ["A", "B", "A", null], fill_ml: [500.2, 499.6, null, 500.9] });\n'
+                 'await loadTable(frame);'),
+        ("md", "A polars Series is one column, named by the series."),
+        ("code", 'plumb(pl.Series("fill_ml", [500.2, 499.6, 500.9, 500.1, null, 499.8, 500.4, 500.0])).sentence();'),
+        ("md", "## Awkward CSV\n\nA German export: `;` between fields, decimal commas, a comma inside a "
+         "header name, and the spreadsheet program's `sep=;` line. Cells such as `<0,5` are censored; "
+         "a word such as `n.n.` (not detected) needs the column's limit."),
+        ("code", 'const export_de = "sep=;\\nProbe;Konzentration, mg/L\\nP1;1,25\\nP2;<0,5\\nP3;n.n.\\nP4;2,10\\n";\n'
+                 'await loadTable(export_de, { detectionLimits: { "Konzentration, mg/L": 0.5 }, missing: ["NA"] });'),
+        ("md", "Bytes that are not UTF-8 are an error that names the line and the likely encoding; the "
+         "`encoding` option reads them."),
+        ("code", '// "p,O2 µg" and "A,12" as a Windows program writes them: µ is the byte 0xB5.\n'
+                 'const w1252 = new Uint8Array([0x70, 0x2c, 0x4f, 0x32, 0x20, 0xb5, 0x67, 0x0a, 0x41, 0x2c, 0x31, 0x32, 0x0a]);\n'
+                 'try {\n  await loadTable(w1252, { from: "text" });\n} catch (e) {\n  console.log((e as Error).message);\n}\n'
+                 'await loadTable(w1252, { from: "text", encoding: "windows-1252" });'),
+        ("md", "## Group labels that differ only in spaces\n\n`\" A\"`, `\"A \"` and `\"A\\u00a0\"` (a no-break space) look "
+         "alike on screen; they are one group, and the table says which spellings were merged."),
+        ("code", 'plumb({\n  line: ["A", " A", "A\\u00a0", "A ", "A", "B", "B", "B", "B", "B"],\n'
+                 '  fill_ml: [500.1, 499.8, 500.4, 500.0, 499.7, 500.2, 500.3, 499.9, 500.6, 499.5],\n'
+                 '}, "fill_ml").by("line").table().notes;'),
+        ("md", "## Not a table\n\nA Set, a generator, raw bytes or a promise is refused with what to give "
+         "instead, never loaded as an empty table."),
+        ("code", 'try {\n  await loadTable(new Set([500.1, 499.8]));\n} catch (e) {\n  console.log((e as Error).message);\n}'),
+    ],
 }
 
 
