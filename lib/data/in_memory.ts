@@ -210,6 +210,16 @@ function _missing(col: _RawColumn, i: number): void {
   col.status[i] = CELL_MISSING;
 }
 
+/**
+ * A date read from a file as text: the day alone (`2026-01-05`) when it has
+ * no time of day in UTC, else the full ISO instant.
+ */
+export function _dateText(d: Date): string {
+  if (Number.isNaN(d.getTime())) return "Invalid Date";
+  const iso = d.toISOString();
+  return iso.endsWith("T00:00:00.000Z") ? iso.slice(0, 10) : iso;
+}
+
 /** A cell as text, safe for objects without a `toString`. */
 function _show(v: unknown): string {
   if (typeof v === "string") return v;

@@ -14,7 +14,7 @@
 import type { Table } from "./table.ts";
 import { PlumbError } from "../errors.ts";
 import type { CellOptions } from "./read_options.ts";
-import { _tableFromPairs } from "./in_memory.ts";
+import { _dateText, _tableFromPairs } from "./in_memory.ts";
 
 /** Options for {@linkcode tableFromParquet}. */
 export interface ParquetOptions extends CellOptions {
@@ -89,11 +89,7 @@ export async function tableFromParquet(
 
 /** A Parquet value as a cell: dates as text, nested values as JSON text. */
 function _cell(v: unknown): unknown {
-  if (v instanceof Date) {
-    if (Number.isNaN(v.getTime())) return "Invalid Date";
-    const iso = v.toISOString();
-    return iso.endsWith("T00:00:00.000Z") ? iso.slice(0, 10) : iso;
-  }
+  if (v instanceof Date) return _dateText(v);
   if (typeof v === "object" && v !== null && !ArrayBuffer.isView(v)) {
     return JSON.stringify(v, (_k, x) => (typeof x === "bigint" ? String(x) : x));
   }

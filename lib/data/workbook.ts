@@ -24,7 +24,7 @@
 import type { Table } from "./table.ts";
 import { PlumbError } from "../errors.ts";
 import type { CellOptions } from "./read_options.ts";
-import { _tableFromPairs } from "./in_memory.ts";
+import { _dateText, _tableFromPairs } from "./in_memory.ts";
 
 /** Options for {@linkcode tableFromWorkbook}. */
 export interface WorkbookOptions extends CellOptions {
@@ -110,7 +110,7 @@ export async function tableFromWorkbook(
     name,
     rows.map((r) => grid[r - 1][j] ?? null),
   ]);
-  const dated = pairs.map(([name, cells]) => [name, cells.map(_dateText)] as [string, unknown[]]);
+  const dated = pairs.map(([name, cells]) => [name, cells.map(_cellOf)] as [string, unknown[]]);
   return _tableFromPairs(dated, options, { source, lineOf: (row) => rows[row] });
 }
 
@@ -178,12 +178,9 @@ function _value(v: unknown): _Value {
   return String(v);
 }
 
-/** A date as text: the day alone when it has no time of day. */
-function _dateText(v: _Value): unknown {
-  if (!(v instanceof Date)) return v;
-  if (Number.isNaN(v.getTime())) return "Invalid Date";
-  const iso = v.toISOString();
-  return iso.endsWith("T00:00:00.000Z") ? iso.slice(0, 10) : iso;
+/** A date as text (the day alone when it has no time of day); other values as they are. */
+function _cellOf(v: _Value): unknown {
+  return v instanceof Date ? _dateText(v) : v;
 }
 
 /** The header row: names (one or two rows joined) and the first data row. */
@@ -215,7 +212,7 @@ function _headerRow(
       { source },
     );
   }
-  const top = grid[h - 1].map((v) => (v === null ? "" : String(_dateText(v))));
+  const top = grid[h - 1].map((v) => (v === null ? "" : String(_cellOf(v))));
   const spans = top.map((_, c) => sheet.getCell(h, c + 1).isMerged);
   const below = grid[h]; // the next row, when there is one
   const second = below !== undefined && spans.some((m) => m) &&
