@@ -40,7 +40,9 @@ export type PlumbErrorCode =
   /** A file type (by its extension) that this display cannot be saved as. */
   | "unsupported-format"
   /** A model term that earlier terms already explain (aliased, collinear). */
-  | "collinear";
+  | "collinear"
+  /** Left- and right-censoring limits that overlap, so the order of the values is unknown. */
+  | "overlapping-limits";
 
 /**
  * An error raised by plumbline for input it cannot use.
