@@ -56,4 +56,31 @@ export { reciprocal, reciprocalInverse } from "./lib/reexpress/reciprocal.ts";
 export { searchReexpressions } from "./lib/reexpress/search.ts";
 export { backTransformMean } from "./lib/reexpress/back_transform.ts";
 export { qqData } from "./lib/stats/qq_data.ts";
+export {
+  type CensoredSample,
+  censoredSample,
+  type CensoredSampleOptions,
+  type CensorSide,
+} from "./lib/stats/censored_sample.ts";
+export {
+  type CensoredFit,
+  type CensoredFitOptions,
+  censoredNormalFit,
+} from "./lib/stats/censored_fit.ts";
+export { type CensoredRos, censoredRos } from "./lib/stats/censored_ros.ts";
+export type { PlottingOptions } from "./lib/stats/plotting_positions.ts";
+export {
+  type CensoredPositions,
+  censoredPositions,
+  type LimitPosition,
+} from "./lib/stats/censored_positions.ts";
+export { censoredShapiroFrancia, type CensoredTestResult } from "./lib/stats/censored_normality.ts";
+export {
+  censoredBoxCoxFit,
+  type CensoredLambdaFit,
+  censoredYeoJohnsonFit,
+} from "./lib/reexpress/censored_lambda_fit.ts";
+export { censoredReexpress } from "./lib/reexpress/censored_reexpress.ts";
+export { censoredBackTransformMean } from "./lib/reexpress/censored_back_transform.ts";
+export { normalHazard, normalLogCdf, normalLogSf } from "./lib/numeric/normal_log.ts";
 export { histogramData } from "./lib/stats/histogram_data.ts";

@@ -27,11 +27,15 @@ export interface BackTransformed {
   readonly n: number;
   /** The confidence level. */
   readonly level: number;
-  /** Mean of the re-expressed values. */
+  /** Mean of the re-expressed values (for censored data the ML estimate). */
   readonly transformedMean: number;
-  /** Standard deviation (divisor n − 1) of the re-expressed values. */
+  /** Standard deviation of the re-expressed values (divisor n − 1; for censored data the ML estimate). */
   readonly transformedSd: number;
-  /** The Student t quantile used, with n − 1 degrees of freedom. */
+  /**
+   * The quantile the interval uses: Student t with n − 1 degrees of freedom,
+   * or, for censored data (a Wald interval from the maximum-likelihood fit),
+   * the standard normal quantile.
+   */
   readonly tQuantile: number;
   /** The transformed mean mapped back to original units. */
   readonly estimate: number;
@@ -91,26 +95,58 @@ export function backTransformMean(
   options: BackTransformOptions = {},
 ): BackTransformed {
   const what = "a back-transformed mean";
-  const level = options.level ?? 0.95;
-  if (typeof level !== "number" || !(level > 0 && level < 1)) {
-    throw new PlumbError(
-      "bad-option",
-      `Cannot compute ${what} at level ${level}: the level must lie strictly between 0 and 1, e.g. 0.95`,
-      { level },
-    );
-  }
+  const level = _levelOption(options.level, what);
   checkSize(x.length, 2, Number.POSITIVE_INFINITY, what);
   const y = applyReexpression(finiteCopy(x, what), r);
   const n = y.length;
   const { mean: m, sd } = _meanSd(y);
   const tq = jStat.studentt.inv(1 - (1 - level) / 2, n - 1) as number;
-  const half = (tq * sd) / Math.sqrt(n);
+  return _backTransformed(r, {
+    n,
+    level,
+    mean: m,
+    sd,
+    quantile: tq,
+    half: (tq * sd) / Math.sqrt(n),
+  });
+}
+
+/** A level option: strictly between 0 and 1 (default 0.95). */
+export function _levelOption(level: unknown, what: string): number {
+  const l = level ?? 0.95;
+  if (typeof l !== "number" || !(l > 0 && l < 1)) {
+    throw new PlumbError(
+      "bad-option",
+      `Cannot compute ${what} at level ${l}: the level must lie strictly between 0 and 1, e.g. 0.95`,
+      { level: l },
+    );
+  }
+  return l;
+}
+
+/**
+ * Map a mean and its interval (mean ± half) on the re-expressed scale back,
+ * and name what they now are. `extra` cautions come first.
+ */
+export function _backTransformed(
+  r: Reexpression,
+  fit: {
+    readonly n: number;
+    readonly level: number;
+    readonly mean: number;
+    readonly sd: number;
+    readonly quantile: number;
+    readonly half: number;
+  },
+  extra: readonly string[] = [],
+): BackTransformed {
+  const { n, level, mean: m, sd, quantile: tq, half } = fit;
   const [est, a, b] = invertReexpression([m, m - half, m + half], r);
   const ends = [a, b].map((v) => (Number.isNaN(v) ? null : v));
   const flips = r.kind === "reciprocal";
   const interval = (flips ? [ends[1], ends[0]] : ends) as [number | null, number | null];
   const pct = `${+(level * 100).toPrecision(6)}%`;
-  const cautions: string[] = [];
+  const cautions: string[] = [...extra];
   let estimateName: string;
   let intervalName: string;
   let ratio: number | null = null;

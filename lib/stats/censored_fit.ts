@@ -10,6 +10,7 @@ import { _checkOverlap, _positionsSorted } from "./censored_positions.ts";
 import { _rosLine } from "./censored_ros.ts";
 import type { CensoredSample } from "./censored_sample.ts";
 import { BLOM_OFFSET } from "./plotting_positions.ts";
+import { _ldexp, _maxAbs, _scaleExponent } from "./_scale.ts";
 
 /** The maximum-likelihood fit: plain, frozen data. */
 export interface CensoredFit {
@@ -23,8 +24,8 @@ export interface CensoredFit {
   readonly seSd: number;
   /** Standard error of ln σ. */
   readonly seLogSd: number;
-  /** Covariance of (μ̂, ln σ̂): `[var μ̂, cov, var ln σ̂]`. */
-  readonly covariance: readonly [number, number, number];
+  /** Correlation of μ̂ and ln σ̂ (with the two standard errors, their full covariance). */
+  readonly correlation: number;
   /** The maximised log-likelihood (densities for measured values, probabilities for censored ones). */
   readonly logLikelihood: number;
   /** All values, censored ones included. */
@@ -124,8 +125,9 @@ function _evaluate(r: _Reduced, mu: number, tau: number, derivatives: boolean): 
  *
  * Method: Newton's method on (μ, ln σ) with analytic first and second
  * derivatives (the censored terms through the normal hazard h = φ/Q, with
- * h′ = h(h − z)), on data standardised by their midrange and half-range so
- * that no value overflows. Start: the regression-on-order-statistics line
+ * h′ = h(h − z)), on data scaled exactly by a power of two and then
+ * standardised by their midrange and half-range, so that no value overflows
+ * and subnormal data keep their bits. Start: the regression-on-order-statistics line
  * (Hirsch–Stedinger positions; the measured values' mean and sd when left
  * and right limits overlap). Safeguards: where the Hessian is not negative
  * definite it is shifted by a multiple of the identity until it is
@@ -174,18 +176,35 @@ export function censoredNormalFit(
       { maxIterations },
     );
   }
+  return _censoredFit(sample, maxIterations, true);
+}
+
+/**
+ * {@linkcode censoredNormalFit} without option checks. With `rosStart`
+ * false, Newton starts from the measured values' mean and sd, which saves
+ * the sort the ROS start needs (the λ profile fits many transformed copies
+ * of one sample).
+ */
+export function _censoredFit(
+  sample: CensoredSample,
+  maxIterations: number,
+  rosStart: boolean,
+): CensoredFit {
   const { values, censor } = sample;
-  // Standardise: u = (x/2 − c/2)/s with c the midrange and s the half-range
-  // (halved first so that neither overflows), so x = c + 2s·u.
+  // Standardise exactly by a power of two (|v| < 1, so nothing overflows and
+  // subnormals keep their bits), then by the midrange c and half-range s of
+  // the scaled values: u = (v − c)/s, x = 2^−e·(c + s·u).
+  const e = _scaleExponent(_maxAbs(values));
   let lo = Infinity;
   let hi = -Infinity;
-  for (const v of values) {
+  for (const x of values) {
+    const v = _ldexp(x, e);
     if (v < lo) lo = v;
     if (v > hi) hi = v;
   }
-  const c = lo / 2 + hi / 2;
-  const s = hi / 2 - lo / 2;
-  const u = (x: number) => (x / 2 - c / 2) / s;
+  const c = (lo + hi) / 2;
+  const s = (hi - lo) / 2;
+  const u = (x: number) => (_ldexp(x, e) - c) / s;
   let k = 0;
   let mean = 0;
   for (let i = 0; i < values.length; i++) {
@@ -210,12 +229,12 @@ export function censoredNormalFit(
   // Start from the ROS line when positions exist, else from the measured values.
   let mu = mean;
   let tau = 0.5 * Math.log(m2 / k);
-  if (sample.observed < sample.n) {
+  if (rosStart && sample.observed < sample.n) {
     try {
       _checkOverlap(sample);
       const line = _rosLine(_positionsSorted(sample, BLOM_OFFSET));
-      const m0 = (line.intercept / 2 - c / 2) / s;
-      const s0 = line.slope / 2 / s;
+      const m0 = u(line.intercept);
+      const s0 = _ldexp(line.slope, e) / s;
       if (Number.isFinite(m0) && s0 > 0 && Number.isFinite(Math.log(s0))) {
         mu = m0;
         tau = Math.log(s0);
@@ -225,7 +244,7 @@ export function censoredNormalFit(
     }
   }
   const fit = _newton(r, mu, tau, maxIterations);
-  return _result(sample, fit, c, s);
+  return _result(sample, fit, c, s, e);
 }
 
 interface _Newton {
@@ -309,10 +328,16 @@ function _newton(r: _Reduced, mu0: number, tau0: number, maxIterations: number):
   return { mu, tau, e, iterations, converged };
 }
 
-function _result(sample: CensoredSample, f: _Newton, c: number, s: number): CensoredFit {
-  const { e } = f;
-  const det = e.hmm * e.htt - e.hmt * e.hmt;
-  if (!(Number.isFinite(e.l) && e.hmm < 0 && det > 0)) {
+function _result(
+  sample: CensoredSample,
+  f: _Newton,
+  c: number,
+  s: number,
+  e: number,
+): CensoredFit {
+  const ev = f.e;
+  const det = ev.hmm * ev.htt - ev.hmt * ev.hmt;
+  if (!(Number.isFinite(ev.l) && ev.hmm < 0 && det > 0)) {
     throw new PlumbError(
       "no-convergence",
       `Cannot fit a normal distribution to the censored sample: the likelihood has no ` +
@@ -322,12 +347,19 @@ function _result(sample: CensoredSample, f: _Newton, c: number, s: number): Cens
     );
   }
   // Covariance on the standardised scale: (−H)⁻¹.
-  const vm = -e.htt / det;
-  const vt = -e.hmm / det;
-  const cmt = e.hmt / det;
-  const scale = 2 * s;
-  const mean = c + scale * f.mu;
-  const sd = scale * Math.exp(f.tau);
+  const vm = -ev.htt / det;
+  const vt = -ev.hmm / det;
+  const cmt = ev.hmt / det;
+  const mean = _ldexp(c + s * f.mu, -e);
+  const sd = _ldexp(s * Math.exp(f.tau), -e);
+  if (!(sd > 0)) {
+    throw new PlumbError(
+      "non-finite",
+      `Cannot fit a normal distribution to the censored sample: the standard deviation is ` +
+        `below the smallest positive double (about 5e-324); rescale the data (e.g. change its ` +
+        `units) first`,
+    );
+  }
   if (!Number.isFinite(sd) || !Number.isFinite(mean)) {
     throw new PlumbError(
       "non-finite",
@@ -346,15 +378,11 @@ function _result(sample: CensoredSample, f: _Newton, c: number, s: number): Cens
   return Object.freeze({
     mean,
     sd,
-    seMean: scale * Math.sqrt(vm),
+    seMean: _ldexp(s * Math.sqrt(vm), -e),
     seSd: sd * seLogSd,
     seLogSd,
-    covariance: Object.freeze([scale * scale * vm, scale * cmt, vt]) as readonly [
-      number,
-      number,
-      number,
-    ],
-    logLikelihood: e.l - sample.observed * (Math.LN2 + Math.log(s)),
+    correlation: cmt / Math.sqrt(vm * vt),
+    logLikelihood: ev.l - sample.observed * (Math.log(s) - e * Math.LN2),
     n: sample.n,
     observed: sample.observed,
     left: sample.left,

@@ -30,6 +30,8 @@ export interface CensoredPositions {
   readonly offset: number;
   /** Every distinct limit, left ones first, each side ascending. */
   readonly limits: readonly LimitPosition[];
+  /** The same data with `positions` as a plain array. */
+  toJSON(): unknown;
 }
 
 /**
@@ -128,7 +130,13 @@ export function censoredPositions(
       Object.freeze({ limit, side: 1 as const, count: g.rightCounts[j], below: g.fHigh[j] })
     ),
   ];
-  return Object.freeze({ positions, offset: a, limits: Object.freeze(limits) });
+  const frozen = Object.freeze(limits);
+  return Object.freeze({
+    positions,
+    offset: a,
+    limits: frozen,
+    toJSON: () => ({ positions: Array.from(positions), offset: a, limits: frozen }),
+  });
 }
 
 /**

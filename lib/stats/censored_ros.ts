@@ -5,6 +5,7 @@
  *
  * @module
  */
+import { PlumbError } from "../errors.ts";
 import { normalQuantile } from "../numeric/normal.ts";
 import {
   _checkOverlap,
@@ -13,6 +14,7 @@ import {
   _positionsSorted,
 } from "./censored_positions.ts";
 import type { CensoredSample } from "./censored_sample.ts";
+import { _ldexp, _maxAbs, _scaleExponent } from "./_scale.ts";
 import { BLOM_OFFSET, type PlottingOptions } from "./plotting_positions.ts";
 
 /** The ROS estimates: plain, frozen data (`toJSON()` gives the imputed values as an array). */
@@ -33,28 +35,34 @@ export interface CensoredRos {
   toJSON(): unknown;
 }
 
-/** Least-squares line of the sorted measured values on their normal scores. */
+/**
+ * Least-squares line of the sorted measured values on their normal scores.
+ * The values are scaled exactly by a power of two (so that nothing overflows
+ * and subnormals keep their bits); intercept and slope are scaled back.
+ */
 export function _rosLine(g: _GroupedPositions): { intercept: number; slope: number } {
-  const k = g.obs.length;
+  const x = g.obs;
+  const k = x.length;
+  const e = _scaleExponent(_maxAbs(x));
   const z = new Float64Array(k);
   let zBar = 0;
-  let xBar = 0;
+  let uBar = 0;
   for (let i = 0; i < k; i++) {
     z[i] = normalQuantile(g.pObs[i]);
     zBar += z[i];
-    xBar += g.obs[i];
+    uBar += _ldexp(x[i], e);
   }
   zBar /= k;
-  xBar /= k;
+  uBar /= k;
   let szz = 0;
-  let szx = 0;
+  let szu = 0;
   for (let i = 0; i < k; i++) {
     const dz = z[i] - zBar;
     szz += dz * dz;
-    szx += dz * (g.obs[i] - xBar);
+    szu += dz * (_ldexp(x[i], e) - uBar);
   }
-  const slope = szx / szz;
-  return { intercept: xBar - slope * zBar, slope };
+  const slope = szu / szz;
+  return { intercept: _ldexp(uBar - slope * zBar, -e), slope: _ldexp(slope, -e) };
 }
 
 /**
@@ -97,6 +105,7 @@ export function censoredRos(sample: CensoredSample, options: PlottingOptions = {
   const a = options.offset ?? BLOM_OFFSET;
   const g = _positionsSorted(sample, a);
   const { intercept, slope } = _rosLine(g);
+  if (!Number.isFinite(intercept) || !Number.isFinite(slope)) _overflow();
   const { values, censor, leftLimits, rightLimits } = sample;
   const out = new Float64Array(values.length);
   const leftSeen = new Int32Array(leftLimits.length);
@@ -115,17 +124,9 @@ export function censoredRos(sample: CensoredSample, options: PlottingOptions = {
       p = 1 - (1 - g.fHigh[j]) * (++rightSeen[j] - a) / (g.rightCounts[j] + 1 - 2 * a);
     }
     out[i] = intercept + slope * normalQuantile(p);
+    if (!Number.isFinite(out[i])) _overflow();
   }
-  let mean = 0;
-  for (const v of out) mean += v;
-  mean /= out.length;
-  let ss = 0;
-  let corr = 0;
-  for (const v of out) {
-    ss += (v - mean) * (v - mean);
-    corr += v - mean;
-  }
-  const sd = Math.sqrt((ss - corr * corr / out.length) / (out.length - 1));
+  const { mean, sd } = _meanSd(out);
   const method = "regression on order statistics (Helsel & Cohn 1988), " +
     `Hirsch–Stedinger positions with offset ${a}`;
   const plain = { mean, sd, intercept, slope, method };
@@ -134,4 +135,26 @@ export function censoredRos(sample: CensoredSample, options: PlottingOptions = {
     values: out,
     toJSON: () => ({ ...plain, values: Array.from(out) }),
   });
+}
+
+/** Mean and sd (divisor n − 1), scaled exactly by a power of two so that no sum overflows. */
+function _meanSd(v: Float64Array): { mean: number; sd: number } {
+  const e = _scaleExponent(_maxAbs(v));
+  let m = 0;
+  for (const t of v) m += _ldexp(t, e);
+  m /= v.length;
+  let ss = 0;
+  for (const t of v) ss += (_ldexp(t, e) - m) ** 2;
+  const mean = _ldexp(m, -e);
+  const sd = _ldexp(Math.sqrt(ss / (v.length - 1)), -e);
+  if (!Number.isFinite(mean) || !Number.isFinite(sd)) _overflow();
+  return { mean, sd };
+}
+
+function _overflow(): never {
+  throw new PlumbError(
+    "non-finite",
+    "Cannot compute the ROS estimates: the imputed values or their spread exceed the largest " +
+      "double (about 1.8e308); rescale the data (e.g. change its units) first",
+  );
 }
