@@ -59,6 +59,68 @@ export function _subsample(x: Float64Array): Float64Array {
 }
 
 /**
+ * The grid point (index, of 21 evenly spaced over [lo, hi]) where `score` is
+ * smallest, and the grid spacing. Throws `PlumbError("no-convergence")`
+ * when the score is not below +∞ anywhere.
+ */
+export function _gridMinimum(
+  score: (lambda: number) => number,
+  lo: number,
+  hi: number,
+  what: string,
+): { best: number; spacing: number } {
+  const spacing = (hi - lo) / (_GRID - 1);
+  let best = -1;
+  let bestH = Infinity;
+  for (let j = 0; j < _GRID; j++) {
+    const h = score(lo + j * spacing);
+    if (h < bestH) {
+      bestH = h;
+      best = j;
+    }
+  }
+  if (best < 0) {
+    throw new PlumbError(
+      "no-convergence",
+      `Cannot fit ${what}: the profile likelihood is not finite anywhere on [${lo}, ${hi}]; ` +
+        `check the data for extreme values or narrow the range`,
+      { range: [lo, hi] },
+    );
+  }
+  return { best, spacing };
+}
+
+/** The note for a maximum at an end of the searched range. */
+export function _atEndNote(lambda: number): string {
+  return `The likelihood is largest at the end of the searched range (λ = ${lambda}); ` +
+    `the maximum may lie beyond it: a few values probably dominate the fit, so look at them ` +
+    `before widening the range`;
+}
+
+/** The notes for interval ends that are open (null) within [lo, hi]. */
+export function _openEndNotes(
+  ci: readonly [number | null, number | null],
+  level: number,
+  lo: number,
+  hi: number,
+): string[] {
+  const pct = `${+(level * 100).toPrecision(6)}%`;
+  const notes: string[] = [];
+  for (const [v, side, edge] of [[ci[0], "lower", lo], [ci[1], "upper", hi]] as const) {
+    if (v === null) {
+      notes.push(
+        `The ${pct} interval has no ${side} end within the searched range: the likelihood ` +
+          `stays above the cut-off ${
+            side === "lower" ? "down" : "up"
+          } to λ = ${edge}, so the data cannot rule out ` +
+          `${side === "lower" ? "smaller" : "larger"} powers`,
+      );
+    }
+  }
+  return notes;
+}
+
+/**
  * Maximise the profile log-likelihood over [lo, hi] and find the interval.
  *
  * 1. Locate: h(λ) on a 21-point grid (on an even subsample of 1024–4096
@@ -87,24 +149,7 @@ export function _fitLambda(
   const clamp = (t: number) => Math.min(hi, Math.max(lo, t));
 
   // 1. Locate.
-  const spacing = (hi - lo) / (_GRID - 1);
-  let best = -1;
-  let bestH = Infinity;
-  for (let j = 0; j < _GRID; j++) {
-    const h = sub.h(lo + j * spacing);
-    if (h < bestH) {
-      bestH = h;
-      best = j;
-    }
-  }
-  if (best < 0) {
-    throw new PlumbError(
-      "no-convergence",
-      `Cannot fit ${what}: the profile likelihood is not finite anywhere on [${lo}, ${hi}]; ` +
-        `check the data for extreme values or narrow the range`,
-      { range: [lo, hi] },
-    );
-  }
+  const { best, spacing } = _gridMinimum((t) => sub.h(t), lo, hi, what);
   // On a subsample only a starting point is needed (its own λ̂ differs from the full
   // sample's by sampling error far above 1e-4), so the search stops early there.
   const located = minimizeInInterval(
@@ -173,9 +218,7 @@ export function _fitLambda(
           `nearly flat across the whole range: every power from ${lo} to ${hi} fits almost equally ` +
           `well, because the values vary little relative to their own size, so any power bends them ` +
           `alike. λ is not determined by these data, and no re-expression changes their shape much`
-        : `The likelihood is largest at the end of the searched range (λ = ${lambda}); ` +
-          `the maximum may lie beyond it: a few values probably dominate the fit, so look at them ` +
-          `before widening the range`,
+        : _atEndNote(lambda),
     );
   }
   if (!Number.isFinite(hHat)) {
@@ -231,18 +274,7 @@ export function _fitLambda(
   };
   const ciLo = end(-1);
   const ciHi = end(1);
-  const pct = `${+(level * 100).toPrecision(6)}%`;
-  for (const [v, side, edge] of [[ciLo, "lower", lo], [ciHi, "upper", hi]] as const) {
-    if (v === null) {
-      notes.push(
-        `The ${pct} interval has no ${side} end within the searched range: the likelihood ` +
-          `stays above the cut-off ${
-            side === "lower" ? "down" : "up"
-          } to λ = ${edge}, so the data cannot rule out ` +
-          `${side === "lower" ? "smaller" : "larger"} powers`,
-      );
-    }
-  }
+  notes.push(..._openEndNotes([ciLo, ciHi], level, lo, hi));
   return Object.freeze({
     family: full.family,
     lambda,

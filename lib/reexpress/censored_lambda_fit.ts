@@ -10,7 +10,7 @@ import { findRoot } from "../numeric/roots.ts";
 import { _censoredFit } from "../stats/censored_fit.ts";
 import type { CensoredSample } from "../stats/censored_sample.ts";
 import { _inversePowerTerm, _powerTerm, _requirePositive } from "./_checks.ts";
-import { _fitOptions } from "./_fit.ts";
+import { _atEndNote, _fitOptions, _gridMinimum, _openEndNotes } from "./_fit.ts";
 import type { LambdaFit, LambdaFitOptions } from "./lambda_fit.ts";
 
 /** A λ fitted to a censored sample: a {@linkcode LambdaFit} with the censored fit at λ̂. */
@@ -33,8 +33,6 @@ export interface CensoredLambdaFit extends LambdaFit {
   readonly median: number | null;
 }
 
-/** Grid points for locating the maximum. */
-const _GRID = 21;
 /** Largest sample located on in full; bigger ones are located on an even subsample. */
 const _SUBSAMPLE = 4096;
 /** Newton iterations per profile point. */
@@ -169,24 +167,15 @@ function _fit(
     return _profile(p, t, family);
   };
   // 1. Locate on a grid, then Brent between the best point's neighbours.
-  const spacing = (hi - lo) / (_GRID - 1);
-  let best = -1;
-  let bestL = _LOW;
-  for (let j = 0; j < _GRID; j++) {
-    const l = h(sub)(lo + j * spacing);
-    if (l > bestL) {
-      bestL = l;
-      best = j;
-    }
-  }
-  if (best < 0) {
-    throw new PlumbError(
-      "no-convergence",
-      `Cannot fit ${what}: the censored likelihood is not finite anywhere on [${lo}, ${hi}]; ` +
-        `check the data for extreme values or narrow the range`,
-      { range: [lo, hi] },
-    );
-  }
+  const { best, spacing } = _gridMinimum(
+    (t) => {
+      const l = h(sub)(t);
+      return l === _LOW ? Infinity : -l;
+    },
+    lo,
+    hi,
+    what,
+  );
   const bracket = (c: number, w: number): [number, number] => [
     Math.max(lo, c - w),
     Math.min(hi, c + w),
@@ -203,13 +192,7 @@ function _fit(
   const tol = 1e-6 * spacing;
   const atEnd = lambda - lo < tol || hi - lambda < tol;
   const notes: string[] = [];
-  if (atEnd) {
-    notes.push(
-      `The likelihood is largest at the end of the searched range (λ = ${lambda}); ` +
-        `the maximum may lie beyond it: a few values probably dominate the fit, so look at them ` +
-        `before widening the range`,
-    );
-  }
+  if (atEnd) notes.push(_atEndNote(lambda));
   // 3. Interval: ℓ(λ) = ℓ̂ − χ²₁/2 on each side, bracketed by doubling steps.
   const g = (t: number) => h(full)(t) - (lHat - cut / 2);
   const end = (side: -1 | 1): number | null => {
@@ -234,16 +217,7 @@ function _fit(
     : atEnd
     ? [end(-1), null]
     : [end(-1), end(1)];
-  const pct = `${+(level * 100).toPrecision(6)}%`;
-  for (const [v, side, edge] of [[ci[0], "lower", lo], [ci[1], "upper", hi]] as const) {
-    if (v === null) {
-      notes.push(
-        `The ${pct} interval has no ${side} end within the searched range: the likelihood ` +
-          `stays above the cut-off to λ = ${edge}, so the data cannot rule out ` +
-          `${side === "lower" ? "smaller" : "larger"} powers`,
-      );
-    }
-  }
+  notes.push(..._openEndNotes(ci, level, lo, hi));
   // The censored fit at λ̂, and its mean mapped back to original units.
   const top = _transformed(full, lambda, family);
   if (top === undefined) {
