@@ -6,6 +6,7 @@
  * @module
  */
 import { PlumbError } from "../errors.ts";
+import { ldexp, rescaleExponent } from "../numeric/ldexp.ts";
 import { normalQuantile } from "../numeric/normal.ts";
 import {
   _checkOverlap,
@@ -14,7 +15,6 @@ import {
   _positionsSorted,
 } from "./censored_positions.ts";
 import type { CensoredSample } from "./censored_sample.ts";
-import { _ldexp, _maxAbs, _scaleExponent } from "./_scale.ts";
 import { BLOM_OFFSET, type PlottingOptions } from "./plotting_positions.ts";
 
 /** The ROS estimates: plain, frozen data (`toJSON()` gives the imputed values as an array). */
@@ -43,14 +43,14 @@ export interface CensoredRos {
 export function _rosLine(g: _GroupedPositions): { intercept: number; slope: number } {
   const x = g.obs;
   const k = x.length;
-  const e = _scaleExponent(_maxAbs(x));
+  const e = _exponent(x);
   const z = new Float64Array(k);
   let zBar = 0;
   let uBar = 0;
   for (let i = 0; i < k; i++) {
     z[i] = normalQuantile(g.pObs[i]);
     zBar += z[i];
-    uBar += _ldexp(x[i], e);
+    uBar += ldexp(x[i], e);
   }
   zBar /= k;
   uBar /= k;
@@ -59,10 +59,10 @@ export function _rosLine(g: _GroupedPositions): { intercept: number; slope: numb
   for (let i = 0; i < k; i++) {
     const dz = z[i] - zBar;
     szz += dz * dz;
-    szu += dz * (_ldexp(x[i], e) - uBar);
+    szu += dz * (ldexp(x[i], e) - uBar);
   }
   const slope = szu / szz;
-  return { intercept: _ldexp(uBar - slope * zBar, -e), slope: _ldexp(slope, -e) };
+  return { intercept: ldexp(uBar - slope * zBar, -e), slope: ldexp(slope, -e) };
 }
 
 /**
@@ -139,14 +139,14 @@ export function censoredRos(sample: CensoredSample, options: PlottingOptions = {
 
 /** Mean and sd (divisor n − 1), scaled exactly by a power of two so that no sum overflows. */
 function _meanSd(v: Float64Array): { mean: number; sd: number } {
-  const e = _scaleExponent(_maxAbs(v));
+  const e = _exponent(v);
   let m = 0;
-  for (const t of v) m += _ldexp(t, e);
+  for (const t of v) m += ldexp(t, e);
   m /= v.length;
   let ss = 0;
-  for (const t of v) ss += (_ldexp(t, e) - m) ** 2;
-  const mean = _ldexp(m, -e);
-  const sd = _ldexp(Math.sqrt(ss / (v.length - 1)), -e);
+  for (const t of v) ss += (ldexp(t, e) - m) ** 2;
+  const mean = ldexp(m, -e);
+  const sd = ldexp(Math.sqrt(ss / (v.length - 1)), -e);
   if (!Number.isFinite(mean) || !Number.isFinite(sd)) _overflow();
   return { mean, sd };
 }
@@ -157,4 +157,11 @@ function _overflow(): never {
     "Cannot compute the ROS estimates: the imputed values or their spread exceed the largest " +
       "double (about 1.8e308); rescale the data (e.g. change its units) first",
   );
+}
+
+/** The power of two that brings the largest |value| near 1 (0 when no rescaling is needed). */
+function _exponent(x: ArrayLike<number>): number {
+  let m = 0;
+  for (let i = 0; i < x.length; i++) m = Math.max(m, Math.abs(x[i]));
+  return m > 0 ? rescaleExponent(m) : 0;
 }
