@@ -102,7 +102,7 @@ export function _censoredPValue(y: number, q: readonly number[]): number {
  p-value: no published calibration covers several limits (and the
  * published ones were not at hand to state with confidence), so the null
  * distribution of ln(1 − W′) was simulated by plumbline's own seeded script
- * (`tools/calibration/censored_null.ts`; its tables of the 50%, 90%, 95% and
+ * (`tools/sim/censored_null.ts`; its tables of the 50%, 90%, 95% and
  * 99% quantiles are in `lib/stats/_censored_null_table.ts`) over n = 5…5000
  * and censored fractions 0…0.8, in two tables: samples with one limit, and
  * samples with two to four limits of varied spread. A sample with a single
@@ -110,7 +110,7 @@ export function _censoredPValue(y: number, q: readonly number[]): number {
  * count as several). Between grid points the quantiles are interpolated in
  * (ln n, fraction); the p-value maps ln(1 − W′) to a standard normal z
  * piecewise linearly through those quantiles. The size this achieves is in
- * README (by `tools/calibration/censored_size.ts`): 3.9–5.9% at the 5% level
+ * README (by `tools/sim/censored_size.ts`): 3.9–5.9% at the 5% level
  * for normal samples of 20, 50 and 200 with 10–50% censored at one limit or
  * at three; with several limits it depends on how far apart they are (two
  * limits at the 5% and 95% quantiles: about 2%, conservative; two at the 45%

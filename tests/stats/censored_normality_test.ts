@@ -47,7 +47,7 @@ Deno.test("invariant under a + b·x, and under x → −x with the sides flipped
 });
 
 // A fast in-suite check of the calibration (the full size table comes from
-// tools/calibration/censored_size.ts): 1,000 seeded normal samples, n = 50,
+// tools/sim/censored_size.ts): 1,000 seeded normal samples, n = 50,
 // 30% censored at one limit. The rate of p < 0.05 must lie within 3.5%–6.5%;
 // at 1,000 samples its simulation error is ±1.4 points (95%), so a rate
 // outside that band points at a calibration fault.

@@ -21,7 +21,7 @@
  * Samples the test refuses (fewer than 3 measured values, or more than 80%
  * censored) are drawn again; the last column counts them.
  *
- * Run: deno run tools/calibration/censored_size.ts [--quick]
+ * Run: deno run tools/sim/censored_size.ts [--quick]
  *
  * @module
  */
