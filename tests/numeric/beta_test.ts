@@ -10,7 +10,7 @@ interface Case {
 }
 const fixture = JSON.parse(
   await Deno.readTextFile(new URL("../fixtures/envelope.json", import.meta.url)),
-) as { library: string; source: string; cases: Case[] };
+) as { library: { R: string }; source: string; cases: Case[] };
 
 // Tolerance, stated before the checks: quantiles of Beta(i, n − i + 1) within
 // 1e-12 relative of R's qbeta.
@@ -23,7 +23,7 @@ Deno.test("order-statistic quantiles match R's qbeta for n = 1 … 1e6", () => {
         betaQuantile(c.p, i, c.n - i + 1),
         c.qbeta[k],
         Q_TOL,
-        `qbeta(${c.p}, ${i}, ${c.n - i + 1}) from ${fixture.library}`,
+        `qbeta(${c.p}, ${i}, ${c.n - i + 1}) from R ${fixture.library.R}`,
       );
     });
   }

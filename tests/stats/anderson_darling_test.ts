@@ -37,8 +37,8 @@ interface Case {
 }
 const fixture = JSON.parse(
   await Deno.readTextFile(new URL("../fixtures/other_tests.json", import.meta.url)),
-) as { libraries: Record<string, string>; cases: Case[] };
-const libs = `scipy ${fixture.libraries.scipy}, statsmodels ${fixture.libraries.statsmodels}`;
+) as { library: Record<string, string>; cases: Case[] };
+const libs = `scipy ${fixture.library.scipy}, statsmodels ${fixture.library.statsmodels}`;
 
 Deno.test("A² and A²* match scipy anderson", () => {
   for (const c of fixture.cases) {

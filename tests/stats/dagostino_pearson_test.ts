@@ -20,7 +20,7 @@ interface Case {
 }
 const fixture = JSON.parse(
   await Deno.readTextFile(new URL("../fixtures/other_tests.json", import.meta.url)),
-) as { libraries: Record<string, string>; cases: Case[] };
+) as { library: Record<string, string>; cases: Case[] };
 const TOL = { rel: 1e-9, abs: 1e-12 };
 const P_TOL = { rel: 1e-9, abs: 1e-305 };
 
@@ -28,7 +28,7 @@ Deno.test("K², its scores and p-values match scipy skewtest / kurtosistest / no
   for (const c of fixture.cases) {
     const r = dagostinoPearson(c.x);
     const e = c.dagostino;
-    const ctx = `${c.name} (scipy ${fixture.libraries.scipy})`;
+    const ctx = `${c.name} (scipy ${fixture.library.scipy})`;
     assertClose(r.skewnessZ, e.skewnessZ, TOL, `${ctx}: skewness Z`);
     assertClose(r.skewnessP, e.skewnessP, P_TOL, `${ctx}: skewness p`);
     assertClose(r.statistic, e.K2, TOL, `${ctx}: K²`);

@@ -18,12 +18,12 @@ interface Case {
 }
 const fixture = JSON.parse(
   await Deno.readTextFile(new URL("../fixtures/other_tests.json", import.meta.url)),
-) as { libraries: Record<string, string>; cases: Case[] };
+) as { library: Record<string, string>; cases: Case[] };
 
 Deno.test("Jarque–Bera statistic and p match scipy jarque_bera", () => {
   for (const c of fixture.cases) {
     const r = jarqueBera(c.x);
-    const ctx = `${c.name} (scipy ${fixture.libraries.scipy})`;
+    const ctx = `${c.name} (scipy ${fixture.library.scipy})`;
     assertClose(r.statistic, c.jarqueBera.JB, { rel: 1e-9 }, `${ctx}: JB`);
     assertClose(r.pValue, c.jarqueBera.p, { rel: 1e-9, abs: 1e-305 }, `${ctx}: p`);
     assert.equal(r.n, c.x.length);

@@ -25,8 +25,8 @@ interface Case {
 }
 const fixture = JSON.parse(
   await Deno.readTextFile(new URL("../fixtures/other_tests.json", import.meta.url)),
-) as { libraries: Record<string, string>; cases: Case[] };
-const sm = `statsmodels ${fixture.libraries.statsmodels}`;
+) as { library: Record<string, string>; cases: Case[] };
+const sm = `statsmodels ${fixture.library.statsmodels}`;
 
 Deno.test("Lilliefors D matches statsmodels", () => {
   for (const c of fixture.cases) {

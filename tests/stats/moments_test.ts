@@ -24,7 +24,7 @@ interface Case {
 }
 const fixture = JSON.parse(
   await Deno.readTextFile(new URL("../fixtures/other_tests.json", import.meta.url)),
-) as { libraries: Record<string, string>; cases: Case[] };
+) as { library: Record<string, string>; cases: Case[] };
 
 const FIELDS = ["mean", "sd", "g1", "g2", "G1", "G2", "seG1", "seG2"] as const;
 const UNITLESS = new Set(["g1", "g2", "G1", "G2"]);
@@ -39,7 +39,7 @@ Deno.test("moments match 60-digit mpmath values on every fixture sample", () => 
         m[k],
         c.moments_exact[k],
         tol,
-        `${c.name}: ${k} vs mpmath ${fixture.libraries.mpmath}`,
+        `${c.name}: ${k} vs mpmath ${fixture.library.mpmath}`,
       );
     }
   }
@@ -53,7 +53,7 @@ Deno.test("moments match numpy/scipy (skew, kurtosis with bias=True and bias=Fal
         m[k],
         c.numpy_scipy_moments[k],
         { rel: 1e-9, abs: 1e-12 },
-        `${c.name}: ${k} vs scipy ${fixture.libraries.scipy}`,
+        `${c.name}: ${k} vs scipy ${fixture.library.scipy}`,
       );
     }
   }

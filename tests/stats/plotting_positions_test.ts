@@ -5,7 +5,10 @@ import { normalScores, plottingPosition } from "../../lib/stats/plotting_positio
 
 const fixture = JSON.parse(
   await Deno.readTextFile(new URL("../fixtures/plotting_positions.json", import.meta.url)),
-) as { library: string; cases: { offset: number; n: number; ranks: number[]; z: number[] }[] };
+) as {
+  library: { R: string };
+  cases: { offset: number; n: number; ranks: number[]; z: number[] }[];
+};
 
 // Tolerance: 1e-14 relative or 1e-15 absolute (the normal quantile is
 // accurate to about 1e-15; z = 0 has no relative scale).
@@ -17,7 +20,7 @@ Deno.test("normal scores match R's qnorm((i − a)/(n + 1 − 2a))", () => {
         z[k],
         c.z[k],
         { rel: 1e-14, abs: 1e-15 },
-        `a = ${c.offset}, n = ${c.n}, i = ${i}, ${fixture.library}`,
+        `a = ${c.offset}, n = ${c.n}, i = ${i}, R ${fixture.library.R}`,
       )
     );
   }
