@@ -87,7 +87,8 @@ Deno.test({
         },
       );
       await t.step("the smoke notebook's hostile names show as text", async () => {
-        const report = await checkNotebookPage(browser, `${NOTEBOOKS}/00_smoke.ipynb`, {
+        const smoke = new URL("./fixtures/notebooks/smoke.ipynb", import.meta.url).pathname;
+        const report = await checkNotebookPage(browser, smoke, {
           outDir: dir,
         });
         assert.deepEqual(report.problems, []);
@@ -157,7 +158,7 @@ Deno.test({
           // Invented demo data: minutes between stoppages (exponential-like).
           const values = (await loadTable(`${NOTEBOOKS}/../demo/bottling_lab.csv`))
             .numeric("minutes_between_stops").values;
-          const spec = lambdaExplorer(values, "minutes_between_stops").spec;
+          const spec = lambdaExplorer(() => values, () => "minutes_between_stops").spec;
           const report = await renderVegaLite(browser, spec, {
             bundles,
             sliderValues: [1, 0],

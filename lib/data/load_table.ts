@@ -4,6 +4,7 @@
  *
  * @module
  */
+import type { MemorySource } from "./memory_source.ts";
 import type { Table } from "./table.ts";
 import { PlumbError } from "../errors.ts";
 import { _tableFromCsv, type CsvOptions, tableFromCsv } from "./csv_text.ts";
@@ -18,13 +19,7 @@ import { tableFromArrowFile } from "./arrow_file.ts";
  * What `loadTable` accepts: a file path (string or `file:` URL), CSV text,
  * or in-memory data (see `in_memory.ts` for the shapes).
  */
-export type TableSource =
-  | string
-  | URL
-  | Table
-  | ArrayLike<unknown>
-  | ReadonlyMap<string, ArrayLike<unknown>>
-  | object;
+export type TableSource = string | URL | Table | MemorySource;
 
 /** Options for {@linkcode loadTable}. */
 export interface LoadTableOptions extends Omit<CsvOptions, "sourceName">, MemoryOptions {
@@ -61,7 +56,7 @@ export interface LoadTableOptions extends Omit<CsvOptions, "sourceName">, Memory
  *
  * @example
  * ```ts
- * import { loadTable } from "./load_table.ts";
+ * import { loadTable } from "@plumbline/plumbline";
  * const table = await loadTable("volume,line\n500.1,A\n499.7,B\nNA,A\n");
  * const volume = table.numeric("volume");
  * if (volume.values.length !== 2 || volume.provenance.missingDropped !== 1) {

@@ -9,6 +9,7 @@ import type { MergedLabel, Table } from "../data/table.ts";
 import { PlumbError } from "../errors.ts";
 import type { Analysis } from "../results/analysis.ts";
 import { _meanSd } from "../stats/moments.ts";
+import type { QqOptions } from "../stats/qq_data.ts";
 import { type Adjustment, adjustPValues, checkAdjustment } from "../stats/multiplicity.ts";
 import { refuseCensored } from "./_censored_guard.ts";
 import { analyse, ANALYSE_MIN_N } from "./analysis.ts";
@@ -26,11 +27,17 @@ export interface GroupOptions {
 
 /** What a per-group chain holds: the table, the variable and its steps, the grouping. */
 export interface GroupState {
+  /** The table. */
   readonly table: Table;
+  /** The variable's column. */
   readonly column: string;
-  readonly steps: readonly Step[];
-  readonly options: { readonly dropText?: boolean };
+  /** The chain's re-expressions, resolved on first need (against the whole column). */
+  readonly steps: () => readonly Step[];
+  /** The chain's options: text cells, and the QQ envelope of every group and the residuals. */
+  readonly options: { readonly dropText?: boolean; readonly qq?: QqOptions };
+  /** The grouping column. */
   readonly groupBy: string;
+  /** The options of `.by()`. */
   readonly groupOptions: GroupOptions;
 }
 
@@ -40,6 +47,10 @@ export interface GroupRow {
   readonly group: string;
   /** Values in the group. */
   readonly n: number;
+  /** The group's missing cells, left out. */
+  readonly missingDropped: number;
+  /** The group's text cells, left out on request. */
+  readonly textDropped: number;
   /** The analysis, when the group has enough values. */
   readonly analysis?: Analysis;
   /** The adjusted Shapiro–Wilk p-value. */
@@ -50,14 +61,19 @@ export interface GroupRow {
 
 /** The result of a per-group screening, as plain data. */
 export interface GroupResult {
+  /** The variable, with its re-expressions. */
   readonly label: string;
+  /** The grouping column. */
   readonly groupBy: string;
+  /** How p-values were adjusted across the groups. */
   readonly adjust: Adjustment;
+  /** One row per group, in natural order (numbers by value, then text). */
   readonly groups: readonly GroupRow[];
-  /** Rows left out because their group cell was missing. */
+  /** Rows with a value but no group (their group cell was missing), left out. */
   readonly noGroup: number;
-  /** Value cells missing (and text cells dropped) across all groups. */
+  /** Missing cells of the variable, in all rows. */
   readonly missingDropped: number;
+  /** Text cells of the variable left out on request, in all rows. */
   readonly textDropped: number;
   /** The pooled within-group residuals (value − group mean), analysed. */
   readonly residuals?: Analysis;
@@ -80,32 +96,36 @@ function _compare(a: string, b: string): number {
  * @param state the table, the column and its steps, the grouping column and options
  */
 export function screenGroups(state: GroupState): GroupResult {
-  const { table, column, steps, groupBy, options } = state;
+  const { table, column, groupBy, options } = state;
+  const steps = state.steps();
   const adjust = checkAdjustment(state.groupOptions.adjust);
   // Raises "non-numeric" (naming rows) unless text cells are dropped on request.
   const used = table.numeric(column, { dropText: options.dropText ?? false });
   refuseCensored(used, stepLabel(column, steps));
   const cells = table.numericCells(column);
   const g = table.text(groupBy);
-  const byGroup = new Map<string, number[]>();
+  // Per group: the rows holding a number, and the cells left out.
+  const byGroup = new Map<string, { rows: number[]; missing: number; text: number }>();
   let noGroup = 0;
   for (let i = 0; i < table.rowCount; i++) {
-    if (cells.missing[i] || cells.nonNumeric[i]) continue;
     if (g.missing[i]) {
-      noGroup++;
+      if (!cells.missing[i] && !cells.nonNumeric[i]) noGroup++;
       continue;
     }
     const key = g.values[i];
-    let list = byGroup.get(key);
-    if (!list) byGroup.set(key, list = []);
-    list.push(i);
+    let entry = byGroup.get(key);
+    if (!entry) byGroup.set(key, entry = { rows: [], missing: 0, text: 0 });
+    if (cells.missing[i]) entry.missing++;
+    else if (cells.nonNumeric[i]) entry.text++;
+    else entry.rows.push(i);
   }
   const label = stepLabel(column, steps);
   const keys = [...byGroup.keys()].sort(_compare);
   const residuals: number[] = [];
   const rows: GroupRow[] = [];
   for (const key of keys) {
-    const idx = byGroup.get(key)!;
+    const { rows: idx, missing, text } = byGroup.get(key)!;
+    const counts = { missingDropped: missing, textDropped: text };
     let v: Float64Array = Float64Array.from(idx, (i) => cells.values[i]);
     for (const s of steps) v = s.apply(v);
     if (v.length >= 2) {
@@ -116,6 +136,7 @@ export function screenGroups(state: GroupState): GroupResult {
       rows.push({
         group: key,
         n: v.length,
+        ...counts,
         skipped: `only ${v.length} value${
           v.length === 1 ? "" : "s"
         }; at least ${ANALYSE_MIN_N} are needed`,
@@ -129,14 +150,13 @@ export function screenGroups(state: GroupState): GroupResult {
         column,
         group: key,
         transform: steps.length ? label : undefined,
-        missingDropped: 0,
-        textDropped: 0,
+        ...counts,
         rows: rowsOf,
-      });
-      rows.push({ group: key, n: v.length, analysis: a });
+      }, { qq: options.qq });
+      rows.push({ group: key, n: v.length, ...counts, analysis: a });
     } catch (e) {
       if (e instanceof PlumbError && e.code === "constant") {
-        rows.push({ group: key, n: v.length, skipped: "every value is the same" });
+        rows.push({ group: key, n: v.length, ...counts, skipped: "every value is the same" });
       } else throw e;
     }
   }
@@ -155,7 +175,7 @@ export function screenGroups(state: GroupState): GroupResult {
         transform: steps.length ? label : undefined,
         missingDropped: used.provenance.missingDropped,
         textDropped: used.provenance.textDropped,
-      });
+      }, { qq: options.qq });
     } catch (e) {
       if (!(e instanceof PlumbError && e.code === "constant")) throw e;
     }

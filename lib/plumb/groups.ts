@@ -9,7 +9,7 @@ import { cardBundle } from "../render/card.ts";
 import { chartBundle } from "../render/chart_bundle.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
 import { escapeHtml, escapeMarkdown, plainText } from "../render/escape.ts";
-import { formatCount, formatP } from "../render/format.ts";
+import { formatCount, formatP } from "../results/format.ts";
 import { histogramSpec } from "../render/histogram_spec.ts";
 import { groupSpec } from "../render/group_spec.ts";
 import { qqSpec } from "../render/qq_spec.ts";
@@ -32,7 +32,7 @@ import {
  *
  * @example
  * ```ts
- * import { plumb } from "./plumb.ts";
+ * import { plumb } from "@plumbline/plumbline";
  * const g = plumb({ line: ["a", "b", "a", "b", "a", "b", "a", "b", "a", "b"], v: [1, 4, 2, 5, 3, 7, 2, 6, 4, 5] }, "v").by("line");
  * if (g.result().groups.length !== 2 || g.result().residuals?.n !== 10) throw new Error("groups");
  * ```

@@ -12,6 +12,7 @@ import { boxCoxProfile } from "../reexpress/box_cox_profile.ts";
 import { applyReexpression, reexpression } from "../reexpress/reexpression.ts";
 import { yeoJohnsonFit } from "../reexpress/yeo_johnson_fit.ts";
 import { yeoJohnsonProfile } from "../reexpress/yeo_johnson_profile.ts";
+import type { TopLevelSpec } from "../_deps/vega_lite.ts";
 import { type Chart, chart } from "../render/chart_bundle.ts";
 import { lambdaExplorerSpec } from "../render/lambda_explorer_spec.ts";
 import { qqData } from "../stats/qq_data.ts";
@@ -21,21 +22,27 @@ import { SHAPIRO_WILK_MAX_N, shapiroWilk } from "../stats/shapiro_wilk.ts";
 export const LAMBDA_GRID_POINTS = 41;
 
 /**
- * Build the λ explorer chart for a sample. Above 5000 values the grid is
- * computed on a seeded random subsample of 5000 (the fit itself uses all
- * values), and the chart's title says so.
+ * The λ explorer chart for a sample, computed on the first read of its spec
+ * or its first display. Above 5000 values the grid is computed on a seeded
+ * random subsample of 5000 (the fit itself uses all values), and the chart's
+ * title says so.
  *
- * @param values the sample
- * @param name what it is (for titles)
+ * @param sample the sample, on first need
+ * @param name what it is (for titles), on first need
  *
  * @example
  * ```ts
  * import { lambdaExplorer } from "./lambda_view.ts";
- * const c = lambdaExplorer(new Float64Array([1.1, 1.9, 2.3, 2.8, 3.9, 4.4, 5.6, 7.7, 9.8, 14.1]), "gap");
+ * const x = new Float64Array([1.1, 1.9, 2.3, 2.8, 3.9, 4.4, 5.6, 7.7, 9.8, 14.1]);
+ * const c = lambdaExplorer(() => x, () => "gap");
  * if (!JSON.stringify(c.spec).includes("range")) throw new Error("slider");
  * ```
  */
-export function lambdaExplorer(values: Float64Array, name: string): Chart {
+export function lambdaExplorer(sample: () => Float64Array, name: () => string): Chart {
+  return chart(() => _spec(sample(), name()));
+}
+
+function _spec(values: Float64Array, name: string): TopLevelSpec {
   let positive = true;
   for (const v of values) if (!(v > 0)) positive = false;
   const fit = positive ? boxCoxFit(values) : yeoJohnsonFit(values);
@@ -64,7 +71,7 @@ export function lambdaExplorer(values: Float64Array, name: string): Chart {
   const label = values.length > SHAPIRO_WILK_MAX_N
     ? `${name} (${family}; QQ, W and p on a seeded subsample of ${SHAPIRO_WILK_MAX_N})`
     : `${name} (${family})`;
-  const spec = lambdaExplorerSpec({
+  return lambdaExplorerSpec({
     lambdas,
     logLik,
     lambdaHat: fit.lambda,
@@ -72,5 +79,4 @@ export function lambdaExplorer(values: Float64Array, name: string): Chart {
     ciLevel: fit.level,
     perLambda,
   }, { name: label });
-  return chart(spec);
 }

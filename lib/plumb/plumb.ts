@@ -1,32 +1,38 @@
 /**
  * `plumb(source, column)`: the chain over one numeric variable. Each method
- * returns a new frozen object; the analysis runs once, on first display or
- * first read, and is cached.
+ * returns a new frozen object and computes nothing: the work runs on the
+ * first display or the first read, once, and is kept by the object that did
+ * it, so later reads (and chains built on it) reuse it.
+ *
+ * Kept in one file because the chain's caches are the private state of one
+ * class: split across files, every cache would have to become public.
  *
  * @module
  */
 import type { Table } from "../data/table.ts";
-import { refuseCensored } from "./_censored_guard.ts";
 import { PlumbError } from "../errors.ts";
-import { type Chart, chart, chartBundle } from "../render/chart_bundle.ts";
+import type { ReexpressionSearch } from "../reexpress/candidates.ts";
+import type { Reexpression } from "../reexpress/reexpression.ts";
+import { searchReexpressions } from "../reexpress/search.ts";
 import { cardBundle } from "../render/card.ts";
-import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
-import { detrendedSpec, qqSpec } from "../render/qq_spec.ts";
+import { type Chart, chart, chartBundle } from "../render/chart_bundle.ts";
 import { histogramSpec } from "../render/histogram_spec.ts";
-import { testsTable } from "../render/analysis_tables.ts";
-import { tableHtml, tableMarkdown, tableText } from "../render/table.ts";
+import { detrendedSpec, qqSpec } from "../render/qq_spec.ts";
+import type { Analysis } from "../results/analysis.ts";
+import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
+import type { Reading } from "../results/reading.ts";
 import { histogramData, type HistogramOptions } from "../stats/histogram_data.ts";
 import { qqData, type QqOptions } from "../stats/qq_data.ts";
+import { refuseCensored } from "./_censored_guard.ts";
 import { analyse, ANALYSE_MIN_N } from "./analysis.ts";
-import type { Analysis } from "../results/analysis.ts";
-import { type ReexpressRequest, resolveStep, type Step, stepLabel } from "./steps.ts";
-import { pickColumn, type PlumbSource, toTable } from "./source.ts";
-import { type Sentence, sentenceOf, type SentenceOptions, writeSentence } from "./sentence.ts";
-import { type CandidatesView, chooseBest, reexpressionTable } from "./reexpress_view.ts";
-import { lambdaExplorer } from "./lambda_view.ts";
 import type { GroupOptions } from "./group_screen.ts";
 import { PlumbGroups } from "./groups.ts";
-import { _csv } from "./_csv.ts";
+import { lambdaExplorer } from "./lambda_view.ts";
+import { type CandidatesView, candidatesView, chosenStep } from "./reexpress_view.ts";
+import { type Sentence, sentenceOf, type SentenceOptions, writeSentence } from "./sentence.ts";
+import { pickColumn, type PlumbSource, singleColumn, toTable } from "./source.ts";
+import { checkRequest, type ReexpressRequest, resolveStep, type Step } from "./steps.ts";
+import { type TestsTable, testsView } from "./tests_view.ts";
 
 /** Options for {@linkcode plumb}. */
 export interface PlumbOptions {
@@ -37,22 +43,42 @@ export interface PlumbOptions {
    */
   readonly dropText?: boolean;
   /**
-   * QQ envelope options (level, `"pointwise"` or `"simultaneous"`).
+   * QQ envelope options (level, `"pointwise"` or `"simultaneous"`), for the
+   * card, `.qq()`, `.detrended()` and every group of `.by()`.
    * @default {}
    */
   readonly qq?: QqOptions;
   /**
-   * Name of the single column when the source is a plain array of numbers.
+   * Name of the single column when the source is a plain array of numbers
+   * (`plumb(values, "fill_ml")` names it too).
    * @default "value"
    */
   readonly name?: string;
 }
 
-interface _State {
+/** What a `.reexpress()` request became: the re-expression applied, or none, and why. */
+export interface ReexpressionChoice {
+  /** What was asked for. */
+  readonly request: ReexpressRequest;
+  /** The re-expression applied; `null` when the data are kept as they are. */
+  readonly reexpression: Reexpression | null;
+  /** Why: the search's reason for `"best"`, the shift rule for a log with a chosen shift. */
+  readonly reason: string;
+}
+
+/** Where a chain's values come from: the same for every chain built from one `plumb()`. */
+interface _Root {
   readonly table: Table;
   readonly column: string;
-  readonly steps: readonly Step[];
   readonly options: PlumbOptions;
+}
+
+/** The values a chain analyses, with their rows and what was left out. */
+interface _Loaded {
+  readonly values: Float64Array;
+  readonly rows: Int32Array;
+  readonly missing: number;
+  readonly text: number;
 }
 
 /**
@@ -60,189 +86,238 @@ interface _State {
  *
  * @example
  * ```ts
- * import { plumb } from "./plumb.ts";
- * const p = plumb([2.1, 2.9, 3.2, 3.3, 3.8, 4.1, 4.4, 5.0, 5.6, 7.9], undefined, { name: "gap" });
+ * import { plumb } from "@plumbline/plumbline";
+ * const p = plumb([2.1, 2.9, 3.2, 3.3, 3.8, 4.1, 4.4, 5.0, 5.6, 7.9], "gap");
  * const q = p.reexpress("log");
  * if (p.label !== "gap" || q.label !== "ln(gap)" || q === p) throw new Error("chain");
  * ```
  */
 export class Plumb implements Displayable {
-  readonly #state: _State;
-  #values: Float64Array | undefined;
-  #rows: Int32Array | undefined;
-  #drops: { missing: number; text: number } | undefined;
+  readonly #root: _Root;
+  readonly #parent: Plumb | undefined;
+  readonly #request: ReexpressRequest | undefined;
+  // Kept on first need; undefined means not yet computed.
+  #step: Step | null | undefined;
+  #loaded: _Loaded | undefined;
   #analysis: Analysis | undefined;
+  #search: ReexpressionSearch | undefined;
+  #candidates: CandidatesView | undefined;
+  #lambda: Chart | undefined;
+  #charts: { qq?: Chart; detrended?: Chart; histogram?: Chart } = {};
+  #tests: TestsTable | undefined;
+  #sentence: Sentence | undefined;
   #card: Promise<MimeBundle> | undefined;
 
   /** @internal Use {@linkcode plumb}. */
-  constructor(state: _State) {
-    this.#state = state;
+  constructor(root: _Root, parent?: Plumb, request?: ReexpressRequest) {
+    this.#root = root;
+    this.#parent = parent;
+    this.#request = request;
     Object.freeze(this);
   }
 
   /** The column analysed. */
   get column(): string {
-    return this.#state.column;
+    return this.#root.column;
   }
 
-  /** What is analysed, with any re-expression: e.g. `"log(oxygen_ppb + 2)"`. */
+  /**
+   * What is analysed, with any re-expression: e.g. `"ln(oxygen_ppb + 2)"`.
+   * Reading it resolves the chain's re-expressions (a `"best"` runs its search).
+   */
   get label(): string {
-    return stepLabel(this.#state.column, this.#state.steps);
+    if (this.#parent === undefined) return this.#root.column;
+    const step = this.#resolved();
+    const label = this.#parent.label;
+    return step === null ? label : step.formula.replace(/\bx\b/, () => label);
   }
 
-  /** The re-expressions applied so far, in order. */
+  /** The re-expressions applied so far, in order (resolved on first read). */
   get steps(): readonly Step[] {
-    return this.#state.steps;
+    if (this.#parent === undefined) return [];
+    const step = this.#resolved();
+    return step === null ? this.#parent.steps : [...this.#parent.steps, step];
+  }
+
+  /** What this chain's `.reexpress()` request became, or `null` on the chain `plumb()` made. */
+  get choice(): ReexpressionChoice | null {
+    if (this.#parent === undefined || this.#request === undefined) return null;
+    const step = this.#resolved();
+    const reason = this.#request === "best"
+      ? this.#parent.#searched().reason
+      : step?.note ?? "as requested";
+    return Object.freeze({
+      request: this.#request,
+      reexpression: step === null ? null : step.reexpression,
+      reason,
+    });
   }
 
   /** The values analysed (after any re-expression); a fresh copy. */
   values(): Float64Array {
-    return this.#load().slice();
+    return this.#load().values.slice();
   }
 
-  #load(): Float64Array {
-    if (this.#values) return this.#values;
-    const { table, column, steps, options } = this.#state;
-    const col = table.numeric(column, { dropText: options.dropText ?? false });
-    refuseCensored(col, this.label);
-    let v: Float64Array = col.values;
-    for (const s of steps) v = s.apply(v);
-    this.#values = v;
-    this.#rows = col.rowIndex;
-    this.#drops = { missing: col.provenance.missingDropped, text: col.provenance.textDropped };
-    return v;
+  #resolved(): Step | null {
+    if (this.#step !== undefined) return this.#step;
+    const parent = this.#parent!;
+    const request = this.#request!;
+    this.#step = request === "best"
+      ? chosenStep(parent.#searched())
+      : resolveStep(request, parent.#load().values);
+    return this.#step;
+  }
+
+  #load(): _Loaded {
+    if (this.#loaded) return this.#loaded;
+    if (this.#parent === undefined) {
+      const { table, column, options } = this.#root;
+      const col = table.numeric(column, { dropText: options.dropText ?? false });
+      refuseCensored(col, column);
+      this.#loaded = {
+        values: col.values,
+        rows: col.rowIndex,
+        missing: col.provenance.missingDropped,
+        text: col.provenance.textDropped,
+      };
+    } else {
+      const from = this.#parent.#load();
+      const step = this.#resolved();
+      this.#loaded = step === null ? from : { ...from, values: step.apply(from.values) };
+    }
+    return this.#loaded;
+  }
+
+  #searched(): ReexpressionSearch {
+    return (this.#search ??= searchReexpressions(this.#load().values));
   }
 
   /** The full analysis as plain data (computed once). */
   analysis(): Analysis {
     if (this.#analysis) return this.#analysis;
-    const v = this.#load();
-    if (v.length < ANALYSE_MIN_N) {
+    const { values, rows, missing, text } = this.#load();
+    if (values.length < ANALYSE_MIN_N) {
+      const n = values.length;
       throw new PlumbError(
         "too-few",
-        `Cannot screen ${this.label}: ${v.length} value${
-          v.length === 1 ? "" : "s"
-        } after leaving out ` +
-          `${this.#drops!.missing} missing and ${
-            this.#drops!.text
-          } non-numeric cells, and at least ${ANALYSE_MIN_N} are needed`,
+        `Cannot screen ${this.label}: ${n} value${n === 1 ? "" : "s"} after leaving out ` +
+          `${missing} missing and ${text} non-numeric cells, and at least ${ANALYSE_MIN_N} are needed`,
       );
     }
-    // 1-based data rows; Int32Array.prototype.map, unlike Int32Array.from with a
-    // mapping function, does not copy the input into a temporary list first.
-    const rows = this.#rows!.map((r) => r + 1);
-    this.#analysis = analyse(v, {
+    this.#analysis = analyse(values, {
       label: this.label,
-      column: this.#state.column,
-      transform: this.#state.steps.length ? this.label : undefined,
-      missingDropped: this.#drops!.missing,
-      textDropped: this.#drops!.text,
-      rows,
-    }, { qq: this.#state.options.qq });
+      column: this.#root.column,
+      transform: this.steps.length ? this.label : undefined,
+      missingDropped: missing,
+      textDropped: text,
+      // 1-based data rows; Int32Array.prototype.map, unlike Int32Array.from with a
+      // mapping function, does not copy the input into a temporary list first.
+      rows: rows.map((r) => r + 1),
+    }, { qq: this.#root.options.qq });
     return this.#analysis;
   }
 
   /** The reading (shape in words). */
-  reading(): Analysis["reading"] {
+  reading(): Reading {
     return this.analysis().reading;
   }
 
-  /** A new chain on the same column split by a grouping column. */
+  /** The same variable (with its re-expressions) screened within each group of a column. */
   by(column: string, options: GroupOptions = {}): PlumbGroups {
-    pickColumn(this.#state.table, column);
-    return new PlumbGroups({ ...this.#state, groupBy: column, groupOptions: options });
+    const { table, column: variable, options: own } = this.#root;
+    pickColumn(table, column);
+    return new PlumbGroups({
+      table,
+      column: variable,
+      steps: () => this.steps,
+      options: { dropText: own.dropText, qq: own.qq },
+      groupBy: column,
+      groupOptions: options,
+    });
   }
 
   /**
-   * With no argument: the ranked re-expression candidates, re-tested
-   * (displayable). With a request: a new chain on the re-expressed values.
+   * A new chain on the re-expressed values. With no argument, or `"best"`:
+   * the first of the ranked candidates (see {@linkcode Plumb.candidates}),
+   * which may be the data as they are; `.choice` says what was chosen and why.
    */
-  reexpress(): CandidatesView;
-  reexpress(request: ReexpressRequest): Plumb;
-  reexpress(request?: ReexpressRequest): Plumb | CandidatesView {
-    if (request === undefined) return reexpressionTable(this.#load(), this.label);
-    const step = request === "best" ? chooseBest(this.#load()) : resolveStep(request, this.#load());
-    if (step === undefined) return this; // the data are best left as they are
-    return new Plumb({ ...this.#state, steps: [...this.#state.steps, step] });
+  reexpress(request: ReexpressRequest = "best"): Plumb {
+    checkRequest(request);
+    return new Plumb(this.#root, this, request);
+  }
+
+  /** The ranked re-expression candidates, each re-tested: displayable and exportable. */
+  candidates(): CandidatesView {
+    return (this.#candidates ??= candidatesView(
+      () => this.#load().values,
+      () => this.#searched(),
+      () => this.label,
+    ));
   }
 
   /** The QQ plot with its envelope, as a displayable chart. */
   qq(options: QqOptions = {}): Chart {
-    const q = this.#qqFor(options);
-    return chart(qqSpec(q, { name: this.label }));
+    return this.#chart("qq", options, (q) => qqSpec(q, { name: this.label }));
   }
 
   /** The detrended QQ plot (deviation from the line, with the envelope). */
   detrended(options: QqOptions = {}): Chart {
-    const q = this.#qqFor(options);
-    return chart(detrendedSpec(q, { name: this.label }));
+    return this.#chart("detrended", options, (q) => detrendedSpec(q, { name: this.label }));
   }
 
-  #qqFor(options: QqOptions) {
-    if (Object.keys(options).length === 0 && this.#analysis) return this.#analysis.qq;
-    const values = this.#load();
-    return qqData(values, {
-      ...this.#state.options.qq,
-      ...options,
-      rows: this.#rows!.map((r) => r + 1),
+  #chart(
+    kind: "qq" | "detrended",
+    options: QqOptions,
+    spec: (q: Analysis["qq"]) => ReturnType<typeof qqSpec>,
+  ): Chart {
+    const own = Object.keys(options).length === 0;
+    if (own && this.#charts[kind]) return this.#charts[kind]!;
+    const c = chart(() => {
+      if (own) return spec(this.analysis().qq);
+      const { values, rows } = this.#load();
+      const merged = { ...this.#root.options.qq, ...options, rows: rows.map((r) => r + 1) };
+      return spec(qqData(values, merged));
     });
+    if (own) this.#charts[kind] = c;
+    return c;
   }
 
   /** The histogram with the fitted normal curve. */
   histogram(options: HistogramOptions = {}): Chart {
-    const h = Object.keys(options).length
-      ? histogramData(this.#load(), options)
-      : this.analysis().histogram;
-    return chart(histogramSpec(h, { name: this.label }));
+    const own = Object.keys(options).length === 0;
+    if (own && this.#charts.histogram) return this.#charts.histogram;
+    const c = chart(() =>
+      histogramSpec(
+        own ? this.analysis().histogram : histogramData(this.#load().values, options),
+        { name: this.label },
+      )
+    );
+    if (own) this.#charts.histogram = c;
+    return c;
   }
 
   /** Every normality test, as a displayable table with `toCSV()` / `toMarkdown()`. */
-  tests(): Displayable & { toJSON(): unknown; toMarkdown(): string; toCSV(): string } {
-    const a = this.analysis();
-    const model = testsTable(a.tests, `Normality tests — ${a.origin.label} (n = ${a.n})`);
-    const bundle = Object.freeze({
-      "text/html": tableHtml(model),
-      "text/markdown": tableMarkdown(model),
-      "text/plain": tableText(model),
-    });
-    return Object.freeze({
-      [DISPLAY]: () => bundle,
-      toJSON: () => a.tests,
-      toMarkdown: () => bundle["text/markdown"],
-      toCSV: () =>
-        _csv(
-          ["test", "statistic", "value", "p", "method"],
-          a.tests.map((t) =>
-            t.result
-              ? [
-                t.test,
-                t.result.statisticName,
-                t.result.statistic,
-                t.result.pValue,
-                t.result.method,
-              ]
-              : [t.test, "", "", "", t.skipped ?? ""]
-          ),
-        ),
-    }) as never;
+  tests(): TestsTable {
+    return (this.#tests ??= testsView(() => this.analysis()));
   }
 
   /** The λ explorer for Box–Cox (or Yeo–Johnson when values are not all positive). */
   lambda(): Chart {
-    return lambdaExplorer(this.#load(), this.label);
+    return (this.#lambda ??= lambdaExplorer(() => this.#load().values, () => this.label));
   }
 
   /** The write-up paragraph. */
   sentence(options: SentenceOptions = {}): Sentence {
-    return sentenceOf(writeSentence(this.analysis(), options));
+    const make = () => sentenceOf(() => writeSentence(this.analysis(), options));
+    if (Object.keys(options).length > 0) return make();
+    return (this.#sentence ??= make());
   }
 
-  /** The analysis as plain data. */
-  toJSON(): unknown {
-    const a = this.analysis();
+  /** The analysis as plain data, with the re-expressions applied. */
+  toJSON(): Analysis & { readonly steps: readonly Omit<Step, "apply">[] } {
     return {
-      ...a,
-      steps: this.#state.steps.map((s) => ({
+      ...this.analysis(),
+      steps: this.steps.map((s) => ({
         reexpression: s.reexpression,
         formula: s.formula,
         note: s.note,
@@ -265,22 +340,26 @@ export class Plumb implements Displayable {
 }
 
 /**
- * Start a chain over one numeric variable.
+ * Start a chain over one numeric variable. Nothing is read or computed until
+ * the chain is first shown or read.
  *
- * @param source a table from {@linkcode loadTable}, an array of numbers, or
- *   in-memory data (rows, columns, a data frame)
- * @param column the column to analyse (optional when there is only one)
- * @param options text-cell handling, envelope options, the name of a plain array
+ * @param source a table from `loadTable`, an array of numbers, or in-memory
+ *   data (rows, columns, a data frame)
+ * @param column the column to analyse (optional when there is only one); for
+ *   a plain array of numbers, the variable's name
+ * @param options text-cell handling, envelope options
  *
  * @example
  * ```ts
- * import { plumb } from "./plumb.ts";
- * const p = plumb([4.1, 3.9, 4.4, 4.0, 4.2, 3.7, 4.6, 4.3, 3.8, 4.1], undefined, { name: "fill" });
- * if (p.analysis().n !== 10 || p.label !== "fill") throw new Error("chain");
+ * import { plumb } from "@plumbline/plumbline";
+ * const p = plumb([4.1, 3.9, 4.4, 4.0, 4.2, 3.7, 4.6, 4.3, 3.8, 4.1], "fill_ml");
+ * if (p.analysis().n !== 10 || p.label !== "fill_ml") throw new Error("chain");
  * ```
  */
 export function plumb(source: PlumbSource, column?: string, options: PlumbOptions = {}): Plumb {
-  const table = toTable(source, options.name ?? "value");
-  const col = pickColumn(table, column);
-  return new Plumb({ table, column: col, steps: [], options });
+  const single = singleColumn(source);
+  const name = single && column !== undefined ? column : options.name ?? "value";
+  const table = toTable(source, name);
+  const col = pickColumn(table, single ? undefined : column);
+  return new Plumb({ table, column: col, options });
 }

@@ -13,7 +13,7 @@ import { chartBundle } from "../render/chart_bundle.ts";
 import { comparisonSpec } from "../render/comparison_spec.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
 import { escapeHtml, escapeMarkdown, plainText } from "../render/escape.ts";
-import { formatNumber, formatP } from "../render/format.ts";
+import { formatNumber, formatP } from "../results/format.ts";
 import { tableHtml, tableMarkdown, type TableModel, tableText } from "../render/table.ts";
 import { qqData } from "../stats/qq_data.ts";
 import { type Step, stepLabel, stepOf } from "./steps.ts";
@@ -79,28 +79,37 @@ export interface CandidatesView extends Displayable {
 
 /**
  * The ranked candidates of a sample, displayable: table, QQ panel of the
- * top candidates, reason, back-transformed summary.
+ * top candidates, reason, back-transformed summary. Nothing is computed
+ * until the view is first read or shown; then the search runs once (through
+ * `search`, which the chain caches) and the view keeps what it made.
  *
- * @param values the sample
- * @param name what it is (for titles)
+ * @param values the sample, on first need
+ * @param search the ranked candidates of those values, on first need
+ * @param name what the sample is (for titles), on first need
  *
  * @example
  * ```ts
- * import { reexpressionTable } from "./reexpress_view.ts";
- * const v = reexpressionTable(new Float64Array([1.1, 1.9, 2.3, 2.8, 3.9, 4.4, 5.6, 7.7, 9.8, 14.1, 19.5, 31.2]), "gap");
+ * import { candidatesView } from "./reexpress_view.ts";
+ * import { searchReexpressions } from "@plumbline/plumbline";
+ * const x = new Float64Array([1.1, 1.9, 2.3, 2.8, 3.9, 4.4, 5.6, 7.7, 9.8, 14.1, 19.5, 31.2]);
+ * const v = candidatesView(() => x, () => searchReexpressions(x), () => "gap");
  * if (!v.toMarkdown().includes("chosen")) throw new Error("table");
  * ```
  */
-export function reexpressionTable(
-  values: Float64Array,
-  name: string,
+export function candidatesView(
+  values: () => Float64Array,
+  search: () => ReexpressionSearch,
+  name: () => string,
 ): CandidatesView {
-  const s = searchReexpressions(values);
-  const model = candidatesTable(s, name);
-  const back = _backLines(values, s);
+  let model: TableModel | undefined;
+  let back: string[] | undefined;
+  const table = () => (model ??= candidatesTable(search(), name()));
+  const backLines = () => (back ??= _backLines(values(), search()));
   let bundle: Promise<MimeBundle> | undefined;
   const show = () =>
     bundle ??= (async () => {
+      const s = search();
+      const x = values();
       const top = s.candidates.slice(0, 6);
       const spec = comparisonSpec(
         top.map((c) => {
@@ -108,30 +117,31 @@ export function reexpressionTable(
           return {
             // In x: the chart's title names the variable, and short panel titles keep the grid aligned.
             label: stepOf(c.reexpression).formula,
-            qq: qqData(applyReexpression(values, c.reexpression)),
+            qq: qqData(applyReexpression(x, c.reexpression)),
             W: sw?.statistic ?? 1 - c.departure,
             p: sw?.pValue ?? NaN,
             note: c.rank === 1 ? "chosen" : undefined,
           };
         }),
-        { name },
+        { name: name() },
       );
       const panel = await chartBundle(spec);
-      const backHtml = back.map((l) => `<p style="margin:2px 0">${escapeHtml(l)}</p>`).join("");
+      const lines = backLines();
+      const backHtml = lines.map((l) => `<p style="margin:2px 0">${escapeHtml(l)}</p>`).join("");
       return Object.freeze({
         "text/html":
           `<div style="background:#fff;color:#111;font-family:sans-serif;padding:6px">${
-            tableHtml(model)
+            tableHtml(table())
           }` +
           `<div style="margin:8px 0">${panel["text/html"] ?? ""}</div>${backHtml}</div>`,
-        "text/markdown": `${tableMarkdown(model)}\n\n${back.map(escapeMarkdown).join("\n\n")}`,
-        "text/plain": plainText(`${tableText(model)}\n\n${back.join("\n")}`),
+        "text/markdown": `${tableMarkdown(table())}\n\n${lines.map(escapeMarkdown).join("\n\n")}`,
+        "text/plain": plainText(`${tableText(table())}\n\n${lines.join("\n")}`),
       });
     })();
   return Object.freeze({
     [DISPLAY]: show,
-    toJSON: () => s,
-    toMarkdown: () => tableMarkdown(model),
+    toJSON: () => search(),
+    toMarkdown: () => tableMarkdown(table()),
     toCSV: () =>
       _csv(
         [
@@ -147,7 +157,7 @@ export function reexpressionTable(
           "g2",
           "close_to_best",
         ],
-        s.candidates.map((c) => {
+        search().candidates.map((c) => {
           const sw = c.tests.find((t) => t.test === "Shapiro–Wilk")?.result;
           return [
             c.rank,
@@ -164,13 +174,12 @@ export function reexpressionTable(
           ];
         }),
       ),
-  }) as never;
+  });
 }
 
-/** The chosen candidate as a step, or `undefined` when it is "as measured". */
-export function chooseBest(values: Float64Array): Step | undefined {
-  const s = searchReexpressions(values);
-  if (s.chosen.reexpression.kind === "identity") return undefined;
+/** The chosen candidate as a step, or `null` when it is "as measured". */
+export function chosenStep(s: ReexpressionSearch): Step | null {
+  if (s.chosen.reexpression.kind === "identity") return null;
   return stepOf(s.chosen.reexpression, s.reason);
 }
 

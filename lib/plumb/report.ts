@@ -62,7 +62,7 @@ const _html = async (d: { [DISPLAY](): MimeBundle | Promise<MimeBundle> }) =>
  *
  * @example
  * ```ts
- * import { loadTable } from "../data/load_table.ts";
+ * import { loadTable } from "@plumbline/plumbline";
  * import { writeReport } from "./report.ts";
  * const t = await loadTable("v\n" + Array.from({ length: 20 }, (_, i) => String(Math.exp(i / 5))).join("\n"));
  * const r = await writeReport(t);
@@ -90,9 +90,9 @@ export async function writeReport(table: Table, options: ReportOptions = {}): Pr
       );
     }
     if (row.analysis.reading.verdict !== "no-clear-departure") {
-      parts.push(`<h3>Re-expressions of ${escapeHtml(col)}</h3>${await _html(p.reexpress())}`);
+      parts.push(`<h3>Re-expressions of ${escapeHtml(col)}</h3>${await _html(p.candidates())}`);
       const best = p.reexpress("best");
-      if (best !== p) {
+      if (best.steps.length > 0) {
         parts.push(`<h3>${escapeHtml(best.label)}</h3>${await _html(best)}`);
         sentences.push(best.sentence().text);
       }

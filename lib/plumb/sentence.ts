@@ -5,7 +5,7 @@
  * @module
  */
 import { escapeHtml, escapeMarkdown, plainText } from "../render/escape.ts";
-import { formatCount, formatNumber } from "../render/format.ts";
+import { formatCount, formatNumber } from "../results/format.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
 import type { Analysis } from "../results/analysis.ts";
 import { VERDICT_WORDS } from "../results/reading.ts";
@@ -126,25 +126,39 @@ export function writeSentence(a: Analysis, options: SentenceOptions = {}): strin
 export interface Sentence extends Displayable {
   /** The paragraph. */
   readonly text: string;
+  /** The paragraph. */
   toString(): string;
+  /** The paragraph, as a JSON string. */
   toJSON(): string;
+  /** The paragraph as plain text, Markdown and HTML. */
+  [DISPLAY](): MimeBundle;
 }
 
 /**
- * The write-up paragraph as a displayable: text, Markdown and HTML.
+ * The write-up paragraph as a displayable: plain text, Markdown and HTML.
+ * Given a function, the paragraph is written on first read or display, once.
  *
- * @param text the paragraph
+ * @param text the paragraph, or a function that writes it
  * @example
  * ```ts
  * import { sentenceOf } from "./sentence.ts";
  * if (sentenceOf("n = 12.").toJSON() !== "n = 12.") throw new Error("sentence");
  * ```
  */
-export function sentenceOf(text: string): Sentence {
-  const bundle: MimeBundle = Object.freeze({
-    "text/plain": plainText(text),
-    "text/markdown": escapeMarkdown(text),
-    "text/html": `<p style="max-width:780px">${escapeHtml(text)}</p>`,
+export function sentenceOf(text: string | (() => string)): Sentence {
+  let written: string | undefined = typeof text === "string" ? text : undefined;
+  const get = () => (written ??= (text as () => string)());
+  let bundle: MimeBundle | undefined;
+  return Object.freeze({
+    get text() {
+      return get();
+    },
+    [DISPLAY]: () => (bundle ??= Object.freeze({
+      "text/plain": plainText(get()),
+      "text/markdown": escapeMarkdown(get()),
+      "text/html": `<p style="max-width:780px">${escapeHtml(get())}</p>`,
+    })),
+    toString: () => get(),
+    toJSON: () => get(),
   });
-  return Object.freeze({ text, [DISPLAY]: () => bundle, toString: () => text, toJSON: () => text });
 }

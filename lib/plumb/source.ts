@@ -7,10 +7,35 @@
 import { PlumbError } from "../errors.ts";
 import { _isTable } from "../data/_table_store.ts";
 import { tableFromMemory } from "../data/in_memory.ts";
+import type { MemorySource } from "../data/memory_source.ts";
 import type { Table } from "../data/table.ts";
 
-/** What `plumb` and `survey` accept: a loaded table, or in-memory data. */
-export type PlumbSource = Table | ArrayLike<number> | object;
+/**
+ * What `plumb` and `survey` accept: a table from `loadTable`, or in-memory
+ * data (an array of numbers, rows, columns, a data frame).
+ */
+export type PlumbSource = Table | MemorySource;
+
+/**
+ * Whether a source is a single column of cells (an array or typed array of
+ * values, not of row objects), whose variable `plumb` names by its second
+ * argument.
+ *
+ * @param source what was handed to `plumb`
+ * @example
+ * ```ts
+ * import { singleColumn } from "./source.ts";
+ * if (!singleColumn([1, 2, 3]) || singleColumn([{ x: 1 }]) || singleColumn({ x: [1] })) {
+ *   throw new Error("shape");
+ * }
+ * ```
+ */
+export function singleColumn(source: PlumbSource): boolean {
+  if (ArrayBuffer.isView(source)) return true;
+  if (!Array.isArray(source)) return false;
+  const first = source.find((x) => x !== null && x !== undefined);
+  return typeof first !== "object" || first instanceof Date || Array.isArray(first);
+}
 
 /**
  * Resolve a source to a table (in-memory data are loaded synchronously).

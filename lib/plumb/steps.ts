@@ -41,7 +41,7 @@ export interface Step {
  * @example
  * ```ts
  * import { formulaOf } from "./steps.ts";
- * import { reexpression } from "../reexpress/reexpression.ts";
+ * import { reexpression } from "@plumbline/plumbline";
  * if (formulaOf(reexpression("box-cox", { lambda: 0.5 })) !== "Box–Cox[λ = 0.5](x)") throw new Error("formula");
  * ```
  */
@@ -57,6 +57,61 @@ export function stepOf(r: Reexpression, note?: string): Step {
     note,
     apply: (v: Float64Array) => applyReexpression(v, r),
   });
+}
+
+/**
+ * Check a request's form before any data are read, so that a mistyped
+ * request fails where it is written: a known name, `{ boxCox: λ }` or
+ * `{ yeoJohnson: λ }` with a finite λ, or `{ log: { shift, base } }` with a
+ * finite shift and base `"e"` or `10`.
+ *
+ * @param request what the user asked for
+ * @example
+ * ```ts
+ * import { checkRequest } from "./steps.ts";
+ * checkRequest({ boxCox: 0.5 });
+ * let refused = false;
+ * try {
+ *   checkRequest("logarithm" as never);
+ * } catch {
+ *   refused = true;
+ * }
+ * if (!refused) throw new Error("an unknown name is refused");
+ * ```
+ */
+export function checkRequest(request: ReexpressRequest): void {
+  if (["log", "log10", "sqrt", "reciprocal", "best"].includes(request as string)) return;
+  if (typeof request === "object" && request !== null) {
+    const r = request as Record<string, unknown>;
+    const keys = Object.keys(r);
+    if (keys.length === 1 && (keys[0] === "boxCox" || keys[0] === "yeoJohnson")) {
+      const lambda = r[keys[0]];
+      if (typeof lambda === "number" && Number.isFinite(lambda)) return;
+      throw new PlumbError(
+        "bad-option",
+        `Cannot re-express with ${keys[0]}: ${String(lambda)}: λ must be a finite number`,
+        { lambda },
+      );
+    }
+    if (keys.length === 1 && keys[0] === "log" && typeof r.log === "object" && r.log !== null) {
+      const { shift, base } = r.log as { shift?: unknown; base?: unknown };
+      const shiftOk = shift === undefined || (typeof shift === "number" && Number.isFinite(shift));
+      const baseOk = base === undefined || base === "e" || base === 10;
+      if (shiftOk && baseOk) return;
+      throw new PlumbError(
+        "bad-option",
+        `Cannot re-express with log ${JSON.stringify(r.log)}: the shift must be a finite number ` +
+          `and the base "e" or 10`,
+      );
+    }
+  }
+  throw new PlumbError(
+    "bad-option",
+    `Unknown re-expression ${
+      JSON.stringify(request)
+    }: use "log", "log10", "sqrt", "reciprocal", "best", ` +
+      "{ boxCox: λ }, { yeoJohnson: λ } or { log: { shift, base } }",
+  );
 }
 
 /**
@@ -101,13 +156,8 @@ export function resolveStep(request: Exclude<ReexpressRequest, "best">, x: Float
   if (typeof request === "object" && request !== null && "yeoJohnson" in request) {
     return stepOf(reexpression("yeo-johnson", { lambda: request.yeoJohnson }));
   }
-  throw new PlumbError(
-    "bad-option",
-    `Unknown re-expression ${
-      JSON.stringify(request)
-    }: use "log", "log10", "sqrt", "reciprocal", "best", ` +
-      "{ boxCox: λ }, { yeoJohnson: λ } or { log: { shift, base } }",
-  );
+  checkRequest(request); // throws, naming the requests there are
+  throw new RangeError(`resolveStep: no rule for ${JSON.stringify(request)}`);
 }
 
 /**

@@ -7,6 +7,7 @@
  */
 import type { TopLevelSpec } from "../_deps/vega_lite.ts";
 import {
+  DISPLAY,
   type Displayable,
   lazyDisplayable,
   type MimeBundle,
@@ -92,18 +93,36 @@ export interface Chart extends Displayable {
  * kernel awaits the async display method) and cached; `await c.prepare()`
  * renders ahead of time and returns an object whose display is synchronous.
  *
- * @param spec a Vega-Lite 5 spec with inline data
+ * Given a function instead of a spec, the chart is lazy: the function runs
+ * once, on the first read of `spec` or the first display, and its spec is
+ * kept — so a chain can hand out charts without computing them.
+ *
+ * @param spec a Vega-Lite 5 spec with inline data, or a function that makes one
  * @param meta title and description (defaults from the spec)
  * @example
  * ```ts
  * import { chart } from "./chart_bundle.ts";
- * import { DISPLAY } from "../results/display.ts";
- * const c = chart({ data: { values: [{ a: 1 }] }, mark: "tick", encoding: { x: { field: "a", type: "quantitative" } } });
+ * import { DISPLAY } from "@plumbline/plumbline";
+ * const made: string[] = [];
+ * const c = chart(() => {
+ *   made.push("spec");
+ *   return { data: { values: [{ a: 1 }] }, mark: "tick", encoding: { x: { field: "a", type: "quantitative" } } };
+ * });
+ * if (made.join() !== "") throw new Error("nothing is computed before it is needed");
  * const ready = await c.prepare();
- * if (!ready[DISPLAY]()["text/html"]) throw new Error("prepared");
+ * if (!ready[DISPLAY]()["text/html"] || !c.spec) throw new Error("rendered");
+ * if (made.join() !== "spec") throw new Error("the spec is made once");
  * ```
  */
-export function chart(spec: TopLevelSpec, meta: ChartMeta = {}): Chart {
-  const lazy = lazyDisplayable(() => chartBundle(spec, meta));
-  return Object.freeze({ spec, ...lazy, prepare: lazy.prepare });
+export function chart(spec: TopLevelSpec | (() => TopLevelSpec), meta: ChartMeta = {}): Chart {
+  let made: TopLevelSpec | undefined = typeof spec === "function" ? undefined : spec;
+  const get = (): TopLevelSpec => (made ??= (spec as () => TopLevelSpec)());
+  const lazy = lazyDisplayable(() => chartBundle(get(), meta));
+  return Object.freeze({
+    get spec() {
+      return get();
+    },
+    [DISPLAY]: lazy[DISPLAY],
+    prepare: lazy.prepare,
+  });
 }

@@ -289,7 +289,10 @@ Deno.test("in memory: a { values, censor } column that does not line up is refus
     [{ values: [1], censor: [0], unit: "mg" }, /unknown key "unit"/],
   ];
   for (const [column, message] of cases) {
-    await assert.rejects(() => loadTable({ x: column }), isPlumbError("bad-option", message));
+    await assert.rejects(
+      () => loadTable({ x: column } as never),
+      isPlumbError("bad-option", message),
+    );
   }
 });
 

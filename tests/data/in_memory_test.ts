@@ -1,3 +1,4 @@
+import type { FrameLike } from "../../lib/data/memory_source.ts";
 import assert from "node:assert/strict";
 import { loadTable } from "../../lib/data/load_table.ts";
 import { tableFromMemory } from "../../lib/data/in_memory.ts";
@@ -105,7 +106,7 @@ Deno.test("shapes that are not tables are refused with bad-option", async () => 
     [42, /^Cannot make a table from number/],
   ];
   for (const [data, message] of cases) {
-    await assert.rejects(() => loadTable(data as object), (e: unknown) => {
+    await assert.rejects(() => loadTable(data as never), (e: unknown) => {
       assert.ok(e instanceof PlumbError);
       assert.equal(e.code, "bad-option");
       assert.match(e.message, message);
@@ -125,7 +126,7 @@ Deno.test("a table passed to loadTable comes back as it is", async () => {
 Deno.test("duck-typed data frames: every supported method shape", async () => {
   const data: Record<string, unknown[]> = { x: [1, 2, 3], g: ["a", "b", "a"] };
   const names = () => Object.keys(data);
-  const fakes: [string, object][] = [
+  const fakes: [string, FrameLike][] = [
     ["columnNames + array", { columnNames: names, array: (n: string) => data[n] }],
     ["columnNames + column (get/length)", {
       columnNames: names,

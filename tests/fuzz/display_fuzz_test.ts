@@ -209,7 +209,7 @@ Deno.test("display fuzz: hostile names and labels give well-formed, inert HTML a
         add(await _bundle(survey(t)), "survey");
         add(await _bundle(p.sentence()), "sentence");
         add(await _bundle(p.tests()), "tests");
-        add(await _bundle(p.reexpress()), "candidates");
+        add(await _bundle(p.candidates()), "candidates");
         for (
           const [what, chart] of [["qq", p.qq()], ["histogram", p.histogram()], [
             "detrended",

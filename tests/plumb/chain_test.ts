@@ -78,7 +78,7 @@ Deno.test("chain: unknown columns and ambiguous sources give clear errors", () =
 });
 
 Deno.test("chain: reexpress('best') carries the chosen candidate, labelled everywhere", async () => {
-  const p = plumb(SHAPES.rightSkewed, undefined, { name: "delay" }).reexpress("best");
+  const p = plumb(SHAPES.rightSkewed, "delay").reexpress("best");
   equal(p.label, "ln(delay)");
   const b = await p[DISPLAY]() as MimeBundle;
   ok(b["text/plain"].startsWith("ln(delay)\n"));
@@ -86,8 +86,8 @@ Deno.test("chain: reexpress('best') carries the chosen candidate, labelled every
   match(p.sentence().text, /re-expressed as ln\(delay\) before testing/);
 });
 
-Deno.test("chain: reexpress() lists ranked candidates with one chosen", () => {
-  const v = plumb(table, "gap").reexpress();
+Deno.test("chain: candidates() lists ranked candidates with one chosen", () => {
+  const v = plumb(table, "gap").candidates();
   const md = v.toMarkdown();
   ok(md.includes(`| 1 | ln(gap + ${shift}) |`), md);
   match(v.toCSV(), /^rank,reexpression,kind,lambda,shift,departure,W,p,g1,g2,close_to_best\n1,/);
@@ -109,7 +109,7 @@ Deno.test("chain: .by(column) adjusts p across groups and pools residuals", () =
 });
 
 Deno.test("chain: tests() exports CSV and Markdown with every test, run or not", () => {
-  const t = plumb([3.1, 2.7, 3.4, 2.9, 3.8, 3.3], undefined, { name: "v" }).tests();
+  const t = plumb([3.1, 2.7, 3.4, 2.9, 3.8, 3.3], "v").tests();
   const csvText = t.toCSV();
   match(csvText, /^test,statistic,value,p,method\nShapiro–Wilk,W,/);
   match(csvText, /\nAnderson–Darling,,,,Cannot run the Anderson–Darling test on 6 values/);
@@ -150,4 +150,84 @@ Deno.test("survey: a column with text cells is listed as not screened, with the 
   ok(w.skipped && /1O0\.2/.test(w.skipped));
   const d = survey(table, { dropText: true }).result().rows.find((x) => x.column === "weight")!;
   equal(d.textDropped, 1);
+});
+
+Deno.test("chain: building a chain computes nothing; the first read does, once, for every step", () => {
+  // A table whose column turns out to be constant: any computation would throw.
+  const flat = plumb({ v: [2, 2, 2, 2, 2, 2] }, "v");
+  const built = [
+    flat.reexpress(),
+    flat.reexpress("log"),
+    flat.reexpress({ boxCox: 0.5 }).reexpress("best"),
+    flat.candidates(),
+    flat.lambda(),
+    flat.qq(),
+    flat.detrended({ level: 0.9 }),
+    flat.histogram({ rule: "scott" }),
+    flat.tests(),
+    flat.sentence(),
+    flat.by("v"),
+  ];
+  equal(built.length, 11, "every method returned without reading the data");
+  throws(() => flat.analysis(), (e: unknown) => e instanceof PlumbError && e.code === "constant");
+  throws(() => flat.reexpress().label, (e: unknown) => e instanceof PlumbError);
+});
+
+Deno.test("chain: each step's work is cached, and chains built on a step share it", () => {
+  const p = plumb(SHAPES.rightSkewed, "delay");
+  ok(p.candidates() === p.candidates(), "one candidates view per chain");
+  ok(p.lambda() === p.lambda(), "one λ explorer per chain");
+  ok(p.tests() === p.tests() && p.sentence() === p.sentence() && p.qq() === p.qq());
+  const view = p.candidates().toJSON();
+  ok(view === p.candidates().toJSON(), "the search runs once");
+  const best = p.reexpress();
+  equal(best.label, "ln(delay)");
+  // "best" reads the parent's search: no second search, the same chosen candidate.
+  ok(p.candidates().toJSON() === view);
+  equal(best.choice!.reexpression, view.chosen.reexpression);
+  equal(best.choice!.reason, view.reason);
+  ok(best.analysis() === best.analysis());
+  // The spec of a lazy chart is made on first read and kept.
+  ok(p.lambda().spec === p.lambda().spec);
+});
+
+Deno.test("chain: reexpress() always returns a chain; 'best' may keep the data as they are", () => {
+  const x = Array.from({ length: 200 }, (_, i) => 10 + Math.sin(i * 1.3) + Math.cos(i * 0.7));
+  const p = plumb(x, "fill");
+  const kept = p.reexpress();
+  ok(kept !== p);
+  deepEqual(kept.steps, []);
+  equal(kept.label, "fill");
+  equal(kept.choice!.reexpression, null);
+  match(kept.choice!.reason, /^No re-expression needed/);
+  deepEqual(kept.values(), p.values());
+  equal(p.choice, null);
+  throws(
+    () => p.reexpress("logarithm" as never),
+    (e: unknown) => e instanceof PlumbError && e.code === "bad-option",
+    "a mistyped request fails where it is written",
+  );
+});
+
+Deno.test("chain: a plain array is named by the second argument", () => {
+  equal(plumb([1.2, 3.4, 2.2, 5.1], "torque_nm").label, "torque_nm");
+  equal(plumb(new Float64Array([1.2, 3.4, 2.2, 5.1]), "torque_nm").label, "torque_nm");
+  equal(plumb([1.2, 3.4, 2.2, 5.1]).label, "value");
+  equal(plumb([{ t: 1 }, { t: 2 }], "t").label, "t", "rows: the second argument is a column");
+});
+
+Deno.test("chain: .by() honours the chain's qq option and counts each group's missing and text cells", () => {
+  const g = plumb(table, "weight", { dropText: true, qq: { level: 0.9 } }).by("lot");
+  const r = g.result();
+  for (const row of r.groups) {
+    equal(row.analysis!.qq.level, 0.9, `${row.group}: QQ envelope level`);
+  }
+  equal(r.residuals!.qq.level, 0.9);
+  // Row 8 (NA) and row 12 (text) both have i odd, so both are in lot "east".
+  const west = r.groups.find((x) => x.group === "west")!;
+  const east = r.groups.find((x) => x.group === "east")!;
+  deepEqual([east.missingDropped, east.textDropped], [1, 1]);
+  deepEqual([west.missingDropped, west.textDropped], [0, 0]);
+  deepEqual([east.analysis!.origin.missingDropped, east.analysis!.origin.textDropped], [1, 1]);
+  equal(west.n + east.n, 38);
 });

@@ -146,7 +146,7 @@ export interface PageCheckOptions extends ExportOptions {
  * import { checkNotebookPage } from "./browser_check.ts";
  * import { missingBrowserTools } from "./requirements.ts";
  * if (missingBrowserTools() === undefined) {
- *   const notebook = new URL("../../notebooks/00_smoke.ipynb", import.meta.url).pathname;
+ *   const notebook = new URL("../../tests/fixtures/notebooks/smoke.ipynb", import.meta.url).pathname;
  *   const browser = await Browser.launch();
  *   try {
  *     const outDir = await Deno.makeTempDir();

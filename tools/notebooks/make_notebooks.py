@@ -60,15 +60,17 @@ NOTEBOOKS = {
          "ranking prefers the simplest re-expression whose departure (1 − W′) is within chance of the "
          "best one, and says why it chose it. Below the table: the chosen candidate's mean and interval "
          "mapped back to minutes, under the name of what it now estimates."),
-        ("code", "gaps.reexpress();"),
+        ("code", "gaps.candidates();"),
         ("md", "## The λ explorer\n\nBox–Cox λ sweeps the ladder of powers: λ = 1 leaves the data as they are, "
          "½ is a square root, 0 a log, −1 a reciprocal. The strip shows the profile log-likelihood with "
          "λ̂ and its 95% interval; where Vega runs, the slider redraws the QQ plot and W for each λ "
          "without a round trip to the kernel. The static picture shows λ̂."),
         ("code", "gaps.lambda();"),
-        ("md", "## Carry the chosen one forward\n\n`reexpress(\"best\")` returns a new chain on the "
-         "transformed values, labelled with the transformation everywhere it appears."),
-        ("code", 'const best = gaps.reexpress("best");\nbest;'),
+        ("md", "## Carry the chosen one forward\n\n`reexpress()` (the same as `reexpress(\"best\")`) returns "
+         "a new chain on the transformed values, labelled with the transformation everywhere it appears. "
+         "When no candidate beats the data as measured, the chain keeps them as they are and `.choice` "
+         "says so."),
+        ("code", 'const best = gaps.reexpress();\nbest;'),
         ("code", "best.sentence();"),
         ("md", "## When no re-expression can help\n\nDissolved oxygen has readings at 0: values below the "
          "detection limit. A log needs a shift (chosen by a stated rule and reported), and the pile-up at "

@@ -19,7 +19,7 @@ without a static `text/html` fallback containing an `<svg`.
 
 Usage:
   /usr/bin/python3 tools/notebooks/run_notebooks.py --check [NOTEBOOK_OR_DIR ...]
-  /usr/bin/python3 tools/notebooks/run_notebooks.py --write notebooks/00_smoke.ipynb
+  /usr/bin/python3 tools/notebooks/run_notebooks.py --write tests/fixtures/notebooks/smoke.ipynb
 
 Without paths it runs notebooks/*.ipynb under the repository root.
 """
