@@ -2,41 +2,77 @@
  * plumbline: can these measurements be treated as normally distributed, and
  * if not, which re-expression makes them so?
  *
+ * Load a table, screen every numeric column, look at one variable's card
+ * (the reading in words, QQ plot and histogram, every test), try
+ * re-expressions, and write the result up. Every object displays itself in a
+ * notebook; nothing is computed until it is shown or read.
+ *
  * @example
  * ```ts
- * import { shapiroWilk } from "./mod.ts";
- * const r = shapiroWilk([148, 154, 158, 160, 161, 162, 166, 170, 182, 195, 236]);
- * if (Math.abs(r.statistic - 0.7888146948353876) > 1e-12) throw new Error("W");
+ * import { loadTable, plumb, survey } from "@plumbline/plumbline";
+ *
+ * // Invented data: minutes between stoppages on one filler line.
+ * const table = await loadTable({
+ *   minutes: [3.1, 7.4, 1.2, 15.8, 4.4, 2.9, 22.5, 6.1, 0.8, 9.7, 3.6, 12.2, 5.0, 1.9, 30.4, 8.3],
+ * });
+ * survey(table); // one row per numeric column, sorted by departure
+ * const minutes = plumb(table, "minutes"); // its display is the card
+ * const best = minutes.reexpress(); // the simplest re-expression within chance of the best
+ * if (best.label !== "ln(minutes)") throw new Error(best.label);
+ * if (!best.sentence().text.startsWith("ln(minutes): n = 16.")) throw new Error("write-up");
  * ```
  *
  * @module
  */
+
+// Errors
 export { PlumbError, type PlumbErrorCode } from "./lib/errors.ts";
-export type { TestResult } from "./lib/stats/result.ts";
-export { normalCdf, normalPdf, normalQuantile, normalSf } from "./lib/numeric/normal.ts";
-export { type RandomStream, seededRandom } from "./lib/numeric/random.ts";
-export { shapiroWilk } from "./lib/stats/shapiro_wilk.ts";
-export { shapiroFrancia } from "./lib/stats/shapiro_francia.ts";
-export { type Moments, moments } from "./lib/stats/moments.ts";
-export { andersonDarling, type AndersonDarlingResult } from "./lib/stats/anderson_darling.ts";
-export { lilliefors, type LillieforsResult } from "./lib/stats/lilliefors.ts";
-export { dagostinoPearson, type DagostinoPearsonResult } from "./lib/stats/dagostino_pearson.ts";
-export { jarqueBera } from "./lib/stats/jarque_bera.ts";
-export {
-  type Adjustment,
-  adjustPValues,
-  benjaminiHochbergAdjust,
-  holmAdjust,
-} from "./lib/stats/multiplicity.ts";
-export { sortFloat64 } from "./lib/numeric/sort.ts";
+
+// Reading data
 export { loadTable, type LoadTableOptions, type TableSource } from "./lib/data/load_table.ts";
-export type { ColumnInfo, NumericColumn, Table, TextColumn } from "./lib/data/table.ts";
-export { Plumb, plumb, type PlumbOptions } from "./lib/plumb/plumb.ts";
+export type { CsvOptions } from "./lib/data/csv_text.ts";
+export type { MemoryOptions } from "./lib/data/in_memory.ts";
+export type { CellOptions, WordLimits } from "./lib/data/read_options.ts";
+export type {
+  Cells,
+  CensoredCells,
+  ColumnMap,
+  ColumnObject,
+  FrameColumnReader,
+  FrameLike,
+  FrameNames,
+  MemorySource,
+  RowObjects,
+} from "./lib/data/memory_source.ts";
+export type {
+  CellNote,
+  CensoredLimit,
+  ColumnInfo,
+  ColumnKind,
+  ColumnProvenance,
+  HeaderRename,
+  NumericCells,
+  NumericColumn,
+  NumericColumnOptions,
+  NumericProvenance,
+  Table,
+  TableSummary,
+  TextColumn,
+} from "./lib/data/table.ts";
+
+// The chain
+export { Plumb, plumb, type PlumbOptions, type ReexpressionChoice } from "./lib/plumb/plumb.ts";
+export type { PlumbSource } from "./lib/plumb/source.ts";
+export type { ReexpressRequest, Step } from "./lib/plumb/steps.ts";
 export type { Sentence, SentenceOptions } from "./lib/plumb/sentence.ts";
-export { Survey, survey } from "./lib/plumb/survey.ts";
-export type { SurveyOptions, SurveyResult, SurveyRow } from "./lib/plumb/survey_screen.ts";
+export type { TestsTable } from "./lib/plumb/tests_view.ts";
+export type { CandidatesView } from "./lib/plumb/reexpress_view.ts";
 export { PlumbGroups } from "./lib/plumb/groups.ts";
 export type { GroupOptions, GroupResult, GroupRow } from "./lib/plumb/group_screen.ts";
+export { Survey, survey } from "./lib/plumb/survey.ts";
+export type { SurveyOptions, SurveyResult, SurveyRow } from "./lib/plumb/survey_screen.ts";
+
+// Results as plain data, and how they display
 export type { Analysis, SampleOrigin, Subsample, TestOutcome } from "./lib/results/analysis.ts";
 export {
   type Reading,
@@ -44,18 +80,79 @@ export {
   type Verdict,
   VERDICT_WORDS,
 } from "./lib/results/reading.ts";
-export type { ReexpressRequest } from "./lib/plumb/steps.ts";
+export {
+  DISPLAY,
+  type Displayable,
+  type MimeBundle,
+  type ReadyDisplayable,
+} from "./lib/results/display.ts";
+export type { Chart, ChartMeta } from "./lib/render/chart_bundle.ts";
+export type { TopLevelSpec } from "./lib/_deps/vega_lite.ts";
+export type { TableCell, TableColumn, TableModel } from "./lib/render/table.ts";
+
+// The tests and their building blocks
+export type { TestResult } from "./lib/stats/result.ts";
+export { shapiroWilk } from "./lib/stats/shapiro_wilk.ts";
+export { shapiroFrancia } from "./lib/stats/shapiro_francia.ts";
+export { andersonDarling, type AndersonDarlingResult } from "./lib/stats/anderson_darling.ts";
+export { lilliefors, type LillieforsResult } from "./lib/stats/lilliefors.ts";
+export { dagostinoPearson, type DagostinoPearsonResult } from "./lib/stats/dagostino_pearson.ts";
+export { jarqueBera } from "./lib/stats/jarque_bera.ts";
+export { type Moments, moments } from "./lib/stats/moments.ts";
+export {
+  type Adjustment,
+  adjustPValues,
+  benjaminiHochbergAdjust,
+  holmAdjust,
+} from "./lib/stats/multiplicity.ts";
+export { type QqData, qqData, type QqOptions } from "./lib/stats/qq_data.ts";
+export {
+  type BinRule,
+  type HistogramData,
+  histogramData,
+  type HistogramOptions,
+} from "./lib/stats/histogram_data.ts";
+export { normalCdf, normalPdf, normalQuantile, normalSf } from "./lib/numeric/normal.ts";
+export { type RandomStream, randomSubsample, seededRandom } from "./lib/numeric/random.ts";
+
+// Re-expressions
+export {
+  applyReexpression,
+  invertReexpression,
+  type Reexpression,
+  reexpression,
+  type ReexpressionKind,
+} from "./lib/reexpress/reexpression.ts";
+export { boxCox, boxCoxInverse } from "./lib/reexpress/box_cox.ts";
+export { yeoJohnson, yeoJohnsonInverse } from "./lib/reexpress/yeo_johnson.ts";
+export {
+  logInverse,
+  type LogOptions,
+  type LogShift,
+  logShift,
+  logTransform,
+} from "./lib/reexpress/log.ts";
+export {
+  squareRoot,
+  squareRootInverse,
+  type SquareRootOptions,
+} from "./lib/reexpress/square_root.ts";
+export { reciprocal, reciprocalInverse } from "./lib/reexpress/reciprocal.ts";
 export { boxCoxFit } from "./lib/reexpress/box_cox_fit.ts";
 export { yeoJohnsonFit } from "./lib/reexpress/yeo_johnson_fit.ts";
 export type { LambdaFit, LambdaFitOptions } from "./lib/reexpress/lambda_fit.ts";
-export { boxCox, boxCoxInverse } from "./lib/reexpress/box_cox.ts";
-export { yeoJohnson, yeoJohnsonInverse } from "./lib/reexpress/yeo_johnson.ts";
-export { logInverse, logShift, logTransform } from "./lib/reexpress/log.ts";
-export { squareRoot, squareRootInverse } from "./lib/reexpress/square_root.ts";
-export { reciprocal, reciprocalInverse } from "./lib/reexpress/reciprocal.ts";
 export { searchReexpressions } from "./lib/reexpress/search.ts";
-export { backTransformMean } from "./lib/reexpress/back_transform.ts";
-export { qqData } from "./lib/stats/qq_data.ts";
+export type {
+  CandidateTest,
+  ReexpressionCandidate,
+  ReexpressionSearch,
+  SearchOptions,
+} from "./lib/reexpress/candidates.ts";
+export {
+  type BackTransformed,
+  backTransformMean,
+  type BackTransformOptions,
+} from "./lib/reexpress/back_transform.ts";
 export {
   type CensoredSample,
   censoredSample,
@@ -83,4 +180,3 @@ export {
 export { censoredReexpress } from "./lib/reexpress/censored_reexpress.ts";
 export { censoredBackTransformMean } from "./lib/reexpress/censored_back_transform.ts";
 export { normalHazard, normalLogCdf, normalLogSf } from "./lib/numeric/normal_log.ts";
-export { histogramData } from "./lib/stats/histogram_data.ts";

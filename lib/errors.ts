@@ -49,7 +49,7 @@ export type PlumbErrorCode =
  *
  * @example
  * ```ts
- * import { PlumbError } from "./errors.ts";
+ * import { PlumbError } from "@plumbline/plumbline";
  * const e = new PlumbError("too-few", "Cannot run the test on 2 values: at least 3 are needed");
  * if (!(e instanceof Error) || e.code !== "too-few") throw new Error("unexpected");
  * ```
@@ -61,6 +61,8 @@ export class PlumbError extends Error {
   readonly detail: Readonly<Record<string, unknown>> | undefined;
 
   /**
+   * Make the error.
+   *
    * @param code the kind of problem
    * @param message what was wrong and what to do, in a sentence without a trailing period
    * @param detail optional structured detail

@@ -3,5 +3,10 @@
  *
  * @module
  */
+// deno-lint-ignore no-import-prefix
+import type * as VegaLite from "npm:vega-lite@5.23.0";
 export { compile } from "npm:vega-lite@5.23.0";
-export type { Config, TopLevelSpec } from "npm:vega-lite@5.23.0";
+export type { Config } from "npm:vega-lite@5.23.0";
+
+/** A Vega-Lite 5 specification, as vega-lite's own `TopLevelSpec` type describes it. */
+export type TopLevelSpec = VegaLite.TopLevelSpec;

@@ -95,12 +95,7 @@ export function _buildTable(columns: readonly _RawColumn[], meta: _TableMeta): T
     decimal: meta.decimal,
   });
   const table: Table = Object.freeze({
-    source: meta.source,
-    rowCount: meta.rowCount,
-    columns: Object.freeze(infos),
-    renamed: meta.renamed,
-    delimiter: meta.delimiter,
-    decimal: meta.decimal,
+    ...summary,
     has: (name: string) => byName.has(name),
     info: (name: string) => infoByName.get(_rawColumn(table, name).name) as ColumnInfo,
     numericNames: () => infos.filter((c) => c.kind === "numeric").map((c) => c.name),

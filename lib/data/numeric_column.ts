@@ -42,7 +42,7 @@ import { limitWordSide } from "./censored_cell.ts";
  *
  * @example
  * ```ts
- * import { loadTable } from "./load_table.ts";
+ * import { loadTable } from "@plumbline/plumbline";
  * import { numericColumn } from "./numeric_column.ts";
  * const table = await loadTable("x\n1\nNA\n2.5\nn.d.\n<0.5\n");
  * const col = numericColumn(table, "x", { dropText: true });
@@ -158,7 +158,7 @@ export function _freezeColumn(
  *
  * @example
  * ```ts
- * import { loadTable } from "./load_table.ts";
+ * import { loadTable } from "@plumbline/plumbline";
  * import { numericCells } from "./numeric_column.ts";
  * const cells = numericCells(await loadTable([1, NaN, 3]), "value");
  * if (cells.missing.join() !== "0,1,0" || cells.values[2] !== 3) throw new Error("unexpected");

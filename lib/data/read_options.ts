@@ -7,6 +7,14 @@ import { PlumbError } from "../errors.ts";
 import { DEFAULT_MISSING, missingSet } from "./missing.ts";
 import type { _CellRules, _WordLimits } from "./_raw_column.ts";
 
+/** The limits a column's limit words stand for (a word for "below the limit", one for "above"). */
+export interface WordLimits {
+  /** The limit that "below the limit" words stand for. */
+  readonly below?: number;
+  /** The limit that "above the limit" words stand for. */
+  readonly above?: number;
+}
+
 /** How cells are read, for CSV text and in-memory data alike. */
 export interface CellOptions {
   /**
@@ -42,7 +50,7 @@ export interface CellOptions {
    * `{ detectionLimits: { crp_mg_l: 0.5, colonies: { above: 300 } } }`.
    * @default undefined (limit words are text)
    */
-  readonly detectionLimits?: Readonly<Record<string, number | _WordLimits>>;
+  readonly detectionLimits?: Readonly<Record<string, number | WordLimits>>;
 }
 
 /** Check cell options and turn them into the readers' rules. */

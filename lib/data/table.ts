@@ -219,8 +219,8 @@ export interface NumericColumnOptions {
   readonly dropText?: boolean;
 }
 
-/** A loaded table: frozen, with typed columns and per-column provenance. */
-export interface Table {
+/** The plain-data description of a table, as given by {@linkcode Table.toJSON}. */
+export interface TableSummary {
   /** The file name (without folders), `"text"` or `"memory"`. */
   readonly source: string;
   /** Number of data rows. */
@@ -233,6 +233,10 @@ export interface Table {
   readonly delimiter: string | null;
   /** The decimal mark used for text cells. */
   readonly decimal: "." | ",";
+}
+
+/** A loaded table: frozen, with typed columns and per-column provenance. */
+export interface Table extends TableSummary {
   /** Whether the table has a column of this name. */
   has(name: string): boolean;
   /** The column's name, kind and provenance; throws `"unknown-column"` when absent. */
@@ -249,14 +253,4 @@ export interface Table {
   text(name: string): TextColumn;
   /** The table's description (source, rows, columns with provenance) as plain data. */
   toJSON(): TableSummary;
-}
-
-/** The plain-data description of a table, as given by {@linkcode Table.toJSON}. */
-export interface TableSummary {
-  readonly source: string;
-  readonly rowCount: number;
-  readonly columns: readonly ColumnInfo[];
-  readonly renamed: readonly HeaderRename[];
-  readonly delimiter: string | null;
-  readonly decimal: "." | ",";
 }

@@ -9,7 +9,7 @@
 import type { ColumnProvenance, TableSummary } from "./table.ts";
 import type { MimeBundle } from "../results/display.ts";
 import { plainText } from "../render/escape.ts";
-import { formatCount } from "../render/format.ts";
+import { formatCount } from "../results/format.ts";
 import { tableHtml, tableMarkdown, type TableModel, tableText } from "../render/table.ts";
 
 /** The table model of a loaded table's columns. */

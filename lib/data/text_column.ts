@@ -23,7 +23,7 @@ import { _rawColumn } from "./_table_store.ts";
  *
  * @example
  * ```ts
- * import { loadTable } from "./load_table.ts";
+ * import { loadTable } from "@plumbline/plumbline";
  * import { textColumn } from "./text_column.ts";
  * const table = await loadTable([{ line: "A", v: 1 }, { line: null, v: 2 }]);
  * const groups = textColumn(table, "line");

@@ -35,7 +35,7 @@ function _mix32(z: number): number {
  *
  * @example
  * ```ts
- * import { seededRandom } from "./random.ts";
+ * import { seededRandom } from "@plumbline/plumbline";
  * const a = seededRandom(7), b = seededRandom(7);
  * if (a.normal() !== b.normal()) throw new Error("not reproducible");
  * ```
@@ -89,7 +89,7 @@ function _rotl(x: number, k: number): number {
  * @param seed the seed
  * @example
  * ```ts
- * import { randomSubsample } from "./random.ts";
+ * import { randomSubsample } from "@plumbline/plumbline";
  * const x = Float64Array.from({ length: 100 }, (_, i) => i);
  * const a = randomSubsample(x, 10, 3);
  * if (a.join() !== randomSubsample(x, 10, 3).join() || new Set(a).size !== 10) throw new Error("draw");

@@ -17,7 +17,7 @@ import { PlumbError } from "../errors.ts";
  *
  * @example
  * ```ts
- * import { loadTable } from "../../mod.ts";
+ * import { loadTable } from "@plumbline/plumbline";
  * import { refuseCensored } from "./_censored_guard.ts";
  * const table = await loadTable({ crp: [1.2, "<0.5", 3.4, 2.2] });
  * let code = "";

@@ -7,7 +7,7 @@
  */
 import type { MimeBundle } from "../results/display.ts";
 import { plainText } from "../render/escape.ts";
-import { formatNumber, formatP } from "../render/format.ts";
+import { formatNumber, formatP } from "../results/format.ts";
 import {
   type TableColumn,
   tableHtml,

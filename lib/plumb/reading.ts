@@ -18,6 +18,9 @@
  *   uniform distribution (Pfister et al. 2013, "Good things peak in pairs",
  *   Frontiers in Psychology 4:700), together with negative G2 so that a
  *   merely skewed sample is not flagged (common practice);
+ * - a pile-up at an end: at least 3 values, and at least 2% of them, equal
+ *   to the minimum (or the maximum) read as a floor (or ceiling) such as a
+ *   detection limit (common practice);
  * - sample size: below 20 values the tests have little power, 20–49 modest
  *   power; above 2000 they flag departures too small to matter (common
  *   practice);
@@ -41,7 +44,7 @@ import type { DagostinoPearsonResult } from "../stats/dagostino_pearson.ts";
 import type { Moments } from "../stats/moments.ts";
 import type { QqData } from "../stats/qq_data.ts";
 import type { TestResult } from "../stats/result.ts";
-import { formatNumber } from "../render/format.ts";
+import { formatNumber } from "../results/format.ts";
 import type { Subsample } from "../results/analysis.ts";
 import type { Reading, ReadingFacts, Verdict } from "../results/reading.ts";
 
@@ -101,9 +104,9 @@ function _ties(sorted: Float64Array): { distinct: number; resolution: number } {
  * @example
  * ```ts
  * import { readShape } from "./reading.ts";
- * import { moments } from "../stats/moments.ts";
- * import { qqData } from "../stats/qq_data.ts";
- * import { shapiroWilk } from "../stats/shapiro_wilk.ts";
+ * import { moments } from "@plumbline/plumbline";
+ * import { qqData } from "@plumbline/plumbline";
+ * import { shapiroWilk } from "@plumbline/plumbline";
  * const x = Array.from({ length: 200 }, (_, i) => Math.exp((i - 100) / 40));
  * const r = readShape({ n: 200, moments: moments(x), primary: shapiroWilk(x), qq: qqData(x), values: x });
  * if (r.facts.skew !== "right" || r.verdict !== "clear-departure") throw new Error(r.headline);

@@ -61,8 +61,8 @@ export interface ReadingEvidence {
  * @example
  * ```ts
  * import { gatherEvidence } from "./reading_evidence.ts";
- * import { moments } from "../stats/moments.ts";
- * import { shapiroWilk } from "../stats/shapiro_wilk.ts";
+ * import { moments } from "@plumbline/plumbline";
+ * import { shapiroWilk } from "@plumbline/plumbline";
  * const x = [1, 2, 3, 4, 5, 6];
  * const e = gatherEvidence(Float64Array.from(x), { moments: moments(x), primary: shapiroWilk(x) });
  * if (e.grounds.verdict !== "no-clear-departure" || e.step !== 1) throw new Error(e.grounds.verdict);

@@ -55,7 +55,7 @@ export const READING_RULES = Object.freeze({
   /** Below this many values the tests have little power; below the second, modest power. */
   littlePower: 20,
   modestPower: 50,
-  /** Values at one end that make a pile-up: at least this many and this share. */
+  /** Values at one end that make a pile-up: at least this many and this share (common practice). */
   pileUpCount: 3,
   pileUpShare: 0.02,
   /** Sarle's bimodality coefficient above this (the uniform's 5/9) hints at two peaks. */

@@ -7,7 +7,7 @@
 import type { Table } from "../data/table.ts";
 import { PlumbError } from "../errors.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
-import { formatCount, formatP } from "../render/format.ts";
+import { formatCount, formatP } from "../results/format.ts";
 import { qqSparkline } from "../render/sparkline.ts";
 import { tableMarkdown, type TableModel } from "../render/table.ts";
 import { ADJUSTMENT_NAMES, checkAdjustment } from "../stats/multiplicity.ts";
@@ -30,7 +30,7 @@ import { type PlumbSource, toTable } from "./source.ts";
  *
  * @example
  * ```ts
- * import { survey } from "./survey.ts";
+ * import { survey } from "@plumbline/plumbline";
  * const s = survey({ a: [1, 2, 3, 4, 5, 6, 7, 8], b: [1, 1, 2, 3, 5, 8, 13, 21] });
  * if (!s.toCSV().startsWith("column,n,missing")) throw new Error("csv");
  * ```
@@ -172,7 +172,7 @@ export class Survey implements Displayable {
  *
  * @example
  * ```ts
- * import { survey } from "./survey.ts";
+ * import { survey } from "@plumbline/plumbline";
  * const s = survey({ a: [1, 2, 3, 4, 5, 6, 7, 8, 9, 10], b: [1, 1, 2, 3, 5, 8, 13, 21, 34, 55] });
  * if (s.result().rows.length !== 2) throw new Error("rows");
  * ```

@@ -35,10 +35,15 @@ export interface SurveyOptions {
 
 /** One column's row. */
 export interface SurveyRow {
+  /** The column's name. */
   readonly column: string;
+  /** Its missing cells, left out. */
   readonly missing: number;
+  /** Its text cells, left out on request. */
   readonly textDropped: number;
+  /** The analysis, when the column was screened. */
   readonly analysis?: Analysis;
+  /** The primary test's p-value adjusted across the columns screened. */
   readonly adjustedP?: number;
   /** The suggested re-expression's formula, or `"none"`. */
   readonly suggestion?: string;
@@ -48,8 +53,11 @@ export interface SurveyRow {
 
 /** The survey as plain data. */
 export interface SurveyResult {
+  /** The table's source (file name, `"text"` or `"memory"`). */
   readonly source: string;
+  /** How p-values were adjusted across the columns. */
   readonly adjust: Adjustment;
+  /** One row per column: clear departures first, then by W; columns not screened last. */
   readonly rows: readonly SurveyRow[];
   /** Text columns, not screened (they can group: `.by(column)`). */
   readonly textColumns: readonly string[];

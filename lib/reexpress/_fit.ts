@@ -5,6 +5,7 @@
  * @module
  */
 import { PlumbError } from "../errors.ts";
+import { formatCompact } from "../results/format.ts";
 import { normalQuantile } from "../numeric/normal.ts";
 import { minimizeInInterval } from "../numeric/optimize.ts";
 import { findRoot } from "../numeric/roots.ts";
@@ -27,7 +28,7 @@ export function _fitOptions(
   if (typeof level !== "number" || !(level > 0 && level < 1)) {
     throw new PlumbError(
       "bad-option",
-      `Cannot fit ${what} at level ${level}: the level must lie strictly between 0 and 1, e.g. 0.95`,
+      `Cannot run ${what} at level ${level}: the level must lie strictly between 0 and 1, e.g. 0.95`,
       { level },
     );
   }
@@ -36,7 +37,7 @@ export function _fitOptions(
   if (!(Number.isFinite(lo) && Number.isFinite(hi) && lo < hi)) {
     throw new PlumbError(
       "bad-option",
-      `Cannot fit ${what} over the range [${lo}, ${hi}]: give two finite numbers, lower first`,
+      `Cannot run ${what} over the range [${lo}, ${hi}]: give two finite numbers, lower first`,
       { range },
     );
   }
@@ -92,7 +93,9 @@ export function _gridMinimum(
 
 /** The note for a maximum at an end of the searched range. */
 export function _atEndNote(lambda: number): string {
-  return `The likelihood is largest at the end of the searched range (λ = ${lambda}); ` +
+  return `The likelihood is largest at the end of the searched range (λ = ${
+    formatCompact(lambda)
+  }); ` +
     `the maximum may lie beyond it: a few values probably dominate the fit, so look at them ` +
     `before widening the range`;
 }
@@ -110,9 +113,9 @@ export function _openEndNotes(
     if (v === null) {
       notes.push(
         `The ${pct} interval has no ${side} end within the searched range: the likelihood ` +
-          `stays above the cut-off ${
-            side === "lower" ? "down" : "up"
-          } to λ = ${edge}, so the data cannot rule out ` +
+          `stays above the cut-off ${side === "lower" ? "down" : "up"} to λ = ${
+            formatCompact(edge)
+          }, so the data cannot rule out ` +
           `${side === "lower" ? "smaller" : "larger"} powers`,
       );
     }
@@ -214,8 +217,12 @@ export function _fitLambda(
     const flat = Number.isFinite(far) && (far - hHat) * n <= cut;
     notes.push(
       flat
-        ? `The likelihood is largest at the end of the searched range (λ = ${lambda}), but it is ` +
-          `nearly flat across the whole range: every power from ${lo} to ${hi} fits almost equally ` +
+        ? `The likelihood is largest at the end of the searched range (λ = ${
+          formatCompact(lambda)
+        }), but it is ` +
+          `nearly flat across the whole range: every power from ${formatCompact(lo)} to ${
+            formatCompact(hi)
+          } fits almost equally ` +
           `well, because the values vary little relative to their own size, so any power bends them ` +
           `alike. λ is not determined by these data, and no re-expression changes their shape much`
         : _atEndNote(lambda),

@@ -6,6 +6,7 @@
  */
 import jStat from "../_deps/jstat.ts";
 import { PlumbError } from "../errors.ts";
+import { formatCompact } from "../results/format.ts";
 import { checkSize, finiteCopy } from "../stats/_input.ts";
 import { _meanSd } from "../stats/moments.ts";
 import { applyReexpression, invertReexpression, type Reexpression } from "./reexpression.ts";
@@ -54,9 +55,7 @@ export interface BackTransformed {
   readonly cautions: readonly string[];
 }
 
-function _g(v: number): string {
-  return String(+v.toPrecision(4));
-}
+const _g = (v: number): string => formatCompact(v, 4);
 
 /**
  * The mean and its t interval on the re-expressed scale, mapped back.
@@ -81,8 +80,8 @@ function _g(v: number): string {
  * @param options the confidence level
  * @example
  * ```ts
- * import { backTransformMean } from "./back_transform.ts";
- * import { reexpression } from "./reexpression.ts";
+ * import { backTransformMean } from "@plumbline/plumbline";
+ * import { reexpression } from "@plumbline/plumbline";
  * const b = backTransformMean([1, 10, 100], reexpression("log", { base: 10 }));
  * if (Math.abs(b.estimate - 10) > 1e-12 || b.estimateName !== "geometric mean") {
  *   throw new Error("unexpected");

@@ -19,7 +19,7 @@ import { _inversePowerTerm, _powerTerm, _requireLambda, _requirePositive } from 
  * @param lambda the power λ, finite
  * @example
  * ```ts
- * import { boxCox } from "./box_cox.ts";
+ * import { boxCox } from "@plumbline/plumbline";
  * const y = boxCox([1, 4, 9], 0.5);
  * if (Math.abs(y[2] - 4) > 1e-15) throw new Error("unexpected");
  * ```
@@ -44,7 +44,7 @@ export function boxCox(x: ArrayLike<number>, lambda: number): Float64Array {
  * @param lambda the power λ used in {@linkcode boxCox}
  * @example
  * ```ts
- * import { boxCoxInverse } from "./box_cox.ts";
+ * import { boxCoxInverse } from "@plumbline/plumbline";
  * const x = boxCoxInverse([4], 0.5);
  * if (Math.abs(x[0] - 9) > 1e-13) throw new Error("unexpected");
  * ```

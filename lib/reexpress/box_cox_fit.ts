@@ -37,7 +37,7 @@ import { _lambdaSample } from "./_sample.ts";
  * @param options interval level and λ range
  * @example
  * ```ts
- * import { boxCoxFit } from "./box_cox_fit.ts";
+ * import { boxCoxFit } from "@plumbline/plumbline";
  * const fit = boxCoxFit([1.2, 2.9, 0.8, 5.1, 1.7, 3.3, 0.6, 9.4, 2.2, 1.4]);
  * if (!(fit.ci[0]! < fit.lambda && fit.lambda < fit.ci[1]!)) throw new Error("unexpected");
  * ```

@@ -5,6 +5,7 @@
  *
  * @module
  */
+import { formatNumber } from "../results/format.ts";
 import type { TestResult } from "../stats/result.ts";
 import type { LambdaFit } from "./lambda_fit.ts";
 import type { Reexpression } from "./reexpression.ts";
@@ -92,7 +93,9 @@ export const RANKING_RULE =
 
 /** A departure or λ for the words of a reason: 3 significant digits, exponent form below 1e-3. */
 export function _fmt(v: number): string {
-  return v < 1e-3 ? v.toExponential(2) : v.toPrecision(3);
+  return Math.abs(v) < 1e-3 && v !== 0
+    ? v.toExponential(2).replace("e-", "e−").replace(/^-/, "−")
+    : formatNumber(v, 3);
 }
 
 /** Why the chosen candidate was chosen, in words. */

@@ -23,7 +23,7 @@ export const LADDER_POWERS: readonly number[] = Object.freeze([-2, -1, -0.5, 0, 
  * @example
  * ```ts
  * import { nearestLadderPower } from "./ladder.ts";
- * import { boxCoxFit } from "./box_cox_fit.ts";
+ * import { boxCoxFit } from "@plumbline/plumbline";
  * const p = nearestLadderPower(boxCoxFit([1.2, 2.9, 0.8, 5.1, 1.7, 3.3, 0.6, 9.4, 2.2, 1.4]));
  * if (p !== 0) throw new Error(`expected the log, got ${p}`);
  * ```

@@ -42,7 +42,7 @@ function _shiftOf(options: LogOptions, what: string): number {
  * @param options base and shift
  * @example
  * ```ts
- * import { logTransform } from "./log.ts";
+ * import { logTransform } from "@plumbline/plumbline";
  * const y = logTransform([1, 10, 100], { base: 10 });
  * if (y[2] !== 2) throw new Error("unexpected");
  * ```
@@ -65,7 +65,7 @@ export function logTransform(x: ArrayLike<number>, options: LogOptions = {}): Fl
  * @param options the base and shift used in the forward transform
  * @example
  * ```ts
- * import { logInverse, logTransform } from "./log.ts";
+ * import { logInverse, logTransform } from "@plumbline/plumbline";
  * const back = logInverse(logTransform([0, 3], { shift: 0.5 }), { shift: 0.5 });
  * if (Math.abs(back[0]) > 1e-15 || Math.abs(back[1] - 3) > 1e-15) throw new Error("unexpected");
  * ```
@@ -102,7 +102,7 @@ export interface LogShift {
  * @param x finite values, not all equal
  * @example
  * ```ts
- * import { logShift } from "./log.ts";
+ * import { logShift } from "@plumbline/plumbline";
  * const s = logShift([0, 0, 0.4, 2, 7]);
  * if (s.shift !== 0.2) throw new Error("unexpected");
  * ```

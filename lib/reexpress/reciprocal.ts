@@ -15,7 +15,7 @@ import { _requireNonZero } from "./_checks.ts";
  * @param x finite, non-zero values; a zero throws `PlumbError("zero")`
  * @example
  * ```ts
- * import { reciprocal } from "./reciprocal.ts";
+ * import { reciprocal } from "@plumbline/plumbline";
  * const y = reciprocal([2, 4]);
  * if (y[0] !== 0.5 || y[1] !== 0.25) throw new Error("unexpected");
  * ```
@@ -34,7 +34,7 @@ export function reciprocal(x: ArrayLike<number>): Float64Array {
  * @param y values on the reciprocal scale, non-zero
  * @example
  * ```ts
- * import { reciprocalInverse } from "./reciprocal.ts";
+ * import { reciprocalInverse } from "@plumbline/plumbline";
  * if (reciprocalInverse([0.25])[0] !== 4) throw new Error("unexpected");
  * ```
  */

@@ -4,6 +4,7 @@
  * @module
  */
 import { PlumbError } from "../errors.ts";
+import { formatCompact } from "../results/format.ts";
 import { boxCox, boxCoxInverse } from "./box_cox.ts";
 import { logInverse, logTransform } from "./log.ts";
 import { reciprocal, reciprocalInverse } from "./reciprocal.ts";
@@ -33,9 +34,7 @@ export interface Reexpression {
   readonly label: string;
 }
 
-function _num(v: number): string {
-  return String(+v.toPrecision(4));
-}
+const _num = (v: number): string => formatCompact(v, 4);
 
 /**
  * Build a {@linkcode Reexpression}, checking its parameters.
@@ -44,7 +43,7 @@ function _num(v: number): string {
  * @param options λ (required for the power families), shift and base
  * @example
  * ```ts
- * import { reexpression } from "./reexpression.ts";
+ * import { reexpression } from "@plumbline/plumbline";
  * const r = reexpression("log", { shift: 0.5, base: 10 });
  * if (r.label !== "log10(x + 0.5)") throw new Error(r.label);
  * ```
@@ -103,7 +102,7 @@ export function reexpression(
  * @param r the re-expression
  * @example
  * ```ts
- * import { applyReexpression, reexpression } from "./reexpression.ts";
+ * import { applyReexpression, reexpression } from "@plumbline/plumbline";
  * const y = applyReexpression([1, 100], reexpression("log", { base: 10 }));
  * if (y[1] !== 2) throw new Error("unexpected");
  * ```
@@ -133,7 +132,7 @@ export function applyReexpression(x: ArrayLike<number>, r: Reexpression): Float6
  * @param r the re-expression
  * @example
  * ```ts
- * import { invertReexpression, reexpression } from "./reexpression.ts";
+ * import { invertReexpression, reexpression } from "@plumbline/plumbline";
  * const x = invertReexpression([2], reexpression("box-cox", { lambda: 0.5 }));
  * if (Math.abs(x[0] - 4) > 1e-14) throw new Error("unexpected");
  * ```

@@ -67,7 +67,7 @@ interface _Draft {
  * @param options λ interval level, λ range and log base
  * @example
  * ```ts
- * import { searchReexpressions } from "./search.ts";
+ * import { searchReexpressions } from "@plumbline/plumbline";
  * const x = [1.1, 1.9, 2.3, 2.8, 3.9, 4.4, 5.6, 7.7, 9.8, 14.1, 19.5, 31.2];
  * const s = searchReexpressions(x);
  * if (s.chosen.reexpression.kind === "identity") throw new Error("skewed data kept as is");

@@ -22,7 +22,7 @@ export interface SquareRootOptions {
  * @param options the shift
  * @example
  * ```ts
- * import { squareRoot } from "./square_root.ts";
+ * import { squareRoot } from "@plumbline/plumbline";
  * const y = squareRoot([0, 4, 9]);
  * if (y[0] !== 0 || y[1] !== 2 || y[2] !== 3) throw new Error("unexpected");
  * ```
@@ -45,7 +45,7 @@ export function squareRoot(x: ArrayLike<number>, options: SquareRootOptions = {}
  * @param options the shift used in the forward transform
  * @example
  * ```ts
- * import { squareRootInverse } from "./square_root.ts";
+ * import { squareRootInverse } from "@plumbline/plumbline";
  * const x = squareRootInverse([3], { shift: 1 });
  * if (x[0] !== 8) throw new Error("unexpected");
  * ```

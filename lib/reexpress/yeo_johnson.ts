@@ -20,7 +20,7 @@ import { _inversePowerTerm, _powerTerm, _requireLambda } from "./_checks.ts";
  * @param lambda the power λ, finite
  * @example
  * ```ts
- * import { yeoJohnson } from "./yeo_johnson.ts";
+ * import { yeoJohnson } from "@plumbline/plumbline";
  * const y = yeoJohnson([-3, 0, 3], 1);
  * if (y[0] !== -3 || y[1] !== 0 || Math.abs(y[2] - 3) > 1e-15) throw new Error("unexpected");
  * ```
@@ -48,7 +48,7 @@ export function yeoJohnson(x: ArrayLike<number>, lambda: number): Float64Array {
  * @param lambda the power λ used in {@linkcode yeoJohnson}
  * @example
  * ```ts
- * import { yeoJohnson, yeoJohnsonInverse } from "./yeo_johnson.ts";
+ * import { yeoJohnson, yeoJohnsonInverse } from "@plumbline/plumbline";
  * const back = yeoJohnsonInverse(yeoJohnson([-2, 0.5], 0.3), 0.3);
  * if (Math.abs(back[0] + 2) > 1e-14 || Math.abs(back[1] - 0.5) > 1e-15) throw new Error("unexpected");
  * ```

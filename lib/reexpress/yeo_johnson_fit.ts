@@ -26,7 +26,7 @@ import { _lambdaSample } from "./_sample.ts";
  * @param options interval level and λ range
  * @example
  * ```ts
- * import { yeoJohnsonFit } from "./yeo_johnson_fit.ts";
+ * import { yeoJohnsonFit } from "@plumbline/plumbline";
  * const fit = yeoJohnsonFit([0, 0, 0.4, 1.1, 0.2, 3.5, 0.9, 7.8, 0, 1.6]);
  * if (!(fit.lambda < 1)) throw new Error("right-skewed data should get λ < 1");
  * ```

@@ -5,7 +5,7 @@
  * @module
  */
 import type { TestOutcome } from "../results/analysis.ts";
-import { formatNumber, formatP } from "./format.ts";
+import { formatNumber, formatP } from "../results/format.ts";
 import type { TableModel } from "./table.ts";
 
 /** The p column: a bound where the published approximation only gives one. */

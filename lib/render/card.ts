@@ -10,7 +10,7 @@ import { type Verdict, VERDICT_WORDS } from "../results/reading.ts";
 import { testsTable } from "./analysis_tables.ts";
 import type { MimeBundle } from "../results/display.ts";
 import { escapeHtml, escapeMarkdown, plainText } from "./escape.ts";
-import { formatCentre, formatCount, formatNumber } from "./format.ts";
+import { formatCentre, formatCount, formatNumber } from "../results/format.ts";
 import { tableHtml, tableMarkdown, tableText } from "./table.ts";
 
 /** Accent colour per verdict (Okabe–Ito); the verdict is always also written out. */

@@ -8,7 +8,7 @@
 import type { TopLevelSpec } from "../_deps/vega_lite.ts";
 import { PlumbError } from "../errors.ts";
 import type { QqData } from "../stats/qq_data.ts";
-import { formatCount, formatNumber, formatPClause } from "./format.ts";
+import { formatCount, formatNumber, formatPClause } from "../results/format.ts";
 import { _qqPanel, VEGALITE_SCHEMA } from "./qq_spec.ts";
 import { CHART_CONFIG, PANEL } from "./theme.ts";
 
@@ -76,7 +76,7 @@ export function _gridCheck(count: number, what: string): void {
  * @param options name, layout, statistic symbol, points per panel
  * @example
  * ```ts
- * import { qqData } from "../stats/qq_data.ts";
+ * import { qqData } from "@plumbline/plumbline";
  * import { comparisonSpec } from "./comparison_spec.ts";
  * const x = [1.2, 1.9, 2.4, 3.1, 4.8, 7.5, 12.0];
  * const spec = comparisonSpec([

@@ -7,7 +7,7 @@
 import type { TopLevelSpec } from "../_deps/vega_lite.ts";
 import type { QqData } from "../stats/qq_data.ts";
 import { _defaultPerPanel, _gridCheck } from "./comparison_spec.ts";
-import { formatCentre, formatCount, formatNumber } from "./format.ts";
+import { formatCentre, formatCount, formatNumber } from "../results/format.ts";
 import { _qqPanel, VEGALITE_SCHEMA } from "./qq_spec.ts";
 import { CHART_CONFIG, PANEL } from "./theme.ts";
 
@@ -50,7 +50,7 @@ export interface GroupSpecOptions {
  * @param options names, layout, points per panel
  * @example
  * ```ts
- * import { qqData } from "../stats/qq_data.ts";
+ * import { qqData } from "@plumbline/plumbline";
  * import { groupSpec } from "./group_spec.ts";
  * const spec = groupSpec([
  *   { group: "line A", qq: qqData([500.2, 499.8, 500.5, 500.1, 499.6]) },

@@ -10,7 +10,7 @@
  */
 import type { TopLevelSpec } from "../_deps/vega_lite.ts";
 import type { HistogramData } from "../stats/histogram_data.ts";
-import { formatCentre, formatCount, formatNumber, roundSig } from "./format.ts";
+import { formatCentre, formatCount, formatNumber, roundSig } from "../results/format.ts";
 import { VEGALITE_SCHEMA } from "./qq_spec.ts";
 import { CHART_CONFIG, PALETTE, PANEL } from "./theme.ts";
 
@@ -55,7 +55,7 @@ export function _histogramDescription(h: HistogramData, name: string): string {
  * @param options name and size
  * @example
  * ```ts
- * import { histogramData } from "../stats/histogram_data.ts";
+ * import { histogramData } from "@plumbline/plumbline";
  * import { histogramSpec } from "./histogram_spec.ts";
  * const spec = histogramSpec(histogramData([3, 4, 4, 5, 5, 5, 6, 6, 7]), { name: "torque" });
  * if (!JSON.stringify(spec).includes("torque")) throw new Error("title");

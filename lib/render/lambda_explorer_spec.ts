@@ -19,7 +19,7 @@
 import type { TopLevelSpec } from "../_deps/vega_lite.ts";
 import { PlumbError } from "../errors.ts";
 import type { QqData } from "../stats/qq_data.ts";
-import { formatCount, formatNumber, formatPClause, roundSig } from "./format.ts";
+import { formatCount, formatNumber, formatPClause, roundSig } from "../results/format.ts";
 import { _pickIndices, VEGALITE_SCHEMA } from "./qq_spec.ts";
 import { CHART_CONFIG, PALETTE, PANEL } from "./theme.ts";
 
@@ -117,7 +117,7 @@ function _evenStep(l: readonly number[]): number | undefined {
  * @param options name, point budget, statistic symbol
  * @example
  * ```ts
- * import { qqData } from "../stats/qq_data.ts";
+ * import { qqData } from "@plumbline/plumbline";
  * import { lambdaExplorerSpec } from "./lambda_explorer_spec.ts";
  * const x = [1.1, 1.6, 2.0, 2.7, 3.9, 5.2, 8.8, 13.5];
  * const lambdas = [-1, 0, 1];
@@ -184,6 +184,12 @@ export function lambdaExplorerSpec(
     title: "λ",
     scale: { zero: false, nice: false },
   };
+  const profileY = {
+    field: "ll",
+    type: "quantitative",
+    title: "log-likelihood",
+    scale: { zero: false },
+  } as const;
   const profile = lam.map((l, k) => ({ lam: roundSig(l, 10), ll: roundSig(input.logLik[k], 10) }));
   const selOnProfile = step === undefined
     ? `datum.k === sel`
@@ -259,12 +265,7 @@ export function lambdaExplorerSpec(
             },
             encoding: {
               x: profileX,
-              y: {
-                field: "ll",
-                type: "quantitative",
-                title: "log-likelihood",
-                scale: { zero: false },
-              },
+              y: profileY,
             },
           },
           {
@@ -285,12 +286,7 @@ export function lambdaExplorerSpec(
             },
             encoding: {
               x: profileX,
-              y: {
-                field: "ll",
-                type: "quantitative",
-                title: "log-likelihood",
-                scale: { zero: false },
-              },
+              y: profileY,
               tooltip: [
                 { field: "lam", type: "quantitative", title: "λ", format: ".4~g" },
                 { field: "ll", type: "quantitative", title: "log-likelihood", format: ".6~g" },

@@ -14,7 +14,7 @@
 import type { TopLevelSpec } from "../_deps/vega_lite.ts";
 import { thinRanks } from "../numeric/thin_ranks.ts";
 import type { QqData } from "../stats/qq_data.ts";
-import { formatCentre, formatCount, formatNumber, roundSig } from "./format.ts";
+import { formatCentre, formatCount, formatNumber, roundSig } from "../results/format.ts";
 import { CHART_CONFIG, PALETTE, PANEL } from "./theme.ts";
 
 /** Vega-Lite 5 schema URL. */
@@ -200,7 +200,7 @@ function _spec(q: QqData, options: QqSpecOptions, detrended: boolean): TopLevelS
  * @param options name and size
  * @example
  * ```ts
- * import { qqData } from "../stats/qq_data.ts";
+ * import { qqData } from "@plumbline/plumbline";
  * import { qqSpec } from "./qq_spec.ts";
  * const spec = qqSpec(qqData([5.1, 4.9, 5.3, 5.0, 5.2, 4.7]), { name: "fill (mL)" });
  * if (!JSON.stringify(spec).includes("fill (mL)")) throw new Error("title");
@@ -219,7 +219,7 @@ export function qqSpec(q: QqData, options: QqSpecOptions = {}): TopLevelSpec {
  * @param options name and size
  * @example
  * ```ts
- * import { qqData } from "../stats/qq_data.ts";
+ * import { qqData } from "@plumbline/plumbline";
  * import { detrendedSpec } from "./qq_spec.ts";
  * const spec = detrendedSpec(qqData([5.1, 4.9, 5.3, 5.0, 5.2, 4.7]));
  * if (!JSON.stringify(spec).includes("detrended")) throw new Error("detrended");

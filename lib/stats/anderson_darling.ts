@@ -5,6 +5,7 @@
  * @module
  */
 import { normalSf } from "../numeric/normal.ts";
+import { formatNumber } from "../results/format.ts";
 import { checkSize, sortedSample, tiesWarning } from "./_input.ts";
 import { _sampleShape, type _Shape, _zScore } from "./moments.ts";
 import { freezeResult, type TestResult } from "./result.ts";
@@ -96,7 +97,7 @@ function _pValue(a: number): { p: number; bound: "none" | "at-most" } {
  *
  * @example
  * ```ts
- * import { andersonDarling } from "./anderson_darling.ts";
+ * import { andersonDarling } from "@plumbline/plumbline";
  * const r = andersonDarling([4.2, 3.9, 5.1, 4.8, 4.4, 3.6, 5.0, 4.1, 4.6, 4.3]);
  * if (!(r.statistic > 0 && r.modified > r.statistic)) throw new Error("A² and A²*");
  * if (!(r.pValue > 0.1)) throw new Error("these look normal");
@@ -145,8 +146,8 @@ export function _andersonDarlingSorted(s: Float64Array, shape: _Shape): Anderson
   if (ties !== undefined) warnings.push(ties);
   if (bound === "at-most") {
     warnings.push(
-      `A²* = ${modified.toPrecision(4)} is far beyond the range of the p-value formula: ` +
-        `p is only known to be below ${p.toPrecision(2)}`,
+      `A²* = ${formatNumber(modified, 4)} is far beyond the range of the p-value formula: ` +
+        `p is only known to be below ${formatNumber(p, 2)}`,
     );
   }
   return freezeResult({

@@ -99,7 +99,7 @@ export function clusterGapCritical(n: number): number {
  * @example
  * ```ts
  * import { separateCluster } from "./clusters.ts";
- * import { seededRandom } from "../numeric/random.ts";
+ * import { seededRandom } from "@plumbline/plumbline";
  * const rng = seededRandom(4);
  * const x = Array.from({ length: 500 }, (_, i) => (i < 15 ? 9 + rng.normal() * 0.3 : 5 + rng.normal() * 0.6));
  * const c = separateCluster(x);

@@ -5,6 +5,7 @@
  * @module
  */
 import { normalSf } from "../numeric/normal.ts";
+import { formatNumber } from "../results/format.ts";
 import { checkSize, finiteCopy } from "./_input.ts";
 import { _sampleShape, type _Shape } from "./moments.ts";
 import { freezeResult, type TestResult } from "./result.ts";
@@ -99,7 +100,7 @@ function _kurtosisZ(g2: number, n: number): { z: number; outside: boolean } {
  *
  * @example
  * ```ts
- * import { dagostinoPearson } from "./dagostino_pearson.ts";
+ * import { dagostinoPearson } from "@plumbline/plumbline";
  * const r = dagostinoPearson([2.1, 3.4, 1.9, 5.6, 4.4, 3.8, 2.9, 4.1, 3.3, 3.0, 6.2, 2.5]);
  * const sum = r.skewnessZ ** 2 + r.kurtosisZ ** 2;
  * if (Math.abs(r.statistic - sum) > 1e-12) throw new Error("K² = Zs² + Zk²");
@@ -131,7 +132,7 @@ export function _dagostinoPearsonOf(n: number, shape: _Shape): DagostinoPearsonR
   }
   if (outside) {
     warnings.push(
-      `The tails are far lighter than normal (excess kurtosis ${g2.toPrecision(3)}), beyond ` +
+      `The tails are far lighter than normal (excess kurtosis ${formatNumber(g2, 3)}), beyond ` +
         `the range of the Anscombe–Glynn approximation: the kurtosis score only says ` +
         `"much lighter than normal"; look at the histogram for two or more clusters`,
     );

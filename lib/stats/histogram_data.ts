@@ -106,7 +106,7 @@ function _iqrBySelection(data: Float64Array): number {
  * @param options rule, bin cap, curve resolution
  * @example
  * ```ts
- * import { histogramData } from "./histogram_data.ts";
+ * import { histogramData } from "@plumbline/plumbline";
  * const h = histogramData([1, 2, 2, 3, 3, 3, 4, 4, 5, 9]);
  * const total = h.counts.reduce((s, c) => s + c, 0);
  * if (total !== 10 || h.edges[0] !== 1 || h.edges[h.edges.length - 1] !== 9) throw new Error("bins");

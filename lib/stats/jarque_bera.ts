@@ -36,7 +36,7 @@ const _ASYMPTOTIC_N = 2000;
  *
  * @example
  * ```ts
- * import { jarqueBera } from "./jarque_bera.ts";
+ * import { jarqueBera } from "@plumbline/plumbline";
  * const r = jarqueBera([1, 2, 2, 3, 3, 3, 4, 4, 5, 9]);
  * if (Math.abs(r.pValue - Math.exp(-r.statistic / 2)) > 1e-15) throw new Error("χ²(2) tail");
  * if (r.warnings.length !== 1) throw new Error("small-n warning expected");

@@ -73,7 +73,7 @@ function _dallalWilkinson(d: number, n: number): number {
  *
  * @example
  * ```ts
- * import { lilliefors } from "./lilliefors.ts";
+ * import { lilliefors } from "@plumbline/plumbline";
  * const r = lilliefors([1, 1.2, 1.1, 1.3, 9, 9.2, 9.1, 9.3, 9.4, 1.4, 1.05, 9.05]);
  * if (!(r.statistic > 0.2 && r.pValue < 0.05 && r.pBound === "none")) throw new Error("two clusters");
  * const calm = lilliefors([4.2, 3.9, 5.1, 4.8, 4.4, 3.6, 5.0, 4.1, 4.6, 4.3]);

@@ -175,7 +175,7 @@ export function _zScore(v: number, shape: _Shape): number {
  *
  * @example
  * ```ts
- * import { moments } from "./moments.ts";
+ * import { moments } from "@plumbline/plumbline";
  * const m = moments([2, 4, 4, 4, 5, 5, 7, 9]);
  * if (m.mean !== 5) throw new Error("mean");
  * if (Math.abs(m.sd - Math.sqrt(32 / 7)) > 1e-15) throw new Error("sd");

@@ -62,7 +62,7 @@ function _check(p: readonly number[]): void {
  *
  * @example
  * ```ts
- * import { holmAdjust } from "./multiplicity.ts";
+ * import { holmAdjust } from "@plumbline/plumbline";
  * const q = holmAdjust([0.01, 0.04, 0.03]);
  * if (q.join() !== "0.03,0.06,0.06") throw new Error(q.join());
  * ```
@@ -92,7 +92,7 @@ export function holmAdjust(p: readonly number[]): number[] {
  *
  * @example
  * ```ts
- * import { benjaminiHochbergAdjust } from "./multiplicity.ts";
+ * import { benjaminiHochbergAdjust } from "@plumbline/plumbline";
  * const q = benjaminiHochbergAdjust([0.01, 0.04, 0.03]);
  * if (q.join() !== "0.03,0.04,0.04") throw new Error(q.join());
  * ```
@@ -119,7 +119,7 @@ export function benjaminiHochbergAdjust(p: readonly number[]): number[] {
  *
  * @example
  * ```ts
- * import { adjustPValues } from "./multiplicity.ts";
+ * import { adjustPValues } from "@plumbline/plumbline";
  * if (adjustPValues([0.5], "holm")[0] !== 0.5) throw new Error("one test is unchanged");
  * ```
  */

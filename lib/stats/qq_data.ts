@@ -142,7 +142,7 @@ function _positiveInt(v: number, name: string, min: number): number {
  * @returns frozen plain data; the number of points is at most `maxPoints`
  * @example
  * ```ts
- * import { qqData } from "./qq_data.ts";
+ * import { qqData } from "@plumbline/plumbline";
  * const q = qqData([4.1, 3.9, 4.4, 4.0, 4.2, 3.7, 4.6]);
  * if (q.shown !== 7 || q.value[0] !== 3.7 || q.row[0] !== 5) throw new Error("order");
  * if (!(q.lower[3] < q.value[3] && q.value[3] < q.upper[3])) throw new Error("envelope");

@@ -57,7 +57,7 @@ export function shapiroFranciaNull(n: number): { readonly mean: number; readonly
  *
  * @example
  * ```ts
- * import { shapiroFrancia } from "./shapiro_francia.ts";
+ * import { shapiroFrancia } from "@plumbline/plumbline";
  * const r = shapiroFrancia([2.1, 2.9, 3.2, 3.3, 3.8, 4.1, 4.4, 5.0, 5.6, 7.9]);
  * if (!(r.statistic > 0.8 && r.statistic <= 1 && r.pValue > 0.05)) throw new Error("unexpected");
  * ```

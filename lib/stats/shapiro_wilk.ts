@@ -49,7 +49,7 @@ export const SHAPIRO_WILK_MAX_N = 5000;
  *
  * @example
  * ```ts
- * import { shapiroWilk } from "./shapiro_wilk.ts";
+ * import { shapiroWilk } from "@plumbline/plumbline";
  * const r = shapiroWilk([2.1, 2.9, 3.2, 3.3, 3.8, 4.1, 4.4, 5.0, 5.6, 7.9]);
  * if (!(r.statistic > 0.8 && r.statistic <= 1 && r.pValue > 0.05)) throw new Error("unexpected");
  * ```

@@ -60,7 +60,7 @@ export interface ShapiroWilkGeometry {
  * @example
  * ```ts
  * import { shapiroWilkGeometry } from "./shapiro_wilk_geometry.ts";
- * import { shapiroWilk } from "./shapiro_wilk.ts";
+ * import { shapiroWilk } from "@plumbline/plumbline";
  * const x = [4.1, 3.9, 4.4, 4.0, 4.2, 3.7, 4.6, 4.3, 3.8, 4.1, 4.0, 9.5];
  * const g = shapiroWilkGeometry(x);
  * // the outlier inflates the sd far more than the slope through the bulk

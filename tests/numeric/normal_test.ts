@@ -75,21 +75,22 @@ Deno.test("round trip: normalCdf(normalQuantile(p)) = p to 1e-13 relative", () =
   }
 });
 
-// Why we do not use jstat (1.9.6) for these: measured against the same mpmath
-// values, its quantile loses digits in the tails and its upper tail is formed
-// as 1 − Φ, which is 0 at z = 10 (true value 7.6e-24). If a jstat upgrade ever
-// passes these, we can reconsider using it.
-Deno.test("jstat 1.9.6 falls short of 1e-14 where plumbline's normal functions do not", () => {
+// Why plumbline has its own normal functions rather than jstat's: in the far tails
+// (the cases below) jstat 1.9.6 measured a relative error above 1e-12 for the
+// quantile at 1e-10, above 1e-6 at 1e-300, and an upper tail of exactly 0 at z = 10
+// (formed as 1 − Φ). The test checks plumbline there; jstat's errors are only logged,
+// so an upgrade of that library cannot break it.
+Deno.test("far tails: plumbline keeps 1e-14 relative where 1 − Φ and common quantiles lose it", () => {
   const rel = (a: number, e: number) => Math.abs(a - e) / Math.abs(e);
   const q = (p: number) => fixture.quantile.find((r) => r.p === p)!.z;
   const s = (z: number) => fixture.cdf.find((r) => r.z === z)!.sf;
-  const jq10 = rel(jStat.normal.inv(1e-10, 0, 1), q(1e-10));
-  const jq300 = rel(jStat.normal.inv(1e-300, 0, 1), q(1e-300));
-  const jsf10 = 1 - jStat.normal.cdf(10, 0, 1);
-  ok(jq10 > 1e-12, `jstat quantile at 1e-10: relative error ${jq10}`);
-  ok(jq300 > 1e-6, `jstat quantile at 1e-300: relative error ${jq300}`);
-  equal(jsf10, 0, "jstat upper tail at z = 10 is 0");
   ok(rel(normalQuantile(1e-10), q(1e-10)) <= REL);
   ok(rel(normalQuantile(1e-300), q(1e-300)) <= REL);
   ok(rel(normalSf(10), s(10)) <= REL);
+  console.log(
+    `for comparison, jstat: quantile at 1e-10 off by ${
+      rel(jStat.normal.inv(1e-10, 0, 1), q(1e-10)).toExponential(1)
+    }, at 1e-300 by ${rel(jStat.normal.inv(1e-300, 0, 1), q(1e-300)).toExponential(1)}; ` +
+      `upper tail at 10: ${1 - jStat.normal.cdf(10, 0, 1)}`,
+  );
 });

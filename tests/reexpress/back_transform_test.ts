@@ -1,20 +1,20 @@
-import { equal, ok, throws } from "node:assert/strict";
+import { equal, ok } from "node:assert/strict";
 import jStat from "jstat";
-import { PlumbError } from "../../lib/errors.ts";
 import { seededRandom } from "../../lib/numeric/random.ts";
 import { backTransformMean } from "../../lib/reexpress/back_transform.ts";
 import { reexpression } from "../../lib/reexpress/reexpression.ts";
 import { boxCoxFit } from "../../lib/reexpress/box_cox_fit.ts";
 import { yeoJohnsonFit } from "../../lib/reexpress/yeo_johnson_fit.ts";
 import { assertClose } from "../_assert_close.ts";
+import { assertPlumbError } from "../_shared.ts";
 
 const fixture = JSON.parse(
   await Deno.readTextFile(new URL("../fixtures/reexpress.json", import.meta.url)),
 ) as {
-  references: Record<string, string>;
+  library: Record<string, string>;
   tQuantiles: { p: number; df: number; q: number }[];
 };
-const spSrc = `scipy.stats.t.ppf, scipy ${fixture.references.scipy}`;
+const spSrc = `scipy.stats.t.ppf, scipy ${fixture.library.scipy}`;
 
 Deno.test(`jStat's studentt.inv agrees with ${spSrc} to 1e-7 relative`, () => {
   // Tolerance stated before measuring: 1e-7 relative is far below the sampling error of
@@ -107,10 +107,20 @@ Deno.test("shifted log: named for what it is, with a caution about the shift", (
   ok(b.cautions[0].includes("depends on the shift"));
 });
 
-Deno.test("bad input: level and size", () => {
-  const code = (f: () => unknown, c: string) =>
-    throws(f, (e: unknown) => e instanceof PlumbError && e.code === c);
-  code(() => backTransformMean([1, 2, 3], reexpression("log"), { level: 95 }), "bad-option");
-  code(() => backTransformMean([1], reexpression("log")), "too-few");
-  code(() => backTransformMean([1, 0], reexpression("log")), "non-positive");
+Deno.test("bad input: level, size and domain, each with a message that says what to do", () => {
+  assertPlumbError(
+    () => backTransformMean([1, 2, 3], reexpression("log"), { level: 95 }),
+    "bad-option",
+    /^Cannot compute a back-transformed mean at level 95: the level must lie strictly between 0 and 1, e\.g\. 0\.95$/,
+  );
+  assertPlumbError(
+    () => backTransformMean([1], reexpression("log")),
+    "too-few",
+    /^Cannot run a back-transformed mean on 1 value: at least 2 are needed$/,
+  );
+  assertPlumbError(
+    () => backTransformMean([1, 0], reexpression("log")),
+    "non-positive",
+    /^Cannot apply the log transformation to values ≤ 0: 1 of 2 .*add a shift first/,
+  );
 });

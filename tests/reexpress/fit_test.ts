@@ -5,6 +5,7 @@ import { yeoJohnsonFit } from "../../lib/reexpress/yeo_johnson_fit.ts";
 import { boxCoxProfile } from "../../lib/reexpress/box_cox_profile.ts";
 import { yeoJohnsonProfile } from "../../lib/reexpress/yeo_johnson_profile.ts";
 import { assertClose } from "../_assert_close.ts";
+import { assertPlumbError } from "../_shared.ts";
 
 // Reference values: tests/fixtures/reexpress.json, written by
 // tools/fixtures/reexpress.py. "mpmath" values come from the textbook formulas
@@ -29,12 +30,12 @@ interface Case {
 const fixture = JSON.parse(
   await Deno.readTextFile(new URL("../fixtures/reexpress.json", import.meta.url)),
 ) as {
-  references: Record<string, string>;
+  library: Record<string, string>;
   cases: Case[];
   zerosSample: { x: number[]; scipyBoxCoxLambda: number };
 };
-const mpSrc = `mpmath ${fixture.references.mpmath}`;
-const spSrc = `scipy ${fixture.references.scipy}`;
+const mpSrc = `mpmath ${fixture.library.mpmath}`;
+const spSrc = `scipy ${fixture.library.scipy}`;
 
 // Tolerances, stated before running: λ within 1e-6 relative of the
 // high-precision value (absolute 1e-9 for |λ| < 1e-3, where relative error of
@@ -132,17 +133,47 @@ Deno.test("Box–Cox refuses data with zeros, which scipy fits silently; Yeo–J
   ok(yj.ci[0]! < yj.lambda && yj.lambda < yj.ci[1]!);
 });
 
-Deno.test("fits reject unusable input with PlumbError codes", () => {
-  const code = (f: () => unknown, c: string) =>
-    throws(f, (e: unknown) => e instanceof PlumbError && e.code === c);
-  code(() => boxCoxFit([1, 2]), "too-few");
-  code(() => yeoJohnsonFit([1, NaN, 3]), "non-finite");
-  code(() => boxCoxFit([2, 2, 2, 2]), "constant");
-  code(() => yeoJohnsonFit([-1, -1, -1]), "constant");
-  code(() => boxCoxFit([1, 2, 3], { level: 1 }), "bad-option");
-  code(() => boxCoxFit([1, 2, 3], { range: [2, -2] }), "bad-option");
-  code(() => boxCoxProfile([1, 2, 3], [0, Infinity]), "bad-option");
-  code(() => boxCoxProfile([1, -2, 3], [0]), "non-positive");
+Deno.test("fits reject unusable input with a PlumbError whose message says what to do", () => {
+  assertPlumbError(
+    () => boxCoxFit([1, 2]),
+    "too-few",
+    /^Cannot run a Box–Cox fit on 2 values: at least 3 are needed$/,
+  );
+  assertPlumbError(
+    () => yeoJohnsonFit([1, NaN, 3]),
+    "non-finite",
+    /^Cannot run a Yeo–Johnson fit on values that are not finite numbers: 1 of 3 \(at position 1\); remove or replace them first/,
+  );
+  assertPlumbError(
+    () => boxCoxFit([2, 2, 2, 2]),
+    "constant",
+    /^Cannot run a Box–Cox fit on 4 identical values \(all 2\): no power changes the shape/,
+  );
+  assertPlumbError(
+    () => yeoJohnsonFit([-1, -1, -1]),
+    "constant",
+    /^Cannot run a Yeo–Johnson fit on 3 identical values/,
+  );
+  assertPlumbError(
+    () => boxCoxFit([1, 2, 3], { level: 1 }),
+    "bad-option",
+    /^Cannot run a Box–Cox fit at level 1: the level must lie strictly between 0 and 1, e\.g\. 0\.95$/,
+  );
+  assertPlumbError(
+    () => boxCoxFit([1, 2, 3], { range: [2, -2] }),
+    "bad-option",
+    /^Cannot run a Box–Cox fit over the range \[2, -2\]: give two finite numbers, lower first$/,
+  );
+  assertPlumbError(
+    () => boxCoxProfile([1, 2, 3], [0, Infinity]),
+    "bad-option",
+    /^Cannot evaluate the Box–Cox profile likelihood at λ = Infinity \(position 1\): every λ must be a finite number$/,
+  );
+  assertPlumbError(
+    () => boxCoxProfile([1, -2, 3], [0]),
+    "non-positive",
+    /^Cannot apply the Box–Cox profile likelihood to values ≤ 0: 1 of 3 .*add a shift first .*or use Yeo–Johnson/,
+  );
 });
 
 Deno.test("the interval level changes the cut-off as χ²₁ says", () => {

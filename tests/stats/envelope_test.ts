@@ -13,7 +13,7 @@ interface Case {
 }
 const fixture = JSON.parse(
   await Deno.readTextFile(new URL("../fixtures/envelope.json", import.meta.url)),
-) as { library: string; source: string; cases: Case[] };
+) as { library: { R: string }; source: string; cases: Case[] };
 
 // Tolerance, stated before the checks: normal-scale limits within 1e-12
 // relative or 1e-13 absolute (limits near z = 0 have no relative scale).
@@ -29,7 +29,7 @@ Deno.test("envelope limits match R's qnorm(qbeta(...)) for n = 1 … 1e6", () =>
         got[k],
         c.z[k],
         Z_TOL,
-        `qnorm(qbeta(${c.p}, ${i}, ${c.n - i + 1})) from ${fixture.library}`,
+        `qnorm(qbeta(${c.p}, ${i}, ${c.n - i + 1})) from R ${fixture.library.R}`,
       );
     });
   }
@@ -50,7 +50,7 @@ Deno.test("the envelope is antisymmetric, ordered and widens with the level", ()
 });
 
 Deno.test("a single value's envelope is the normal's central interval", () => {
-  // Φ⁻¹(0.025) = −1.959963984540054 (mpmath, 50 digits; also tests/fixtures/normal.json)
+  // Φ⁻¹(0.025) = −1.959963984540054236 (mpmath 1.2.1, 60 digits; also tests/fixtures/normal.json)
   const e = normalEnvelope(1);
   assertClose(e.lower[0], -1.959963984540054, { rel: 1e-15 }, "n = 1 lower");
   assertClose(e.upper[0], 1.959963984540054, { rel: 1e-15 }, "n = 1 upper");

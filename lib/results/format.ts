@@ -22,8 +22,10 @@ export function formatCount(n: number): string {
 }
 
 /**
- * A number to `digits` significant digits, trailing zeros kept, with a
- * minus sign (U+2212), and exponent form outside [1e-4, 1e6).
+ * A number to `digits` significant digits, trailing zeros kept, with the
+ * minus sign (U+2212) for negative numbers and negative exponents alike, and
+ * exponent form outside [1e-4, 1e6). Every number plumbline writes into
+ * text for people goes through this function or {@linkcode formatCompact}.
  *
  * @param x the number
  * @param digits significant digits, default 4
@@ -31,7 +33,7 @@ export function formatCount(n: number): string {
  * ```ts
  * import { formatNumber } from "./format.ts";
  * if (formatNumber(-0.0123456) !== "−0.01235") throw new Error("sig");
- * if (formatNumber(1234567) !== "1.235e6") throw new Error("exp");
+ * if (formatNumber(1234567) !== "1.235e6" || formatNumber(-1.5e-7) !== "−1.500e−7") throw new Error("exp");
  * ```
  */
 export function formatNumber(x: number, digits = 4): string {
@@ -44,8 +46,27 @@ export function formatNumber(x: number, digits = 4): string {
   if (a >= 1e-4 && a < 1e6) s = a.toPrecision(digits);
   else s = a.toExponential(digits - 1).replace("e+", "e");
   // toPrecision may itself switch to exponent form near the limits
-  s = s.replace("e+", "e");
+  s = s.replace("e+", "e").replace("e-", "e−");
   return x < 0 ? "−" + s : s;
+}
+
+/**
+ * A number to at most `digits` significant digits without trailing zeros
+ * (`0.5`, `−2`, `1.234e−5`), with the minus sign (U+2212): for parameters
+ * written into labels and formulas, such as a power λ or a shift.
+ *
+ * @param x the number
+ * @param digits significant digits at most, default 4
+ * @example
+ * ```ts
+ * import { formatCompact } from "./format.ts";
+ * if (formatCompact(-0.5) !== "−0.5" || formatCompact(0.123456) !== "0.1235") throw new Error("compact");
+ * ```
+ */
+export function formatCompact(x: number, digits = 4): string {
+  if (!Number.isFinite(x)) return formatNumber(x);
+  const s = String(Number(x.toPrecision(digits))).replace("e+", "e").replace(/-/g, "−");
+  return s;
 }
 
 /**

@@ -1,11 +1,12 @@
 import assert from "node:assert/strict";
 import {
+  formatCompact,
   formatCount,
   formatNumber,
   formatP,
   formatPClause,
   roundSig,
-} from "../../lib/render/format.ts";
+} from "../../lib/results/format.ts";
 
 Deno.test("formatCount groups thousands", () => {
   assert.equal(formatCount(0), "0");
@@ -18,12 +19,21 @@ Deno.test("formatCount groups thousands", () => {
 Deno.test("formatNumber: significant digits, true minus, exponent outside [1e-4, 1e6)", () => {
   assert.equal(formatNumber(3.14159), "3.142");
   assert.equal(formatNumber(-2.5, 3), "−2.50");
-  assert.equal(formatNumber(0.000012346), "1.235e-5");
+  assert.equal(formatNumber(0.000012346), "1.235e−5");
+  assert.equal(formatNumber(-0.000012346), "−1.235e−5");
   assert.equal(formatNumber(123456789), "1.235e8");
   assert.equal(formatNumber(0), "0");
   assert.equal(formatNumber(Infinity), "∞");
   assert.equal(formatNumber(-Infinity), "−∞");
   assert.equal(formatNumber(NaN), "NaN");
+});
+
+Deno.test("formatCompact: no trailing zeros, true minus in the number and its exponent", () => {
+  assert.equal(formatCompact(0.5), "0.5");
+  assert.equal(formatCompact(-2), "−2");
+  assert.equal(formatCompact(-0.0106543), "−0.01065");
+  assert.equal(formatCompact(1.23456e-7), "1.235e−7");
+  assert.equal(formatCompact(2.5e21), "2.5e21");
 });
 
 Deno.test("p-values: four decimals, a bound below 0.0001", () => {
