@@ -7,14 +7,14 @@ import { chiSquareQuantile, gammaCdfPair, logGamma } from "../../lib/numeric/gam
 import { assertClose } from "../_assert_close.ts";
 
 interface Fixture {
-  library: string;
+  library: { R: string };
   chisq: { df: number; p: number[]; q: number[]; lowerAtQ: number[]; upperAtQ: number[] }[];
   binomial: { n: number; p: number; k: number[]; cdf: number[]; q: number[]; quantile: number[] }[];
 }
 const fx = JSON.parse(
   await Deno.readTextFile(new URL("../fixtures/stakes_distributions.json", import.meta.url)),
 ) as Fixture;
-const src = fx.library;
+const src = `R ${fx.library.R}`;
 
 // Tolerances, stated before the checks: 1e-12 relative for quantiles and
 // distribution functions (the beta and gamma routines reach a few 1e-14;

@@ -34,7 +34,7 @@ interface Case {
 }
 const fx = JSON.parse(
   await Deno.readTextFile(new URL("../fixtures/stakes_view.json", import.meta.url)),
-) as { library: string; cases: Case[] };
+) as { library: { R: string }; cases: Case[] };
 
 // Tolerance, stated before the checks: 1e-12 relative (1e-15 absolute for
 // probabilities near 0). Every quantity is a closed formula of the mean, the
@@ -43,7 +43,7 @@ const fx = JSON.parse(
 // handful of roundings.
 const TOL = { rel: 1e-12, abs: 1e-15 };
 const close = (a: number, e: number, what: string, c: Case) =>
-  assertClose(a, e, TOL, `${what}, ${c.name}, vs ${fx.library}`);
+  assertClose(a, e, TOL, `${what}, ${c.name}, vs R ${fx.library.R}`);
 const closeAll = (
   a: readonly (number | null)[],
   e: readonly (number | null)[],

@@ -21,7 +21,7 @@ interface Case {
 }
 const fx = JSON.parse(
   await Deno.readTextFile(new URL("../fixtures/stakes_bootstrap.json", import.meta.url)),
-) as { library: string; cases: Case[] };
+) as { library: { R: string; boot: string }; cases: Case[] };
 
 const accel = (x: number[]) => moments(x).g1 / (6 * Math.sqrt(x.length));
 
@@ -33,7 +33,7 @@ Deno.test("bcaInterval equals R boot.ci(type = 'bca') on boot's own replicates, 
   for (const c of fx.cases) {
     for (const { level, interval } of c.bca) {
       const r = bcaInterval(c.t0, c.t, { acceleration: accel(c.x), level });
-      const ctx = `${c.name}, level ${level}, vs ${fx.library}`;
+      const ctx = `${c.name}, level ${level}, vs R ${fx.library.R}, boot ${fx.library.boot}`;
       assertClose(r.interval[0]!, interval[0], { rel: 1e-12 }, `lower, ${ctx}`);
       assertClose(r.interval[1]!, interval[1], { rel: 1e-12 }, `upper, ${ctx}`);
     }
@@ -47,7 +47,12 @@ Deno.test("the acceleration g₁/(6√n) equals R's default influence values (em
   // ratio of sums of cubes and squares of the Lᵢ, inherits a few times that.
   // 1e-6 relative bounds it with room; the exact check is the test above.
   for (const c of fx.cases) {
-    assertClose(accel(c.x), c.accelerationDefault, { rel: 1e-6 }, `${c.name} vs ${fx.library}`);
+    assertClose(
+      accel(c.x),
+      c.accelerationDefault,
+      { rel: 1e-6 },
+      `${c.name} vs R ${fx.library.R}, boot ${fx.library.boot}`,
+    );
   }
 });
 

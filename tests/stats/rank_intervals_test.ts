@@ -11,7 +11,7 @@ import { rankQuantile } from "../../lib/stats/rank_quantile.ts";
 import { assertClose } from "../_assert_close.ts";
 
 interface Fixture {
-  library: string;
+  library: { R: string };
   clopperPearson: { k: number; n: number; level: number; interval: number[] }[];
   quantile6: { x: number[]; p: number[]; q: number[] }[];
 }
@@ -28,7 +28,7 @@ Deno.test("rankQuantile equals R quantile(type = 6) to 1e-15 relative, n = 1 …
         rankQuantile(c.x, p),
         c.q[i],
         { rel: 1e-15 },
-        `n ${c.x.length}, p ${p} vs ${fx.library}`,
+        `n ${c.x.length}, p ${p} vs R ${fx.library.R}`,
       );
     });
   }
@@ -37,7 +37,7 @@ Deno.test("rankQuantile equals R quantile(type = 6) to 1e-15 relative, n = 1 …
 Deno.test("clopperPearson matches R binom.test to 1e-12 relative", () => {
   for (const c of fx.clopperPearson) {
     const [lo, hi] = clopperPearson(c.k, c.n, { level: c.level });
-    const ctx = `${c.k} of ${c.n} at ${c.level} vs ${fx.library} binom.test`;
+    const ctx = `${c.k} of ${c.n} at ${c.level} vs R ${fx.library.R} binom.test`;
     assertClose(lo, c.interval[0], { rel: 1e-12, abs: 0 }, `lower, ${ctx}`);
     assertClose(hi, c.interval[1], { rel: 1e-12 }, `upper, ${ctx}`);
   }
