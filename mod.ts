@@ -43,6 +43,7 @@ export type {
   FrameNames,
   MemorySource,
   RowObjects,
+  SeriesLike,
 } from "./lib/data/memory_source.ts";
 export type {
   CellNote,
@@ -51,6 +52,7 @@ export type {
   ColumnKind,
   ColumnProvenance,
   HeaderRename,
+  MergedLabel,
   NumericCells,
   NumericColumn,
   NumericColumnOptions,

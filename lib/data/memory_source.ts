@@ -58,5 +58,21 @@ export type FrameColumnReader =
   | { getSeries(name: string): unknown }
   | { get(name: string): unknown };
 
-/** Every in-memory shape: one column of cells, rows, columns, a map of columns, a data frame. */
-export type MemorySource = Cells | RowObjects | ColumnObject | ColumnMap | FrameLike;
+/**
+ * A single series of another library (a polars `Series`, an Apache Arrow
+ * vector): one column, named by its `name` when it has one.
+ */
+export interface SeriesLike {
+  /** The number of cells. */
+  readonly length: number;
+  /** The cells (nulls are read through the series' own iterator where it has one). */
+  toArray(): unknown;
+  /** The series' name, used as the column's name. */
+  readonly name?: string;
+}
+
+/**
+ * Every in-memory shape: one column of cells, rows, columns, a map of
+ * columns, a data frame, a single series.
+ */
+export type MemorySource = Cells | RowObjects | ColumnObject | ColumnMap | FrameLike | SeriesLike;

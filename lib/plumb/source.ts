@@ -6,6 +6,7 @@
  */
 import { PlumbError } from "../errors.ts";
 import { _isTable } from "../data/_table_store.ts";
+import { frameColumns } from "../data/frame_like.ts";
 import { tableFromMemory } from "../data/in_memory.ts";
 import type { MemorySource } from "../data/memory_source.ts";
 import type { Table } from "../data/table.ts";
@@ -32,6 +33,9 @@ export type PlumbSource = Table | MemorySource;
  */
 export function singleColumn(source: PlumbSource): boolean {
   if (ArrayBuffer.isView(source)) return true;
+  // A series of a data-frame library (toArray(), and no column names).
+  const series = source as { toArray?: unknown };
+  if (typeof series.toArray === "function" && frameColumns(source as object) === null) return true;
   if (!Array.isArray(source)) return false;
   const first = source.find((x) => x !== null && x !== undefined);
   return typeof first !== "object" || first instanceof Date || Array.isArray(first);

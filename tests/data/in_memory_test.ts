@@ -197,7 +197,7 @@ Deno.test("values that are not tables are refused, saying what to give instead",
     [true, /^Cannot make a table from boolean/],
   ];
   for (const [data, message] of cases) {
-    await assert.rejects(() => loadTable(data as object), (e: unknown) => {
+    await assert.rejects(() => loadTable(data as never), (e: unknown) => {
       assert.ok(e instanceof PlumbError, String(e));
       assert.equal(e.code, "bad-option");
       assert.match(e.message, message);
