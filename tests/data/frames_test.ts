@@ -1,11 +1,12 @@
 /**
  * Data frames and columnar tables from real libraries: Apache Arrow (tables
- * and vectors, with null masks, 64-bit integers and dates) and nodejs-polars
- * (DataFrames and Series).
+ * and vectors, with null masks, 64-bit integers and dates), nodejs-polars
+ * (DataFrames and Series) and arquero (tables, filtered ones included).
  */
 import assert from "node:assert/strict";
 import * as arrow from "apache-arrow";
 import pl from "nodejs-polars";
+import * as aq from "arquero";
 import { loadTable } from "../../lib/data/load_table.ts";
 import { plumb } from "../../lib/plumb/plumb.ts";
 
@@ -98,4 +99,23 @@ Deno.test("polars: a DataFrame's columns with nulls, and a Series named by its n
   assert.equal(chain.analysis().n, 6);
   // A Series without a name takes the name option.
   assert.deepEqual((await loadTable(pl.Series([1, 2]), { name: "v" })).numericNames(), ["v"]);
+});
+
+Deno.test("arquero: a table's columns, nulls missing, censored strings kept; a filtered table's rows only", async () => {
+  const dt = aq.table({
+    line: ["A", "B", null, "A"],
+    fill_ml: [500.1, null, 499.7, 500.4],
+    oxygen_ppb: ["<4", "12.5", "9.1", undefined],
+  });
+  const t = await loadTable(dt);
+  assert.deepEqual(t.columns.map((c) => [c.name, c.kind]), [
+    ["line", "text"],
+    ["fill_ml", "numeric"],
+    ["oxygen_ppb", "numeric"],
+  ]);
+  const o = t.info("oxygen_ppb").provenance;
+  assert.deepEqual([o.numbers, o.censoredLeft, o.missing], [2, 1, 1]);
+  const a = await loadTable(dt.filter((d: { line: string | null }) => d.line === "A"));
+  assert.equal(a.rowCount, 2);
+  assert.deepEqual(Array.from(a.numeric("fill_ml").values), [500.1, 500.4]);
 });
