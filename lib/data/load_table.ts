@@ -10,6 +10,7 @@ import { PlumbError } from "../errors.ts";
 import { _tableFromCsv, type CsvOptions, tableFromCsv } from "./csv_text.ts";
 import { type MemoryOptions, tableFromMemory } from "./in_memory.ts";
 import { _isTable } from "./_table_store.ts";
+import { checkOptions } from "../results/options.ts";
 import { type _BinaryKind, _sniffBinary } from "./_encoding.ts";
 import { tableFromWorkbook } from "./workbook.ts";
 import { tableFromParquet } from "./parquet.ts";
@@ -39,6 +40,20 @@ export interface LoadTableOptions extends Omit<CsvOptions, "sourceName">, Memory
   readonly sheet?: string | number;
 }
 
+/** Every option {@linkcode loadTable} knows. */
+const LOAD_TABLE_OPTIONS: readonly string[] = Object.freeze([
+  "from",
+  "delimiter",
+  "decimal",
+  "thousands",
+  "missing",
+  "detectionLimits",
+  "encoding",
+  "sheet",
+  "name",
+  "reader",
+]);
+
 /**
  * Load a table from a file (CSV, Excel workbook, Parquet, Arrow IPC), CSV
  * text or in-memory data.
@@ -48,7 +63,8 @@ export interface LoadTableOptions extends Omit<CsvOptions, "sourceName">, Memory
  * A file's provenance names the file without its folders.
  *
  * @param source a file path, CSV text, or in-memory data
- * @param options how to tell them apart, and how to read the cells
+ * @param given how to tell them apart, and how to read the cells (`null`
+ *   is no options; an unknown option is refused, naming the nearest one)
  * @returns a frozen table
  * @throws {PlumbError} `"not-found"` when a path does not exist,
  *   `"bad-option"` when it cannot be read or an option is invalid;
@@ -67,8 +83,9 @@ export interface LoadTableOptions extends Omit<CsvOptions, "sourceName">, Memory
  */
 export async function loadTable(
   source: TableSource,
-  options: LoadTableOptions = {},
+  given: LoadTableOptions | null = {},
 ): Promise<Table> {
+  const options = checkOptions(given, LOAD_TABLE_OPTIONS, "loadTable");
   const from = options.from ?? "auto";
   if (!["auto", "path", "text", "memory"].includes(from)) {
     throw new PlumbError(

@@ -165,3 +165,26 @@ Deno.test("a named pipe and a /proc file are read to their end; a folder is refu
     return true;
   });
 });
+
+Deno.test("loadTable: misspelled options are refused naming the nearest one; null is no options", async () => {
+  await assert.rejects(() => loadTable("a\n1\n", { delimitter: ";" } as never), (e: unknown) => {
+    assert.ok(e instanceof PlumbError);
+    assert.equal(e.code, "bad-option");
+    assert.match(
+      e.message,
+      /^Unknown option "delimitter" of loadTable: did you mean "delimiter"\? \(the options are from, delimiter, /,
+    );
+    assert.equal(e.detail?.suggestion, "delimiter");
+    return true;
+  });
+  await assert.rejects(
+    () => loadTable("a\n1\n", { colour: "red" } as never),
+    /^PlumbError: Unknown option "colour" of loadTable: the options are /,
+  );
+  await assert.rejects(
+    () => loadTable("a\n1\n", "utf-8" as never),
+    /^PlumbError: Cannot use string as the options of loadTable: give an object/,
+  );
+  const t = await loadTable("a\n1\n", null);
+  assert.deepEqual(Array.from(t.numeric("a").values), [1]);
+});
