@@ -182,3 +182,8 @@ export {
 export { censoredReexpress } from "./lib/reexpress/censored_reexpress.ts";
 export { censoredBackTransformMean } from "./lib/reexpress/censored_back_transform.ts";
 export { normalHazard, normalLogCdf, normalLogSf } from "./lib/numeric/normal_log.ts";
+
+// Larger than memory
+export { scan, type ScanOptions, ScanSource } from "./lib/scan/scan.ts";
+export type { ScanAnalysis, ScanSample } from "./lib/scan/screen.ts";
+export type { ScanProgress } from "./lib/scan/engine.ts";

@@ -42,7 +42,11 @@ export type PlumbErrorCode =
   /** A model term that earlier terms already explain (aliased, collinear). */
   | "collinear"
   /** Left- and right-censoring limits that overlap, so the order of the values is unknown. */
-  | "overlapping-limits";
+  | "overlapping-limits"
+  /** A query the SQL engine could not run (its message follows). */
+  | "query-failed"
+  /** Work stopped on request before it finished; nothing partial was kept. */
+  | "cancelled";
 
 /**
  * An error raised by plumbline for input it cannot use.

@@ -184,6 +184,44 @@ function _histogramBuild(
 ): HistogramData {
   const n = data.length;
   const { min, max, mean, sd } = summary;
+  const layout = _histogramLayout(n, min, max, sd, options, interquartile);
+  const { k, edges, width } = layout;
+  const counts: number[] = new Array(k).fill(0);
+  for (let i = 0; i < n; i++) {
+    let b = Math.floor((data[i] - min) / width);
+    if (b >= k) b = k - 1;
+    // guard against rounding at an interior edge: place by the stored edges
+    if (b > 0 && data[i] < edges[b]) b--;
+    else if (b < k - 1 && data[i] >= edges[b + 1]) b++;
+    counts[b]++;
+  }
+  return _histogramFinish(layout, counts, n, mean, sd);
+}
+
+/** The bins of a histogram before counting: the rule used, k, the width and the edges. */
+export interface _HistogramLayout {
+  readonly rule: BinRule;
+  readonly ruleNote: string;
+  readonly k: number;
+  readonly width: number;
+  readonly edges: readonly number[];
+  readonly min: number;
+  readonly max: number;
+  readonly curvePoints: number;
+}
+
+/**
+ * Choose the bins for n values in [min, max] with standard deviation `sd`;
+ * `interquartile` is called only by the Freedman–Diaconis rule.
+ */
+export function _histogramLayout(
+  n: number,
+  min: number,
+  max: number,
+  sd: number,
+  options: HistogramOptions,
+  interquartile: () => number,
+): _HistogramLayout {
   const maxBins = options.maxBins ?? 200;
   const curvePoints = options.curvePoints ?? 121;
   if (!Number.isInteger(maxBins) || maxBins < 1) {
@@ -234,15 +272,19 @@ function _histogramBuild(
   const width = range / k;
   const edges: number[] = new Array(k + 1);
   for (let j = 0; j <= k; j++) edges[j] = j === k ? max : min + j * width;
-  const counts: number[] = new Array(k).fill(0);
-  for (let i = 0; i < n; i++) {
-    let b = Math.floor((data[i] - min) / width);
-    if (b >= k) b = k - 1;
-    // guard against rounding at an interior edge: place by the stored edges
-    if (b > 0 && data[i] < edges[b]) b--;
-    else if (b < k - 1 && data[i] >= edges[b + 1]) b++;
-    counts[b]++;
-  }
+  return { rule, ruleNote, k, width, edges, min, max, curvePoints };
+}
+
+/** The frozen histogram from its layout, the bin counts, and the fitted normal's mean and sd. */
+export function _histogramFinish(
+  layout: _HistogramLayout,
+  counts: readonly number[],
+  n: number,
+  mean: number,
+  sd: number,
+): HistogramData {
+  const { min, max, width, curvePoints } = layout;
+  const range = max - min;
   const curveX: number[] = new Array(curvePoints);
   const curveY: number[] = new Array(curvePoints);
   const scale = (n * width) / sd;
@@ -253,11 +295,11 @@ function _histogramBuild(
   }
   return Object.freeze({
     n,
-    rule,
-    ruleNote,
+    rule: layout.rule,
+    ruleNote: layout.ruleNote,
     binWidth: width,
-    edges: Object.freeze(edges),
-    counts: Object.freeze(counts),
+    edges: Object.freeze([...layout.edges]),
+    counts: Object.freeze([...counts]),
     mean,
     sd,
     curveX: Object.freeze(curveX),

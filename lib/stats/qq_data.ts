@@ -182,7 +182,8 @@ export function _qqDataSorted(
   );
 }
 
-function _qqBuild(
+/** The QQ data of n values with this mean and sd, the values at the kept ranks coming from `select`. */
+export function _qqBuild(
   n: number,
   mean: number,
   sd: number,
