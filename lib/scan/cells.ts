@@ -1,7 +1,7 @@
 /**
  * Cells: the one-scan summary a scan keeps of a column. The finite values
  * are split into contiguous cells of a power-of-two width; for each cell the
- * engine returns its count, smallest and largest value, and the sums
+ * engine returns its count and the sums
  * S_j = Σ eʲ (j = 1…4) of the offsets e = v − c from the cell's centre c.
  *
  * Central sums from cells are exact algebra, not an approximation: with
@@ -23,10 +23,12 @@ import type { _Shape } from "../stats/moments.ts";
 export interface Cell {
   /** Values in the cell. */
   readonly n: number;
-  /** Smallest value in the cell. */
+  /** No value of the cell lies below this (from the grid, or the exact smallest value). */
   readonly lo: number;
-  /** Largest value in the cell. */
+  /** No value of the cell lies above this (from the grid, or the exact largest value). */
   readonly hi: number;
+  /** The cell's one value, when every value in it is the same (found on demand). */
+  readonly value?: number;
   /** The cell's centre c (exact). */
   readonly centre: number;
   /** Σe, Σe², Σe³, Σe⁴ of e = v − c. */

@@ -55,9 +55,11 @@ export interface EngineOptions {
 /** A query result as plain rows of plain values (numbers, strings, null). */
 export type Rows = (number | string | null)[][];
 
-/** What the user asked to scan, for messages. */
-export interface EngineSubject {
-  readonly what: string;
+/** One statement run: what it computes, its SQL text and its seconds. */
+export interface Pass {
+  readonly step: string;
+  readonly sql: string;
+  readonly seconds: number;
 }
 
 /** An open database with one connection. */
@@ -67,6 +69,7 @@ export class _Engine {
   readonly #options: EngineOptions;
   readonly #start = performance.now();
   #lastStep = "";
+  readonly #log: Pass[] = [];
 
   private constructor(instance: DuckDBInstance, con: DuckDBConnection, options: EngineOptions) {
     this.#instance = instance;
@@ -97,6 +100,7 @@ export class _Engine {
     const onAbort = () => this.#con.interrupt();
     signal?.addEventListener("abort", onAbort);
     const timer = this.#options.onProgress ? setInterval(() => this.#report(step), 500) : undefined;
+    const t0 = this.elapsed();
     try {
       const result = await this.#con.run(sql);
       const out: Rows = [];
@@ -111,6 +115,7 @@ export class _Engine {
           out.push(row);
         }
       }
+      this.#log.push(Object.freeze({ step, sql, seconds: +(this.elapsed() - t0).toFixed(3) }));
       return out;
     } catch (e) {
       if (signal?.aborted) throw _cancelled(subject);
@@ -123,13 +128,68 @@ export class _Engine {
 
   /**
    * Run one statement whose single column is a double and return its values
-   * in a typed array (for bounded fetches of raw values).
+   * in a typed array, read chunk by chunk as DuckDB produces them. When
+   * `expected` is given, a different number of rows is an error (the source
+   * changed between passes).
    */
-  async doubles(sql: string, step: string, subject: string): Promise<Float64Array> {
-    const rows = await this.rows(sql, step, subject);
-    const out = new Float64Array(rows.length);
-    for (let i = 0; i < rows.length; i++) out[i] = rows[i][0] as number;
-    return out;
+  async doubles(
+    sql: string,
+    step: string,
+    subject: string,
+    expected?: number,
+  ): Promise<Float64Array> {
+    const signal = this.#options.signal;
+    if (signal?.aborted) throw _cancelled(subject);
+    this.#lastStep = step;
+    const onAbort = () => this.#con.interrupt();
+    signal?.addEventListener("abort", onAbort);
+    const timer = this.#options.onProgress ? setInterval(() => this.#report(step), 500) : undefined;
+    const t0 = this.elapsed();
+    try {
+      const result = await this.#con.stream(sql);
+      let out = new Float64Array(expected ?? 1024);
+      let n = 0;
+      let more = false;
+      for (;;) {
+        const chunk = await result.fetchChunk();
+        if (chunk === null || chunk.rowCount === 0) break;
+        const col = chunk.getColumnVector(0);
+        const rows = chunk.rowCount;
+        if (n + rows > out.length) {
+          if (expected !== undefined) {
+            more = true;
+            break;
+          }
+          const grown = new Float64Array(Math.max(2 * out.length, n + rows));
+          grown.set(out);
+          out = grown;
+        }
+        for (let r = 0; r < rows; r++) out[n++] = col.getItem(r) as number;
+      }
+      if (expected !== undefined && (more || n !== expected)) {
+        throw new PlumbError(
+          "query-failed",
+          `Cannot scan ${subject}: a pass read ${
+            more ? "more" : n
+          } values where the previous one counted ` +
+            `${expected}; the source changed during the scan, so run it again`,
+        );
+      }
+      this.#log.push(Object.freeze({ step, sql, seconds: +(this.elapsed() - t0).toFixed(3) }));
+      return expected === undefined ? out.slice(0, n) : out;
+    } catch (e) {
+      if (signal?.aborted) throw _cancelled(subject);
+      if (e instanceof PlumbError) throw e;
+      throw _queryError(e, subject);
+    } finally {
+      if (timer !== undefined) clearInterval(timer);
+      signal?.removeEventListener("abort", onAbort);
+    }
+  }
+
+  /** Every statement run so far. */
+  log(): readonly Pass[] {
+    return [...this.#log];
   }
 
   /** Seconds since the engine opened. */

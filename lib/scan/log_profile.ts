@@ -26,7 +26,7 @@
  */
 import { _ZERO_LAMBDA } from "../reexpress/_checks.ts";
 import { _expm1, _phi, type _Profile, type _ProfilePoint } from "../reexpress/_profile.ts";
-import { _Sum, type Cell } from "./cells.ts";
+import type { Cell } from "./cells.ts";
 
 /** Largest |t| = |v − c|/c a cell may hold to be summed by its series. */
 export const SERIES_MAX_T = 2 ** -10;
@@ -54,17 +54,25 @@ const _G2 = _mul(_G1, _G1);
 const _G3 = _mul(_G2, _G1);
 const _G4 = _mul(_G3, _G1);
 
-/** One cell, prepared: n, a = ln c − ū, and T_k = S_k/cᵏ (k = 1…4). */
+/**
+ * The cells, prepared once: count, a = ln c − ū, and T_k = S_k/cᵏ
+ * (k = 1…4), in parallel typed arrays so that each λ is one tight loop.
+ */
 interface _Prepared {
-  readonly n: number;
-  readonly a: number;
-  readonly t1: number;
-  readonly t2: number;
-  readonly t3: number;
-  readonly t4: number;
+  readonly n: Float64Array;
+  readonly a: Float64Array;
+  readonly t1: Float64Array;
+  readonly t2: Float64Array;
+  readonly t3: Float64Array;
+  readonly t4: Float64Array;
 }
 
-const _dot = (s: Series, p: _Prepared) => s[1] * p.t1 + s[2] * p.t2 + s[3] * p.t3 + s[4] * p.t4;
+/** Neumaier's compensated sum of the values of `add` calls, as [sum, compensation]. */
+function _neumaier(s: Float64Array, v: number): void {
+  const t = s[0] + v;
+  s[1] += Math.abs(s[0]) >= Math.abs(v) ? (s[0] - t) + v : (v - t) + s[0];
+  s[0] = t;
+}
 
 /**
  * The Box–Cox profile of the positive values summarised by `cells` (every
@@ -72,45 +80,53 @@ const _dot = (s: Series, p: _Prepared) => s[1] * p.t1 + s[2] * p.t2 + s[3] * p.t
  * cells, exactly), as the fitting code in `lib/reexpress` expects it.
  */
 export function cellBoxCoxProfile(cells: readonly Cell[], raw: Float64Array): _Profile {
-  // ū, with the log of each cell from its series ⟨g, T⟩.
-  const prep: _Prepared[] = [];
+  const m = cells.length;
+  const p: _Prepared = {
+    n: new Float64Array(m),
+    a: new Float64Array(m),
+    t1: new Float64Array(m),
+    t2: new Float64Array(m),
+    t3: new Float64Array(m),
+    t4: new Float64Array(m),
+  };
+  // ū, with the log of each cell's values from its series ⟨g, T⟩.
   let n = raw.length;
-  const sumLog = new _Sum();
-  for (const c of cells) {
+  const acc = new Float64Array(2);
+  for (let i = 0; i < m; i++) {
+    const c = cells[i];
     const inv = 1 / c.centre;
-    const [s1, s2, s3, s4] = c.s;
-    const p = {
-      n: c.n,
-      a: Math.log(c.centre),
-      t1: s1 * inv,
-      t2: s2 * inv * inv,
-      t3: s3 * inv * inv * inv,
-      t4: s4 * (inv * inv) * (inv * inv),
-    };
-    prep.push(p);
+    const inv2 = inv * inv;
+    p.n[i] = c.n;
+    p.a[i] = Math.log(c.centre);
+    p.t1[i] = c.s[0] * inv;
+    p.t2[i] = c.s[1] * inv2;
+    p.t3[i] = c.s[2] * inv2 * inv;
+    p.t4[i] = c.s[3] * inv2 * inv2;
     n += c.n;
-    sumLog.add(c.n * p.a);
-    sumLog.add(_dot(_G1, p));
+    _neumaier(acc, c.n * p.a[i]);
+    _neumaier(acc, _G1[1] * p.t1[i] + _G1[2] * p.t2[i] + _G1[3] * p.t3[i] + _G1[4] * p.t4[i]);
   }
   const logs = new Float64Array(raw.length);
   for (let i = 0; i < raw.length; i++) {
     logs[i] = Math.log(raw[i]);
-    sumLog.add(logs[i]);
+    _neumaier(acc, logs[i]);
   }
-  let mean = sumLog.value() / n;
+  let mean = (acc[0] + acc[1]) / n;
   // One correction round for ū, as `_centre` in lib/reexpress does.
-  const r = new _Sum();
-  for (const p of prep) r.add(p.n * (p.a - mean) + _dot(_G1, p));
-  for (let i = 0; i < logs.length; i++) r.add(logs[i] - mean);
-  mean += r.value() / n;
+  acc.fill(0);
+  for (let i = 0; i < m; i++) {
+    _neumaier(acc, p.n[i] * (p.a[i] - mean));
+    _neumaier(acc, _G1[1] * p.t1[i] + _G1[2] * p.t2[i] + _G1[3] * p.t3[i] + _G1[4] * p.t4[i]);
+  }
+  for (let i = 0; i < logs.length; i++) _neumaier(acc, logs[i] - mean);
+  mean += (acc[0] + acc[1]) / n;
   let aMin = Infinity;
   let aMax = -Infinity;
-  const cellA = prep.map((p) => {
-    const a = p.a - mean;
-    if (a < aMin) aMin = a;
-    if (a > aMax) aMax = a;
-    return { ...p, a };
-  });
+  for (let i = 0; i < m; i++) {
+    p.a[i] -= mean;
+    if (p.a[i] < aMin) aMin = p.a[i];
+    if (p.a[i] > aMax) aMax = p.a[i];
+  }
   for (let i = 0; i < logs.length; i++) {
     logs[i] -= mean;
     if (logs[i] < aMin) aMin = logs[i];
@@ -119,8 +135,8 @@ export function cellBoxCoxProfile(cells: readonly Cell[], raw: Float64Array): _P
   let count = 0;
   const at = (lambda: number, deriv: boolean): _ProfilePoint => {
     count++;
-    const p = _evaluate(cellA, logs, n, lambda, aMin, aMax, deriv);
-    return { h: p.h + 2 * mean, dh: p.dh };
+    const q = _evaluate(p, logs, n, lambda, aMin, aMax, deriv);
+    return { h: q.h + 2 * mean, dh: q.dh };
   };
   return {
     family: "Box–Cox",
@@ -135,7 +151,7 @@ export function cellBoxCoxProfile(cells: readonly Cell[], raw: Float64Array): _P
 const _SCALE_AT = 300;
 
 function _evaluate(
-  cells: readonly _Prepared[],
+  p: _Prepared,
   logs: Float64Array,
   n: number,
   lambda: number,
@@ -157,60 +173,81 @@ function _evaluate(
   const top = lam * (lam > 0 ? aMax : aMin);
   const K = top > _SCALE_AT ? top : 0;
   const eK = Math.exp(-K);
-  // Per value (or cell centre) a: E = e^{λa−K}, Z = (e^{λa} − 1)/λ·e^{−K}, D = a²φ(λa)·e^{−K}.
-  const parts = (a: number): [number, number, number] => {
-    if (tiny) return [1, a, 0.5 * a * a];
-    const t = lam * a;
-    if (K === 0) {
+  const m = p.n.length;
+  const E = new Float64Array(m + logs.length);
+  const Z = new Float64Array(m + logs.length);
+  const D = new Float64Array(m + logs.length);
+  // Per cell centre (then per raw value) a: E = e^{λa−K}, Z = expm1(λa)/λ·e^{−K},
+  // D = a²φ(λa)·e^{−K}.
+  for (let i = 0; i < E.length; i++) {
+    const a = i < m ? p.a[i] : logs[i - m];
+    if (tiny) {
+      E[i] = 1;
+      Z[i] = a;
+      D[i] = 0.5 * a * a;
+    } else if (K === 0) {
+      const t = lam * a;
       const u = _expm1(t);
-      return [u + 1, u / lam, a * a * _phi(t, u)];
+      E[i] = u + 1;
+      Z[i] = u / lam;
+      D[i] = a * a * _phi(t, u);
+    } else {
+      const t = lam * a;
+      const e = Math.exp(t - K);
+      E[i] = e;
+      Z[i] = (e - eK) / lam;
+      D[i] = (t * e - e + eK) / (lam * lam);
     }
-    const E = Math.exp(t - K);
-    return [E, (E - eK) / lam, (t * E - E + eK) / (lam * lam)];
-  };
+  }
+  const { n: cn, a: ca, t1, t2, t3, t4 } = p;
+  const [y1, y2, y3, y4] = [Y[1], Y[2], Y[3], Y[4]];
+  const [d1, d2, d3, d4] = [dY[1], dY[2], dY[3], dY[4]];
   // Round 1: the means of z and ∂z/∂λ.
-  const sz = new _Sum();
-  const sd = new _Sum();
-  for (const p of cells) {
-    const [E, Z, D] = parts(p.a);
-    sz.add(p.n * Z + E * _dot(Y, p));
-    if (deriv) sd.add(p.n * D + E * (p.a * _dot(Y, p) + _dot(dY, p)));
-  }
-  for (let i = 0; i < logs.length; i++) {
-    const [, Z, D] = parts(logs[i]);
-    sz.add(Z);
-    if (deriv) sd.add(D);
-  }
-  const mz = sz.value() / n;
-  const md = sd.value() / n;
-  // Round 2: sums about the means.
-  const s1 = new _Sum();
-  const s2 = new _Sum();
-  const sc = new _Sum();
-  for (const p of cells) {
-    const [E, Z, D] = parts(p.a);
-    const W0 = Z - mz;
-    const y = _dot(Y, p);
-    const yy = _dot(YY, p);
-    s1.add(p.n * W0 + E * y);
-    s2.add(p.n * W0 * W0 + 2 * W0 * E * y + E * E * yy);
+  const sz = new Float64Array(2);
+  const sd = new Float64Array(2);
+  for (let i = 0; i < m; i++) {
+    const y = y1 * t1[i] + y2 * t2[i] + y3 * t3[i] + y4 * t4[i];
+    _neumaier(sz, cn[i] * Z[i] + E[i] * y);
     if (deriv) {
-      const D0 = D - md;
-      const dy = _dot(dY, p);
-      sc.add(
-        p.n * W0 * D0 + W0 * E * (p.a * y + dy) + E * D0 * y + E * E * (p.a * yy + _dot(YdY, p)),
+      const dy = d1 * t1[i] + d2 * t2[i] + d3 * t3[i] + d4 * t4[i];
+      _neumaier(sd, cn[i] * D[i] + E[i] * (ca[i] * y + dy));
+    }
+  }
+  for (let i = m; i < E.length; i++) {
+    _neumaier(sz, Z[i]);
+    if (deriv) _neumaier(sd, D[i]);
+  }
+  const mz = (sz[0] + sz[1]) / n;
+  const md = (sd[0] + sd[1]) / n;
+  // Round 2: sums about the means.
+  const s1 = new Float64Array(2);
+  const s2 = new Float64Array(2);
+  const sc = new Float64Array(2);
+  for (let i = 0; i < m; i++) {
+    const e = E[i];
+    const w0 = Z[i] - mz;
+    const y = y1 * t1[i] + y2 * t2[i] + y3 * t3[i] + y4 * t4[i];
+    const yy = YY[1] * t1[i] + YY[2] * t2[i] + YY[3] * t3[i] + YY[4] * t4[i];
+    _neumaier(s1, cn[i] * w0 + e * y);
+    _neumaier(s2, cn[i] * w0 * w0 + 2 * w0 * e * y + e * e * yy);
+    if (deriv) {
+      const d0 = D[i] - md;
+      const dy = d1 * t1[i] + d2 * t2[i] + d3 * t3[i] + d4 * t4[i];
+      const ydy = YdY[1] * t1[i] + YdY[2] * t2[i] + YdY[3] * t3[i] + YdY[4] * t4[i];
+      _neumaier(
+        sc,
+        cn[i] * w0 * d0 + w0 * e * (ca[i] * y + dy) + e * d0 * y + e * e * (ca[i] * yy + ydy),
       );
     }
   }
-  for (let i = 0; i < logs.length; i++) {
-    const [, Z, D] = parts(logs[i]);
-    const W0 = Z - mz;
-    s1.add(W0);
-    s2.add(W0 * W0);
-    if (deriv) sc.add(W0 * (D - md));
+  for (let i = m; i < E.length; i++) {
+    const w0 = Z[i] - mz;
+    _neumaier(s1, w0);
+    _neumaier(s2, w0 * w0);
+    if (deriv) _neumaier(sc, w0 * (D[i] - md));
   }
-  const c1 = s1.value();
-  const v = (s2.value() - (c1 * c1) / n) / n;
+  const c1 = s1[0] + s1[1];
+  const v = (s2[0] + s2[1] - (c1 * c1) / n) / n;
   const h = Math.log(v) + 2 * K;
-  return { h, dh: deriv ? (2 * sc.value()) / n / v : NaN };
+  return { h, dh: deriv ? (2 * (sc[0] + sc[1])) / n / v : NaN };
 }

@@ -8,7 +8,7 @@
 import type { ScanProgress } from "./engine.ts";
 
 interface _Jupyter {
-  broadcast(type: string, content: Record<string, unknown>): Promise<void>;
+  broadcast(type: string, content: Record<string, unknown>): Promise<void> | void;
 }
 
 function _line(p: ScanProgress): string {
@@ -27,11 +27,18 @@ export function _progressReporter(): ((p: ScanProgress) => void) | undefined {
     return (p) => {
       const type = shown ? "update_display_data" : "display_data";
       shown = true;
-      jupyter.broadcast(type, {
-        data: { "text/plain": _line(p) },
-        metadata: {},
-        transient: { display_id: id },
-      }).catch(() => {});
+      try {
+        // broadcast may return a promise or nothing, depending on the kernel's version
+        Promise.resolve(
+          jupyter.broadcast(type, {
+            data: { "text/plain": _line(p) },
+            metadata: {},
+            transient: { display_id: id },
+          }),
+        ).catch(() => {});
+      } catch {
+        // a progress line that cannot be shown must not stop the scan
+      }
     };
   }
   let terminal = false;

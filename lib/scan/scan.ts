@@ -11,7 +11,15 @@ import type { QqOptions } from "../stats/qq_data.ts";
 import { _Engine, type EngineOptions } from "./engine.ts";
 import { _progressReporter } from "./progress.ts";
 import { type ScanAnalysis, screenColumn } from "./screen.ts";
-import { countsSql, describeSql, DUCKDB, quoteText, textCellsSql, valueExpr } from "./sql.ts";
+import {
+  countsSql,
+  describeSql,
+  DUCKDB,
+  quickCountsSql,
+  quoteText,
+  textCellsSql,
+  valueExpr,
+} from "./sql.ts";
 import type { ColumnQuery } from "./select.ts";
 
 /** Options for {@linkcode scan}. */
@@ -145,11 +153,13 @@ export class ScanSource {
         );
       }
       const v = valueExpr(DUCKDB, name, textual, 1);
-      const [c] = await engine.rows(
-        countsSql(DUCKDB, this.#relation, name, v),
-        "counting",
-        subject,
-      );
+      // From the file's statistics when it can; a filtered pass when NaN or ±Infinity are present.
+      let [c] = textual
+        ? [[]]
+        : await engine.rows(quickCountsSql(this.#relation, name, v), "counting", subject);
+      if (textual || !(Number.isFinite(c[4]) && Number.isFinite(c[5]))) {
+        [c] = await engine.rows(countsSql(DUCKDB, this.#relation, name, v), "counting", subject);
+      }
       const [rows, present, numeric, nonFinite] = c as number[];
       const text = present - numeric;
       if (text > 0 && !o.dropText) {
@@ -170,7 +180,15 @@ export class ScanSource {
       const lo = c[4] as number;
       const hi = c[5] as number;
       _checkRange(subject, n, lo, hi);
-      const q: ColumnQuery = { engine, dialect: DUCKDB, relation: this.#relation, v, subject };
+      const keep = nonFinite > 0 ? "finite" : numeric < rows ? "present" : "all";
+      const q: ColumnQuery = {
+        engine,
+        dialect: DUCKDB,
+        relation: this.#relation,
+        v,
+        subject,
+        keep,
+      };
       const result = await screenColumn(
         q,
         { rows, missing: rows - present, text, nonFinite, n, lo, hi },

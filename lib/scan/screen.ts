@@ -23,10 +23,11 @@ import type { TestResult } from "../stats/result.ts";
 import { shapiroFrancia } from "../stats/shapiro_francia.ts";
 import { shapiroWilk } from "../stats/shapiro_wilk.ts";
 import { sortFloat64 } from "../numeric/sort.ts";
-import { cellShape } from "./cells.ts";
+import { cellShape, locateRanks } from "./cells.ts";
 import { cellBoxCoxProfile, seriesHolds } from "./log_profile.ts";
 import { type ColumnQuery, gather, summarise } from "./select.ts";
 import { histogramSql, sampleSql } from "./sql.ts";
+import type { Pass } from "./engine.ts";
 
 /** The sample the order-statistic tests used. */
 export interface ScanSample {
@@ -51,8 +52,10 @@ export interface ScanAnalysis extends Analysis {
     readonly text: number;
     readonly nonFinite: number;
   };
-  /** The queries run, in words, with their seconds. */
-  readonly passes: readonly { readonly step: string; readonly seconds: number }[];
+  /** Every query run, in order: what it computes, its SQL text and its seconds. */
+  readonly passes: readonly Pass[];
+  /** Seconds the Box–Cox fit took in JavaScript (NaN when not fitted). */
+  readonly fitSeconds: number;
 }
 
 /** Options of one screening. */
@@ -102,21 +105,11 @@ export async function screenColumn(
   options: ScreenOptions,
 ): Promise<ScanAnalysis> {
   const { n, lo, hi } = counts;
-  const times: { step: string; seconds: number }[] = [];
-  const timed = async <T>(step: string, f: () => Promise<T>): Promise<T> => {
-    const t0 = q.engine.elapsed();
-    const out = await f();
-    times.push({ step, seconds: +(q.engine.elapsed() - t0).toFixed(3) });
-    return out;
-  };
-  const sample = await timed(
-    "seeded sample",
-    () =>
-      q.engine.doubles(
-        sampleSql(q.dialect, q.relation, q.v, options.sampleSize, options.seed),
-        "drawing the seeded sample",
-        q.subject,
-      ),
+  let fitSeconds = NaN;
+  const sample = await q.engine.doubles(
+    sampleSql(q, options.sampleSize, options.seed),
+    "drawing the seeded sample",
+    q.subject,
   );
   const sorted = sortFloat64(sample);
   const maxPoints = options.qq.maxPoints ?? 800;
@@ -129,12 +122,24 @@ export async function screenColumn(
   });
   const ranks = [...new Set([...kept, ...quart])].sort((a, b) => a - b);
   const logs = options.boxCox && lo > 0;
-  const summary = await timed("cells", () => summarise(q, lo, hi, ranks, logs));
-  const got = await timed("order statistics", () => gather(q, summary, ranks, logs));
+  const summary = await summarise(q, lo, hi, ranks, logs);
+  const shape: _Shape = cellShape(summary.cells);
+  // The histogram's bins need the IQR, known exactly only after the gather;
+  // but the cells holding the quartile ranks bound it, and at large n the
+  // bin cap decides alone, so the bins are usually known now and counted in
+  // the same gather pass.
+  const places = locateRanks(summary.cells, quart);
+  const span = (j: number) => summary.cells[places[j].cell];
+  const iqrMin = span(2).lo - span(1).hi;
+  const iqrMax = span(3).hi - span(0).lo;
+  const layoutAt = (iqr: number) => _histogramLayout(n, lo, hi, shape.sd, {}, () => iqr);
+  const [wide, narrow] = [layoutAt(iqrMax), layoutAt(Math.max(iqrMin, 0))];
+  const known = iqrMin > 0 && wide.k === narrow.k && wide.rule === narrow.rule;
+  const edges = known ? wide.edges.slice(1, -1) : [];
+  const got = await gather(q, summary, ranks, logs, edges);
   const valueAt = new Map<number, number>();
   ranks.forEach((r, i) => valueAt.set(r, got.values[i]));
 
-  const shape: _Shape = cellShape(summary.cells);
   const m = _momentsOf(n, shape);
   const note = _sampleNote(sample.length, n);
   const sampled = (f: (x: Float64Array) => TestResult) => (): TestResult => {
@@ -163,14 +168,19 @@ export async function screenColumn(
     return h === Math.floor(h) ? a : a + (h - Math.floor(h)) * (b - a);
   };
   const layout = _histogramLayout(n, lo, hi, shape.sd, {}, () => q7(0.75) - q7(0.25));
-  const binRows = await timed("histogram", () =>
-    q.engine.rows(
-      histogramSql(q.dialect, q.relation, q.v, lo, layout.width, layout.k),
+  let binCounts: number[];
+  if (known) {
+    const below = [0, ...got.below, n];
+    binCounts = Array.from({ length: layout.k }, (_, j) => below[j + 1] - below[j]);
+  } else {
+    const binRows = await q.engine.rows(
+      histogramSql(q, lo, layout.width, layout.k),
       "counting the histogram",
       q.subject,
-    ));
-  const binCounts = new Array(layout.k).fill(0);
-  for (const [b, c] of binRows as [number, number][]) binCounts[b] = c;
+    );
+    binCounts = new Array(layout.k).fill(0);
+    for (const [b, c] of binRows as [number, number][]) binCounts[b] = c;
+  }
   const histogram = _histogramFinish(layout, binCounts, n, shape.mean, shape.sd);
 
   let boxCox: LambdaFit | { skipped: string };
@@ -181,8 +191,10 @@ export async function screenColumn(
         `(shift the data or use Yeo–Johnson)`,
     };
   } else {
+    const t0 = q.engine.elapsed();
     const profile = cellBoxCoxProfile(summary.cells.filter(seriesHolds), got.raw);
     boxCox = _fitLambda(profile, _boxCoxProfile(sorted), {}, "a Box–Cox fit");
+    fitSeconds = +(q.engine.elapsed() - t0).toFixed(3);
   }
   const k2 = tests[4].result as DagostinoPearsonResult | undefined;
   const reading = readShape({ n, moments: m, primary, dagostino: k2, qq, values: sorted });
@@ -212,6 +224,7 @@ export async function screenColumn(
       text: counts.text,
       nonFinite: counts.nonFinite,
     }),
-    passes: Object.freeze(times.map((t) => Object.freeze(t))),
+    passes: Object.freeze(q.engine.log()),
+    fitSeconds,
   });
 }

@@ -18,7 +18,8 @@
 import type { _Engine } from "./engine.ts";
 import { type Cell, gridFor, locateRanks } from "./cells.ts";
 import { seriesHolds } from "./log_profile.ts";
-import { type CellGrid, cellsSql, type Dialect, gatherSql, type ValueRange } from "./sql.ts";
+import { type CellGrid, cellsSql, gatherSql, probeSql, type Values } from "./sql.ts";
+import { sortFloat64 } from "../numeric/sort.ts";
 
 /** Cells per cell pass, about. */
 export const CELLS = 32768;
@@ -29,15 +30,13 @@ const RAW_MAX = 500_000;
 /** At most this many refining passes. */
 const REFINE_PASSES = 6;
 
-/** What a scan of one column reads from. */
-export interface ColumnQuery {
+/** What a scan of one column reads from, and the engine that reads it. */
+export interface ColumnQuery extends Values {
   readonly engine: _Engine;
-  readonly dialect: Dialect;
-  readonly relation: string;
-  /** The value expression (see `sql.ts`). */
-  readonly v: string;
   /** The source and column, in words, for messages. */
   readonly subject: string;
+  /** Limits on cell sizes (tests lower them to reach every path on small data). */
+  readonly limits?: { readonly pickMax: number; readonly rawMax: number };
 }
 
 /** The cells of a column after refinement, and the grids they come from. */
@@ -59,19 +58,42 @@ async function _cellPass(
   const grid: CellGrid = { a, b, lo, w };
   const g = grids.length;
   grids.push(grid);
-  const rows = await q.engine.rows(cellsSql(q.dialect, q.relation, q.v, grid), step, q.subject);
+  const rows = await q.engine.rows(cellsSql(q, grid, g === 0), step, q.subject);
   return rows.map((r) => {
     const key = r[0] as number;
+    // Bounds from the grid: floor((v − lo)/w) = key puts v in [lo + key·w, lo + (key + 1)·w)
+    // up to the rounding of v − lo, which the margin covers.
+    const left = lo + key * w;
+    const right = left + w;
+    const margin = 4 * Number.EPSILON * Math.max(Math.abs(left), Math.abs(right), Math.abs(lo));
     return Object.freeze({
       n: r[1] as number,
-      lo: r[2] as number,
-      hi: r[3] as number,
+      lo: Math.max(a, left - margin),
+      hi: Math.min(b, right + margin),
       centre: lo + (key + 0.5) * w,
-      s: Object.freeze([r[4], r[5], r[6], r[7]] as [number, number, number, number]),
+      s: Object.freeze([r[2], r[3], r[4], r[5]] as [number, number, number, number]),
       grid: g,
       key,
     });
   });
+}
+
+/** The smallest and largest value of some cells, by one filtered query. */
+async function _probe(
+  q: ColumnQuery,
+  grids: readonly CellGrid[],
+  cells: readonly Cell[],
+  which: readonly number[],
+): Promise<Map<number, [number, number]>> {
+  const ids = which.map((i) => ({ grid: cells[i].grid, key: cells[i].key }));
+  const rows = await q.engine.rows(
+    probeSql(q, grids, ids),
+    "finding crowded cells' ranges",
+    q.subject,
+  );
+  const out = new Map<number, [number, number]>();
+  for (const [id, lo, hi] of rows as [number, number, number][]) out.set(which[id], [lo, hi]);
+  return out;
 }
 
 /**
@@ -93,7 +115,10 @@ export async function summarise(
     const runs: [number, number][] = [];
     for (const p of locateRanks(cells, ranks)) {
       const c = cells[p.cell];
-      if (c.n > PICK_MAX && c.lo < c.hi && !runs.some(([i]) => i === p.cell)) {
+      if (
+        c.n > (q.limits?.pickMax ?? PICK_MAX) && c.value === undefined &&
+        !runs.some(([i]) => i === p.cell)
+      ) {
         runs.push([p.cell, p.cell]);
       }
     }
@@ -108,7 +133,7 @@ export async function summarise(
           count += c.n;
         }
       });
-      if (count > RAW_MAX) runs.push([first, last]);
+      if (count > (q.limits?.rawMax ?? RAW_MAX)) runs.push([first, last]);
     }
     if (runs.length === 0) break;
     runs.sort((x, y) => x[0] - y[0]);
@@ -118,12 +143,20 @@ export async function summarise(
       if (top && r[0] <= top[1] + 1) top[1] = Math.max(top[1], r[1]);
       else merged.push([r[0], r[1]]);
     }
+    // The exact ranges of the runs' end cells, so that a finer grid holds their values only.
+    const ends = await _probe(q, grids, cells, [...new Set(merged.flat())]);
+    passes++;
     const next: Cell[] = [];
     let at = 0;
     for (const [i, j] of merged) {
       next.push(...cells.slice(at, i));
-      next.push(...await _cellPass(q, grids, cells[i].lo, cells[j].hi, "splitting crowded cells"));
-      passes++;
+      const a = ends.get(i)![0];
+      const b = ends.get(j)![1];
+      if (i === j && a === b) next.push(Object.freeze({ ...cells[i], lo: a, hi: b, value: a }));
+      else {
+        next.push(...await _cellPass(q, grids, a, b, "splitting crowded cells"));
+        passes++;
+      }
       at = j + 1;
     }
     next.push(...cells.slice(at));
@@ -132,22 +165,27 @@ export async function summarise(
   return Object.freeze({ cells: Object.freeze(cells), grids: Object.freeze(grids), passes });
 }
 
-/** The values at the wanted ranks, and the raw values of the cells the log series cannot sum. */
+/** The values at the wanted ranks, the raw values the log series needs, and edge counts. */
 export interface Gathered {
   /** Value at each wanted rank, in the order asked. */
   readonly values: Float64Array;
-  /** The raw values of the unresolved cells (ascending). */
+  /** The raw values of the cells the log series cannot sum (any order). */
   readonly raw: Float64Array;
-  /** Whether a gather pass ran (false when every wanted cell was a single value). */
-  readonly ran: boolean;
+  /** For each edge asked for, how many values lie below it. */
+  readonly below: Float64Array;
 }
 
-/** Gather the order statistics at `ranks` (ascending, 1-based) and, when `logs`, the raw values. */
+/**
+ * Gather the order statistics at `ranks` (ascending, 1-based), the raw
+ * values of the cells the log series cannot sum (when `logs`), and the
+ * number of values below each of `edges` (ascending), in one pass.
+ */
 export async function gather(
   q: ColumnQuery,
   summary: CellSummary,
   ranks: readonly number[],
   logs: boolean,
+  edges: readonly number[],
 ): Promise<Gathered> {
   const { cells, grids } = summary;
   const places = locateRanks(cells, ranks);
@@ -155,59 +193,65 @@ export async function gather(
   const values = new Float64Array(ranks.length);
   places.forEach((p, k) => {
     const c = cells[p.cell];
-    if (c.lo === c.hi) values[k] = c.lo;
+    if (c.value !== undefined) values[k] = c.value;
     else chosen.add(p.cell);
   });
-  const raw: ValueRange[] = [];
-  if (logs) {
-    cells.forEach((c, i) => {
-      if (!seriesHolds(c)) {
-        chosen.add(i);
-        const top = raw[raw.length - 1];
-        if (top && i > 0 && !seriesHolds(cells[i - 1])) {
-          raw[raw.length - 1] = { lo: top.lo, hi: c.hi };
-        } else raw.push({ lo: c.lo, hi: c.hi });
-      }
-    });
-  }
-  if (chosen.size === 0) return Object.freeze({ values, raw: new Float64Array(0), ran: false });
-  // Rank within the selection = rank − values in unchosen cells below.
-  const order = [...chosen].sort((x, y) => x - y);
-  const offset = new Map<number, number>();
-  let skipped = 0;
-  let prev = 0;
-  for (const i of order) {
-    for (let j = prev; j < i; j++) skipped += cells[j].n;
-    offset.set(i, skipped);
-    prev = i + 1;
-  }
-  const wanted: number[] = [];
-  const slot = new Map<number, number[]>();
-  places.forEach((p, k) => {
-    const c = cells[p.cell];
-    if (c.lo === c.hi) return;
-    const r = ranks[k] - offset.get(p.cell)!;
-    if (!slot.has(r)) {
-      slot.set(r, []);
-      wanted.push(r);
+  const rawCells = logs ? cells.flatMap((c, i) => seriesHolds(c) ? [] : [i]) : [];
+  for (const i of rawCells) chosen.add(i);
+  // Edges: cells wholly below count in full; a cell that straddles an edge is read.
+  const below = new Float64Array(edges.length);
+  const straddle: { cell: number; edge: number; id: number }[] = [];
+  let i = 0;
+  let cum = 0;
+  edges.forEach((e, id) => {
+    while (i < cells.length && cells[i].hi < e) cum += cells[i++].n;
+    below[id] = cum;
+    if (i < cells.length && cells[i].lo < e) {
+      straddle.push({ cell: i, edge: e, id });
+      chosen.add(i);
     }
-    slot.get(r)!.push(k);
   });
-  const byGrid = new Map<number, number[]>();
-  for (const i of order) {
-    const c = cells[i];
-    if (!byGrid.has(c.grid)) byGrid.set(c.grid, []);
-    byGrid.get(c.grid)!.push(c.key);
+  if (chosen.size === 0) {
+    return Object.freeze({ values, raw: new Float64Array(0), below });
   }
-  const choices = [...byGrid].map(([g, keys]) => ({ grid: grids[g], keys }));
-  const sql = gatherSql(q.dialect, q.relation, q.v, choices, wanted, raw);
-  const rows = await q.engine.rows(sql, "gathering order statistics", q.subject);
-  const rawOut: number[] = [];
-  const inRaw = (v: number) => raw.some((r) => v >= r.lo && v <= r.hi);
-  for (const [r, v] of rows as [number, number][]) {
-    const ks = slot.get(r);
-    if (ks) { for (const k of ks) values[k] = v; }
-    if (logs && inRaw(v)) rawOut.push(v);
+  // The chosen cells' values, sorted, fall into one block per cell (cells are
+  // contiguous ranges), in the order of the cells.
+  const order = [...chosen].sort((x, y) => x - y);
+  const start = new Map<number, number>();
+  let total = 0;
+  for (const c of order) {
+    start.set(c, total);
+    total += cells[c].n;
   }
-  return Object.freeze({ values, raw: Float64Array.from(rawOut), ran: true });
+  const ids = order.map((c) => ({ grid: cells[c].grid, key: cells[c].key }));
+  const sel = sortFloat64(
+    await q.engine.doubles(
+      gatherSql(q, grids, ids),
+      "gathering order statistics",
+      q.subject,
+      total,
+    ),
+  );
+  places.forEach((p, k) => {
+    const c = p.cell;
+    if (cells[c].value === undefined) values[k] = sel[start.get(c)! + p.within - 1];
+  });
+  const raw = new Float64Array(rawCells.reduce((t, c) => t + cells[c].n, 0));
+  let at = 0;
+  for (const c of rawCells) {
+    raw.set(sel.subarray(start.get(c)!, start.get(c)! + cells[c].n), at);
+    at += cells[c].n;
+  }
+  for (const s of straddle) {
+    const from = start.get(s.cell)!;
+    let lo = from;
+    let hi = from + cells[s.cell].n;
+    while (lo < hi) {
+      const mid = (lo + hi) >>> 1;
+      if (sel[mid] < s.edge) lo = mid + 1;
+      else hi = mid;
+    }
+    below[s.id] += lo - from;
+  }
+  return Object.freeze({ values, raw, below });
 }

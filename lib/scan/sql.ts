@@ -100,6 +100,18 @@ export function countsSql(dialect: Dialect, relation: string, column: string, v:
     `FROM (SELECT ${quoteIdent(column)} AS c, ${v} AS v FROM ${relation}) AS s`;
 }
 
+/**
+ * Pass 0 without filters: rows, present cells, numbers and the range. On a
+ * Parquet file DuckDB answers it from the file's statistics without reading
+ * the data; when the range is finite there is no NaN or ±Infinity (NaN
+ * sorts above +Infinity in DuckDB), and {@linkcode countsSql} is not needed.
+ */
+export function quickCountsSql(relation: string, column: string, v: string): string {
+  return `SELECT CAST(count(*) AS DOUBLE) AS total, CAST(count(c) AS DOUBLE) AS present, ` +
+    `CAST(count(v) AS DOUBLE) AS numeric, 0.0 AS nonfinite, min(v) AS lo, max(v) AS hi ` +
+    `FROM (SELECT ${quoteIdent(column)} AS c, ${v} AS v FROM ${relation}) AS s`;
+}
+
 /** A few cells of a text column that are not numbers, for the error message. */
 export function textCellsSql(relation: string, column: string, v: string, limit: number): string {
   const c = quoteIdent(column);
@@ -107,21 +119,39 @@ export function textCellsSql(relation: string, column: string, v: string, limit:
     `WHERE ${c} IS NOT NULL AND ${v} IS NULL LIMIT ${limit}`;
 }
 
+/** The column analysed: where it comes from and which rows hold finite numbers. */
+export interface Values {
+  readonly dialect: Dialect;
+  /** The FROM-clause text. */
+  readonly relation: string;
+  /** The value expression (see {@linkcode valueExpr}). */
+  readonly v: string;
+  /**
+   * Which rows to drop: none (every value is a finite number), those with
+   * no value, or those whose value is not a finite number. The lighter the
+   * filter, the less each pass costs.
+   */
+  readonly keep: "all" | "present" | "finite";
+}
+
 /** The finite values of the column, as a relation with the one column `v`. */
-function _finiteValues(dialect: Dialect, relation: string, v: string, where = ""): string {
-  return `(SELECT v FROM (SELECT ${v} AS v FROM ${relation}) AS s0 ` +
-    `WHERE ${dialect.finite("v")}${where}) AS s1`;
+function _finiteValues(src: Values, where: string[] = []): string {
+  const cond = [
+    ...(src.keep === "all"
+      ? []
+      : [src.keep === "present" ? "v IS NOT NULL" : src.dialect.finite("v")]),
+    ...where,
+  ];
+  return `(SELECT v FROM (SELECT ${src.v} AS v FROM ${src.relation}) AS s0` +
+    `${cond.length ? ` WHERE ${cond.join(" AND ")}` : ""}) AS s1`;
 }
 
 /** The seeded sample of finite values. */
-export function sampleSql(
-  dialect: Dialect,
-  relation: string,
-  v: string,
-  size: number,
-  seed: number,
-): string {
-  return dialect.sample(_finiteValues(dialect, relation, v), size, seed);
+export function sampleSql(src: Values, size: number, seed: number): string {
+  // Sampling the source itself lets the engine draw while it reads.
+  return src.keep === "all"
+    ? `SELECT ${src.v} AS v FROM (${src.dialect.sample(src.relation, size, seed)}) AS s0`
+    : src.dialect.sample(_finiteValues(src), size, seed);
 }
 
 /** One grid of cells: values a ≤ v ≤ b in cells of width w from lo (w a power of two). */
@@ -134,62 +164,83 @@ export interface CellGrid {
 
 /**
  * The cell pass: per cell k = ⌊(v − lo)/w⌋ of the values in [a, b], the
- * count, the smallest and largest value, and the sums of e, e², e³, e⁴ with
+ * count and the sums of e, e², e³, e⁴ with
  * e = v − (lo + (k + ½)·w), the offset from the cell's centre (exact: lo is
  * a multiple of the power of two w). Centring each cell keeps every sum
- * small, so plain sums lose nothing that matters (see `cells.ts`).
+ * small, so plain sums lose nothing that matters (see `cells.ts`). `whole`:
+ * the grid spans every value, so the range test is left out.
  */
-export function cellsSql(dialect: Dialect, relation: string, v: string, grid: CellGrid): string {
+export function cellsSql(src: Values, grid: CellGrid, whole: boolean): string {
   const { a, b, lo, w } = grid;
-  const rel = _finiteValues(dialect, relation, v, ` AND v >= ${num(a)} AND v <= ${num(b)}`);
+  const rel = _finiteValues(src, whole ? [] : [`v >= ${num(a)}`, `v <= ${num(b)}`]);
   const keyed = `(SELECT v, floor((v - ${num(lo)}) / ${num(w)}) AS k FROM ${rel}) AS s2`;
   const centred = `(SELECT k, v, v - (${num(lo)} + (k + 0.5) * ${
     num(w)
   }) AS e FROM ${keyed}) AS s3`;
   const powers = `(SELECT k, v, e, e * e AS e2 FROM ${centred}) AS s4`;
-  return `SELECT k, CAST(count(*) AS DOUBLE) AS n, min(v) AS lo, max(v) AS hi, ` +
+  return `SELECT k, CAST(count(*) AS DOUBLE) AS n, ` +
     `sum(e) AS s1, sum(e2) AS s2, sum(e2 * e) AS s3, sum(e2 * e2) AS s4 ` +
     `FROM ${powers} GROUP BY k ORDER BY k`;
 }
 
-/** A closed range of values [lo, hi]. */
-export interface ValueRange {
-  readonly lo: number;
-  readonly hi: number;
-}
-
-/** Some cells of one grid, by key. */
-export interface CellChoice {
-  readonly grid: CellGrid;
-  readonly keys: readonly number[];
+/** A cell of one grid: the grid's index and the cell's key. */
+export interface CellId {
+  readonly grid: number;
+  readonly key: number;
 }
 
 /**
- * The gather pass: the values of the chosen cells only (a filter on the
- * cell key, so the full scan does no more than the cell pass did), sorted
- * once by a window `row_number()`; returned are the values at the wanted
- * ranks within that selection, and every value inside the `raw` ranges.
- * Rows: (rank within the selection, v).
+ * The gather pass: the values of the chosen cells only (a filter on each
+ * grid's cell key, so the scan does little more than read). They are few
+ * (the cells that hold a wanted rank, an edge of the histogram, or values
+ * the log series cannot sum), and are sorted where they arrive: the cells
+ * are contiguous ranges of values whose counts are known, so the sorted
+ * values fall into one block per cell, and every order statistic, edge
+ * count and raw value is read off those blocks. No window function is needed.
  */
 export function gatherSql(
-  dialect: Dialect,
-  relation: string,
-  v: string,
-  chosen: readonly CellChoice[],
-  wanted: readonly number[],
-  raw: readonly ValueRange[],
+  src: Values,
+  grids: readonly CellGrid[],
+  cells: readonly CellId[],
 ): string {
-  const filter = chosen.map(({ grid, keys }) =>
-    `(v >= ${num(grid.a)} AND v <= ${num(grid.b)} AND ` +
-    `floor((v - ${num(grid.lo)}) / ${num(grid.w)}) IN (${keys.join(", ")}))`
-  ).join(" OR ");
-  const sel = _finiteValues(dialect, relation, v, ` AND (${filter})`);
-  const keep = [
-    ...(wanted.length > 0 ? [`r IN (${wanted.join(", ")})`] : []),
-    ...raw.map((r) => `(v >= ${num(r.lo)} AND v <= ${num(r.hi)})`),
-  ];
-  return `SELECT CAST(r AS DOUBLE) AS r, v FROM (SELECT v, row_number() OVER (ORDER BY v) AS r ` +
-    `FROM ${sel}) AS ranked WHERE ${keep.join(" OR ")} ORDER BY r`;
+  return `SELECT v FROM (${_chosenCells(src, grids, cells)}) AS sel`;
+}
+
+/**
+ * The values of some cells, with their grid g and key k: a filter on each
+ * grid's key, so that a full scan does little more than read.
+ */
+function _chosenCells(src: Values, grids: readonly CellGrid[], cells: readonly CellId[]): string {
+  const keyOf = (g: CellGrid) => `floor((v - ${num(g.lo)}) / ${num(g.w)})`;
+  // A value's grid: the last (finest) grid whose range holds it.
+  const gridCase = grids.length === 1
+    ? "0"
+    : `CASE ${
+      grids.map((g, i) => ({ g, i })).slice(1).reverse()
+        .map(({ g, i }) => `WHEN v >= ${num(g.a)} AND v <= ${num(g.b)} THEN ${i}`).join(" ")
+    } ELSE 0 END`;
+  const keyCase = grids.length === 1
+    ? keyOf(grids[0])
+    : `CASE g ${grids.map((g, i) => `WHEN ${i} THEN ${keyOf(g)}`).join(" ")} END`;
+  const filter = grids.map((_, i) => ({ i, keys: cells.filter((c) => c.grid === i) }))
+    .filter((x) => x.keys.length > 0)
+    .map(({ i, keys }) => `(g = ${i} AND k IN (${keys.map((c) => c.key).join(", ")}))`)
+    .join(" OR ");
+  const keyed = `(SELECT v, g, ${keyCase} AS k FROM (SELECT v, ${gridCase} AS g FROM ` +
+    `${_finiteValues(src)}) AS s2) AS s3`;
+  return `SELECT v, g, k FROM ${keyed} WHERE ${filter}`;
+}
+
+/** The smallest and largest value of each of some cells. Rows: (position in `cells`, min, max). */
+export function probeSql(
+  src: Values,
+  grids: readonly CellGrid[],
+  cells: readonly CellId[],
+): string {
+  const ids = cells.map((c, i) => `(${i}, ${c.grid}, ${c.key})`).join(", ");
+  return `SELECT CAST(w.id AS DOUBLE) AS id, min(sel.v) AS lo, max(sel.v) AS hi FROM ` +
+    `(${_chosenCells(src, grids, cells)}) AS sel JOIN (VALUES ${ids}) AS w(id, g, k) ` +
+    `ON sel.g = w.g AND sel.k = w.k GROUP BY w.id`;
 }
 
 /**
@@ -200,9 +251,7 @@ export function gatherSql(
  * Rows: (bin, count).
  */
 export function histogramSql(
-  dialect: Dialect,
-  relation: string,
-  v: string,
+  src: Values,
   lo: number,
   width: number,
   bins: number,
@@ -213,6 +262,6 @@ export function histogramSql(
   const bin = `CASE WHEN b0 > 0 AND v < ${L} + b0 * ${W} THEN b0 - 1 ` +
     `WHEN b0 < ${bins - 1} AND v >= ${L} + (b0 + 1) * ${W} THEN b0 + 1 ELSE b0 END`;
   return `SELECT bin, CAST(count(*) AS DOUBLE) AS n FROM (SELECT ${bin} AS bin FROM ` +
-    `(SELECT v, ${guess} AS b0 FROM ${_finiteValues(dialect, relation, v)}) AS h0) AS h1 ` +
+    `(SELECT v, ${guess} AS b0 FROM ${_finiteValues(src)}) AS h0) AS h1 ` +
     `GROUP BY bin ORDER BY bin`;
 }
