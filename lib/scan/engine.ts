@@ -5,7 +5,7 @@
  *
  * @module
  */
-import { type DuckDBConnection, DuckDBInstance } from "../_deps/duckdb.ts";
+import { type DuckDBConnection, type DuckDBInstance, loadDuckDB } from "../_deps/duckdb.ts";
 import { PlumbError } from "../errors.ts";
 
 /** Where a scan stands, handed to a progress callback. */
@@ -81,7 +81,17 @@ export class _Engine {
   static async open(options: EngineOptions = {}): Promise<_Engine> {
     const config: Record<string, string> = { memory_limit: options.memoryLimit ?? "500MB" };
     if (options.threads !== undefined) config.threads = String(options.threads);
-    const instance = await DuckDBInstance.create(":memory:", config);
+    let duckdb: Awaited<ReturnType<typeof loadDuckDB>>;
+    try {
+      duckdb = await loadDuckDB();
+    } catch (e) {
+      throw new PlumbError(
+        "unavailable",
+        `Cannot start DuckDB for a scan: ${e instanceof Error ? e.message : String(e)}; ` +
+          `run with --allow-ffi (or -A): DuckDB's native library ships in its npm package`,
+      );
+    }
+    const instance = await duckdb.DuckDBInstance.create(":memory:", config);
     const con = await instance.connect();
     // Progress is tracked only while the progress bar is on; it is never printed by DuckDB.
     await con.run("SET enable_progress_bar = true");

@@ -117,3 +117,27 @@ Deno.test("scan: progress is reported after the delay, ending with a done report
   assert.equal(seen[seen.length - 1].done, true);
   assert.ok(seen.every((p) => Number.isNaN(p.fraction) || (p.fraction >= 0 && p.fraction <= 1)));
 });
+
+Deno.test("scan: without --allow-ffi, importing works and a scan says what to grant", async () => {
+  const code = `import { scan, shapiroWilk } from ${
+    JSON.stringify(new URL("../../mod.ts", import.meta.url).href)
+  };
+console.log(shapiroWilk([1, 2, 3, 4.5, 7]).n);
+try { await scan("SELECT 1.0 * i AS x FROM range(10) t(i)", { progress: false }).analyse(); }
+catch (e) { console.log(e.code, e.message); }`;
+  const dir = await Deno.makeTempDir();
+  const file = `${dir}/screen.ts`;
+  await Deno.writeTextFile(file, code);
+  const out = await new Deno.Command(Deno.execPath(), {
+    args: ["run", "--allow-read", "--allow-env", file],
+    stdout: "piped",
+    stderr: "piped",
+  }).output();
+  await Deno.remove(dir, { recursive: true });
+  const text = new TextDecoder().decode(out.stdout);
+  assert.match(text, /^5\n/);
+  assert.match(
+    text,
+    /unavailable Cannot start DuckDB for a scan: .*; run with --allow-ffi \(or -A\)/,
+  );
+});
