@@ -184,6 +184,12 @@ export { censoredBackTransformMean } from "./lib/reexpress/censored_back_transfo
 export { normalHazard, normalLogCdf, normalLogSf } from "./lib/numeric/normal_log.ts";
 
 // Larger than memory
-export { scan, type ScanOptions, ScanSource } from "./lib/scan/scan.ts";
+export {
+  scan,
+  type ScanGroup,
+  type ScanGroups,
+  type ScanOptions,
+  ScanSource,
+} from "./lib/scan/scan.ts";
 export type { ScanAnalysis, ScanSample } from "./lib/scan/screen.ts";
 export type { ScanProgress } from "./lib/scan/engine.ts";

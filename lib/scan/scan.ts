@@ -7,20 +7,13 @@
  * @module
  */
 import { PlumbError } from "../errors.ts";
+import { holmAdjust } from "../stats/multiplicity.ts";
 import type { QqOptions } from "../stats/qq_data.ts";
 import { _Engine, type EngineOptions } from "./engine.ts";
 import { _progressReporter } from "./progress.ts";
-import { type ScanAnalysis, screenColumn } from "./screen.ts";
-import {
-  countsSql,
-  describeSql,
-  DUCKDB,
-  quickCountsSql,
-  quoteText,
-  textCellsSql,
-  valueExpr,
-} from "./sql.ts";
-import type { ColumnQuery } from "./select.ts";
+import type { ScanAnalysis } from "./screen.ts";
+import { _pick, _screen } from "./column.ts";
+import { describeSql, groupRelation, groupValuesSql, quoteText } from "./sql.ts";
 
 /** Options for {@linkcode scan}. */
 export interface ScanOptions extends Omit<EngineOptions, "onProgress"> {
@@ -59,9 +52,6 @@ export interface ScanOptions extends Omit<EngineOptions, "onProgress"> {
    */
   readonly progress?: boolean | EngineOptions["onProgress"];
 }
-
-const _NUMERIC =
-  /^(TINYINT|SMALLINT|INTEGER|BIGINT|HUGEINT|UTINYINT|USMALLINT|UINTEGER|UBIGINT|UHUGEINT|FLOAT|DOUBLE|REAL|DECIMAL.*)$/i;
 
 /** The FROM-clause text for a path or a query. */
 function _relation(pathOrSql: string): string {
@@ -129,132 +119,123 @@ export class ScanSource {
    * test, the QQ plot, the histogram, the Box–Cox λ and the reading.
    */
   async analyse(column?: string): Promise<ScanAnalysis> {
-    const o = this.#options;
-    const onProgress = o.progress === false
-      ? undefined
-      : typeof o.progress === "function"
-      ? o.progress
-      : _progressReporter();
-    const engine = await _Engine.open({ ...o, onProgress });
+    const engine = await this.#open();
     try {
-      const cols =
-        (await engine.rows(describeSql(this.#relation), "reading the columns", this.#what()))
-          .map((r) => ({ name: String(r[0]), type: String(r[1]) }));
+      const cols = await this.#columns(engine);
       const name = _pick(cols, column);
-      const subject = this.#what(name);
-      const type = cols.find((c) => c.name === name)!.type;
-      const textual = /^VARCHAR$/i.test(type);
-      if (!textual && !_NUMERIC.test(type)) {
-        throw new PlumbError(
-          "non-numeric",
-          `Cannot screen ${subject}: its type is ${type}, not a number; pick a numeric column ` +
-            `or convert it in an SQL query (e.g. SELECT CAST(x AS DOUBLE) AS x FROM …)`,
-          { type },
-        );
-      }
-      const v = valueExpr(DUCKDB, name, textual, 1);
-      // From the file's statistics when it can; a filtered pass when NaN or ±Infinity are present.
-      let [c] = textual
-        ? [[]]
-        : await engine.rows(quickCountsSql(this.#relation, name, v), "counting", subject);
-      if (textual || !(Number.isFinite(c[4]) && Number.isFinite(c[5]))) {
-        [c] = await engine.rows(countsSql(DUCKDB, this.#relation, name, v), "counting", subject);
-      }
-      const [rows, present, numeric, nonFinite] = c as number[];
-      const text = present - numeric;
-      if (text > 0 && !o.dropText) {
-        const shown = await engine.rows(
-          textCellsSql(this.#relation, name, v, 5),
-          "finding text",
-          subject,
-        );
-        throw new PlumbError(
-          "non-numeric",
-          `Cannot screen ${subject}: ${text} of ${present} cells are text, not numbers ` +
-            `(${shown.map((r) => JSON.stringify(r[0])).join(", ")}${text > 5 ? ", …" : ""}); ` +
-            `clean them, or pass { dropText: true } to leave them out (they are counted)`,
-          { text },
-        );
-      }
-      const n = numeric - nonFinite;
-      const lo = c[4] as number;
-      const hi = c[5] as number;
-      _checkRange(subject, n, lo, hi);
-      const keep = nonFinite > 0 ? "finite" : numeric < rows ? "present" : "all";
-      const q: ColumnQuery = {
-        engine,
-        dialect: DUCKDB,
-        relation: this.#relation,
-        v,
-        subject,
-        keep,
-      };
-      const result = await screenColumn(
-        q,
-        { rows, missing: rows - present, text, nonFinite, n, lo, hi },
-        { column: name, label: name },
-        {
-          sampleSize: o.sampleSize ?? 5000,
-          seed: o.seed ?? 1,
-          qq: o.qq ?? {},
-          boxCox: o.boxCox ?? true,
-        },
-      );
+      const result = await _screen(engine, this.#relation, cols, name, this.#options, {
+        subject: this.#what(name),
+        label: name,
+      });
       engine.finish();
       return result;
     } finally {
       engine.close();
     }
   }
+
+  /**
+   * Screen one numeric column within each group of another: one screening
+   * per group (each group's values are read through a filter on the group
+   * column, so the work grows with the number of groups), with Holm-adjusted
+   * Shapiro–Wilk p-values across the groups.
+   *
+   * @param column the numeric column
+   * @param group the column whose values define the groups (read as text; empty cells form their own group)
+   */
+  async analyseBy(column: string, group: string): Promise<ScanGroups> {
+    const engine = await this.#open();
+    try {
+      const cols = await this.#columns(engine);
+      const name = _pick(cols, column);
+      _pick(cols, group);
+      const values = await engine.rows(
+        groupValuesSql(this.#relation, group, _MAX_GROUPS + 1),
+        "listing the groups",
+        this.#what(group),
+      );
+      if (values.length > _MAX_GROUPS) {
+        throw new PlumbError(
+          "bad-option",
+          `Cannot screen ${this.#what(name)} by ${JSON.stringify(group)}: it has more than ` +
+            `${_MAX_GROUPS} groups, and each group costs one screening; filter or bin the groups ` +
+            `in an SQL query first`,
+        );
+      }
+      const out: ScanGroup[] = [];
+      for (const [v] of values) {
+        const value = v === null ? null : String(v);
+        const shown = value === null ? "(empty)" : value;
+        out.push({
+          value,
+          analysis: await _screen(
+            engine,
+            groupRelation(this.#relation, group, value),
+            cols,
+            name,
+            this.#options,
+            {
+              subject: `${this.#what(name)}, ${group} = ${shown}`,
+              label: `${name} | ${shown}`,
+              group: shown,
+            },
+          ),
+        });
+      }
+      engine.finish();
+      return _groups(name, group, out);
+    } finally {
+      engine.close();
+    }
+  }
+
+  #open(): Promise<_Engine> {
+    const o = this.#options;
+    const onProgress = o.progress === false
+      ? undefined
+      : typeof o.progress === "function"
+      ? o.progress
+      : _progressReporter();
+    return _Engine.open({ ...o, onProgress });
+  }
+
+  async #columns(engine: _Engine): Promise<{ name: string; type: string }[]> {
+    const rows = await engine.rows(
+      describeSql(this.#relation),
+      "reading the columns",
+      this.#what(),
+    );
+    return rows.map((r) => ({ name: String(r[0]), type: String(r[1]) }));
+  }
 }
 
-function _pick(cols: { name: string; type: string }[], column: string | undefined): string {
-  if (column !== undefined) {
-    if (cols.some((c) => c.name === column)) return column;
-    throw new PlumbError(
-      "unknown-column",
-      `No column named ${JSON.stringify(column)}: the source has ${
-        cols.map((c) => JSON.stringify(c.name)).join(", ")
-      }`,
-    );
-  }
-  const numeric = cols.filter((c) => _NUMERIC.test(c.type));
-  if (numeric.length === 1) return numeric[0].name;
-  throw new PlumbError(
-    "bad-option",
-    numeric.length === 0
-      ? "The source has no numeric column to screen"
-      : `The source has ${numeric.length} numeric columns (${
-        numeric.map((c) => c.name).join(", ")
-      }): name the one to screen, e.g. analyse("${numeric[0].name}")`,
-  );
+/** The most groups `analyseBy` screens. */
+const _MAX_GROUPS = 200;
+
+/** One group of {@linkcode ScanSource.analyseBy}. */
+export interface ScanGroup {
+  /** The group's value as text, or null for empty cells. */
+  readonly value: string | null;
+  /** The group's screening. */
+  readonly analysis: ScanAnalysis;
 }
 
-function _checkRange(subject: string, n: number, lo: number, hi: number): void {
-  if (n < 4) {
-    throw new PlumbError(
-      "too-few",
-      `Cannot screen ${subject}: it has ${n} finite number${
-        n === 1 ? "" : "s"
-      }; at least 4 are needed`,
-      { n, min: 4 },
-    );
-  }
-  if (lo === hi) {
-    throw new PlumbError(
-      "constant",
-      `Cannot screen ${subject}: all ${n} values are ${lo}; a sample with no spread has no shape to test`,
-      { value: lo },
-    );
-  }
-  const big = Math.max(Math.abs(lo), Math.abs(hi));
-  if (big > 2 ** 200 || hi - lo < 2 ** -200) {
-    throw new PlumbError(
-      "bad-option",
-      `Cannot screen ${subject} through SQL: its magnitudes (up to ${big}, spread ${hi - lo}) ` +
-        `would overflow fourth powers; rescale it in the query (e.g. SELECT x * 1e-100 AS x FROM …)`,
-    );
-  }
+/** The screening of a column within each group. */
+export interface ScanGroups {
+  readonly column: string;
+  readonly group: string;
+  /** The groups, in the order of their values. */
+  readonly groups: readonly ScanGroup[];
+  /** Holm-adjusted Shapiro–Wilk p-values, aligned with `groups`. */
+  readonly pAdjusted: readonly number[];
+  toJSON(): unknown;
+}
+
+function _groups(column: string, group: string, groups: ScanGroup[]): ScanGroups {
+  const pAdjusted = Object.freeze(holmAdjust(groups.map((g) => g.analysis.primary.pValue)));
+  const frozen = Object.freeze(groups.map((g) => Object.freeze(g)));
+  const data = { column, group, groups: frozen, pAdjusted };
+  return Object.freeze({ ...data, toJSON: () => data });
 }
 
 /**

@@ -101,7 +101,7 @@ function _sampleNote(size: number, n: number): string {
 export async function screenColumn(
   q: ColumnQuery,
   counts: ColumnCounts,
-  label: { column: string; label: string },
+  label: { column: string; label: string; group?: string },
   options: ScreenOptions,
 ): Promise<ScanAnalysis> {
   const { n, lo, hi } = counts;
@@ -202,6 +202,7 @@ export async function screenColumn(
     origin: Object.freeze({
       label: label.label,
       column: label.column,
+      ...(label.group === undefined ? {} : { group: label.group }),
       missingDropped: counts.missing,
       textDropped: counts.text,
     }),

@@ -112,6 +112,19 @@ export function quickCountsSql(relation: string, column: string, v: string): str
     `FROM (SELECT ${quoteIdent(column)} AS c, ${v} AS v FROM ${relation}) AS s`;
 }
 
+/** The distinct values of a group column, as text (NULL for empty cells), at most `limit`. */
+export function groupValuesSql(relation: string, group: string, limit: number): string {
+  return `SELECT DISTINCT CAST(${quoteIdent(group)} AS VARCHAR) AS g FROM ${relation} ` +
+    `ORDER BY g NULLS LAST LIMIT ${limit}`;
+}
+
+/** The rows of one group (its value as text, or null for empty cells) as a relation. */
+export function groupRelation(relation: string, group: string, value: string | null): string {
+  const g = `CAST(${quoteIdent(group)} AS VARCHAR)`;
+  const where = value === null ? `${g} IS NULL` : `${g} = ${quoteText(value)}`;
+  return `(SELECT * FROM ${relation} WHERE ${where}) AS grp`;
+}
+
 /** A few cells of a text column that are not numbers, for the error message. */
 export function textCellsSql(relation: string, column: string, v: string, limit: number): string {
   const c = quoteIdent(column);

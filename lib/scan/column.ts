@@ -1,0 +1,136 @@
+/**
+ * Screening one numeric column of a relation through the engine: its type,
+ * its counts (text cells, missing, NaN and ±Infinity), then the passes of
+ * `screen.ts`. Private to `lib/scan`.
+ *
+ * @module
+ */
+import { PlumbError } from "../errors.ts";
+import type { _Engine } from "./engine.ts";
+import type { ScanOptions } from "./scan.ts";
+import { type ScanAnalysis, screenColumn } from "./screen.ts";
+import type { ColumnQuery } from "./select.ts";
+import { countsSql, DUCKDB, quickCountsSql, textCellsSql, valueExpr } from "./sql.ts";
+
+export const _NUMERIC =
+  /^(TINYINT|SMALLINT|INTEGER|BIGINT|HUGEINT|UTINYINT|USMALLINT|UINTEGER|UBIGINT|UHUGEINT|FLOAT|DOUBLE|REAL|DECIMAL.*)$/i;
+
+/** Screen `name` of `relation` (its columns `cols` known) with one engine. */
+export async function _screen(
+  engine: _Engine,
+  relation: string,
+  cols: readonly { name: string; type: string }[],
+  name: string,
+  o: ScanOptions,
+  label: { subject: string; label: string; group?: string },
+): Promise<ScanAnalysis> {
+  const subject = label.subject;
+  const type = cols.find((c) => c.name === name)!.type;
+  const textual = /^VARCHAR$/i.test(type);
+  if (!textual && !_NUMERIC.test(type)) {
+    throw new PlumbError(
+      "non-numeric",
+      `Cannot screen ${subject}: its type is ${type}, not a number; pick a numeric column ` +
+        `or convert it in an SQL query (e.g. SELECT CAST(x AS DOUBLE) AS x FROM …)`,
+      { type },
+    );
+  }
+  const v = valueExpr(DUCKDB, name, textual, 1);
+  // From the file's statistics when it can; a filtered pass when NaN or ±Infinity are present.
+  let [c] = textual
+    ? [[]]
+    : await engine.rows(quickCountsSql(relation, name, v), "counting", subject);
+  if (textual || !(Number.isFinite(c[4]) && Number.isFinite(c[5]))) {
+    [c] = await engine.rows(countsSql(DUCKDB, relation, name, v), "counting", subject);
+  }
+  const [rows, present, numeric, nonFinite] = c as number[];
+  const text = present - numeric;
+  if (text > 0 && !o.dropText) {
+    const shown = await engine.rows(
+      textCellsSql(relation, name, v, 5),
+      "finding text",
+      subject,
+    );
+    throw new PlumbError(
+      "non-numeric",
+      `Cannot screen ${subject}: ${text} of ${present} cells are text, not numbers ` +
+        `(${shown.map((r) => JSON.stringify(r[0])).join(", ")}${text > 5 ? ", …" : ""}); ` +
+        `clean them, or pass { dropText: true } to leave them out (they are counted)`,
+      { text },
+    );
+  }
+  const n = numeric - nonFinite;
+  const lo = c[4] as number;
+  const hi = c[5] as number;
+  _checkRange(subject, n, lo, hi);
+  const keep = nonFinite > 0 ? "finite" : numeric < rows ? "present" : "all";
+  const q: ColumnQuery = {
+    engine,
+    dialect: DUCKDB,
+    relation,
+    v,
+    subject,
+    keep,
+  };
+  const result = await screenColumn(
+    q,
+    { rows, missing: rows - present, text, nonFinite, n, lo, hi },
+    { column: name, label: label.label, group: label.group },
+    {
+      sampleSize: o.sampleSize ?? 5000,
+      seed: o.seed ?? 1,
+      qq: o.qq ?? {},
+      boxCox: o.boxCox ?? true,
+    },
+  );
+  return result;
+}
+
+export function _pick(cols: { name: string; type: string }[], column: string | undefined): string {
+  if (column !== undefined) {
+    if (cols.some((c) => c.name === column)) return column;
+    throw new PlumbError(
+      "unknown-column",
+      `No column named ${JSON.stringify(column)}: the source has ${
+        cols.map((c) => JSON.stringify(c.name)).join(", ")
+      }`,
+    );
+  }
+  const numeric = cols.filter((c) => _NUMERIC.test(c.type));
+  if (numeric.length === 1) return numeric[0].name;
+  throw new PlumbError(
+    "bad-option",
+    numeric.length === 0
+      ? "The source has no numeric column to screen"
+      : `The source has ${numeric.length} numeric columns (${
+        numeric.map((c) => c.name).join(", ")
+      }): name the one to screen, e.g. analyse("${numeric[0].name}")`,
+  );
+}
+
+function _checkRange(subject: string, n: number, lo: number, hi: number): void {
+  if (n < 4) {
+    throw new PlumbError(
+      "too-few",
+      `Cannot screen ${subject}: it has ${n} finite number${
+        n === 1 ? "" : "s"
+      }; at least 4 are needed`,
+      { n, min: 4 },
+    );
+  }
+  if (lo === hi) {
+    throw new PlumbError(
+      "constant",
+      `Cannot screen ${subject}: all ${n} values are ${lo}; a sample with no spread has no shape to test`,
+      { value: lo },
+    );
+  }
+  const big = Math.max(Math.abs(lo), Math.abs(hi));
+  if (big > 2 ** 200 || hi - lo < 2 ** -200) {
+    throw new PlumbError(
+      "bad-option",
+      `Cannot screen ${subject} through SQL: its magnitudes (up to ${big}, spread ${hi - lo}) ` +
+        `would overflow fourth powers; rescale it in the query (e.g. SELECT x * 1e-100 AS x FROM …)`,
+    );
+  }
+}
