@@ -17,7 +17,7 @@
  *
  * @module
  */
-import type { _Shape } from "../stats/moments.ts";
+import { type _Shape, _shapeFromSums } from "../stats/moments.ts";
 
 /** One cell: its count, value range, centre and centred power sums. */
 export interface Cell {
@@ -79,25 +79,7 @@ export function cellShape(cells: readonly Cell[]): _Shape {
     m[2].add(k * d2 * d + 3 * d2 * s1 + 3 * d * s2 + s3);
     m[3].add(k * d2 * d2 + 4 * d2 * d * s1 + 6 * d2 * s2 + 4 * d * s3 + s4);
   }
-  const delta = m[0].value() / n;
-  const a2 = m[1].value() / n;
-  const a3 = m[2].value() / n;
-  const a4 = m[3].value() / n;
-  const dd = delta * delta;
-  const m2 = a2 - dd;
-  const m3 = a3 - 3 * delta * a2 + 2 * dd * delta;
-  const m4 = a4 - 4 * delta * a3 + 6 * dd * a2 - 3 * dd * dd;
-  const sd = Math.sqrt(m2 * n / (n - 1));
-  return {
-    mean: c0 + delta,
-    sd,
-    g1: m3 / (m2 * Math.sqrt(m2)),
-    g2: m4 / (m2 * m2) - 3,
-    scaleExp: 0,
-    centreHi: c0,
-    centreLo: delta,
-    sdScaled: sd,
-  };
+  return _shapeFromSums(n, c0, [m[0].value(), m[1].value(), m[2].value(), m[3].value()], 0);
 }
 
 /** Where a rank falls: the cell's index and the rank within the cell (1-based). */

@@ -52,6 +52,12 @@ export interface EngineOptions {
   readonly progressAfter?: number;
 }
 
+/** The part of a DuckDB data chunk read here. */
+interface _Chunk {
+  readonly rowCount: number;
+  getColumnVector(c: number): { getItem(r: number): unknown };
+}
+
 /** A query result as plain rows of plain values (numbers, strings, null). */
 export type Rows = (number | string | null)[][];
 
@@ -100,10 +106,16 @@ export class _Engine {
   }
 
   /**
-   * Run one statement and return its rows. `step` names the work for
-   * progress reports; `subject` and `advice` shape the error message.
+   * Run one statement (a materialised result: DuckDB's streaming mode costs
+   * several times the CPU here) and hand its chunks to `read`, with progress
+   * reports, cancellation, the statement log and DuckDB's errors mapped.
    */
-  async rows(sql: string, step: string, subject: string): Promise<Rows> {
+  async #run<T>(
+    sql: string,
+    step: string,
+    subject: string,
+    read: (result: { fetchChunk(): Promise<_Chunk | null>; columnCount: number }) => Promise<T>,
+  ): Promise<T> {
     const signal = this.#options.signal;
     if (signal?.aborted) throw _cancelled(subject);
     this.#lastStep = step;
@@ -112,7 +124,25 @@ export class _Engine {
     const timer = this.#options.onProgress ? setInterval(() => this.#report(step), 500) : undefined;
     const t0 = this.elapsed();
     try {
-      const result = await this.#con.run(sql);
+      const out = await read(await this.#con.run(sql));
+      this.#log.push(Object.freeze({ step, sql, seconds: +(this.elapsed() - t0).toFixed(3) }));
+      return out;
+    } catch (e) {
+      if (signal?.aborted) throw _cancelled(subject);
+      if (e instanceof PlumbError) throw e;
+      throw _queryError(e, subject);
+    } finally {
+      if (timer !== undefined) clearInterval(timer);
+      signal?.removeEventListener("abort", onAbort);
+    }
+  }
+
+  /**
+   * Run one statement and return its rows. `step` names the work for
+   * progress reports; `subject` names the source in error messages.
+   */
+  rows(sql: string, step: string, subject: string): Promise<Rows> {
+    return this.#run(sql, step, subject, async (result) => {
       const out: Rows = [];
       const width = result.columnCount;
       for (;;) {
@@ -125,39 +155,17 @@ export class _Engine {
           out.push(row);
         }
       }
-      this.#log.push(Object.freeze({ step, sql, seconds: +(this.elapsed() - t0).toFixed(3) }));
       return out;
-    } catch (e) {
-      if (signal?.aborted) throw _cancelled(subject);
-      throw _queryError(e, subject);
-    } finally {
-      if (timer !== undefined) clearInterval(timer);
-      signal?.removeEventListener("abort", onAbort);
-    }
+    });
   }
 
   /**
    * Run one statement whose single column is a double and return its values
-   * in a typed array, chunk by chunk. When
-   * `expected` is given, a different number of rows is an error (the source
-   * changed between passes).
+   * in a typed array. When `expected` is given, a different number of rows
+   * is an error (the source changed between passes).
    */
-  async doubles(
-    sql: string,
-    step: string,
-    subject: string,
-    expected?: number,
-  ): Promise<Float64Array> {
-    const signal = this.#options.signal;
-    if (signal?.aborted) throw _cancelled(subject);
-    this.#lastStep = step;
-    const onAbort = () => this.#con.interrupt();
-    signal?.addEventListener("abort", onAbort);
-    const timer = this.#options.onProgress ? setInterval(() => this.#report(step), 500) : undefined;
-    const t0 = this.elapsed();
-    try {
-      // A materialised result: DuckDB's streaming mode costs several times the CPU here.
-      const result = await this.#con.run(sql);
+  doubles(sql: string, step: string, subject: string, expected?: number): Promise<Float64Array> {
+    return this.#run(sql, step, subject, async (result) => {
       let out = new Float64Array(expected ?? 1024);
       let n = 0;
       let more = false;
@@ -182,20 +190,12 @@ export class _Engine {
           "query-failed",
           `Cannot scan ${subject}: a pass read ${
             more ? "more" : n
-          } values where the previous one counted ` +
-            `${expected}; the source changed during the scan, so run it again`,
+          } values where the previous one counted ${expected}; the source changed during the ` +
+            `scan, so run it again`,
         );
       }
-      this.#log.push(Object.freeze({ step, sql, seconds: +(this.elapsed() - t0).toFixed(3) }));
       return expected === undefined ? out.slice(0, n) : out;
-    } catch (e) {
-      if (signal?.aborted) throw _cancelled(subject);
-      if (e instanceof PlumbError) throw e;
-      throw _queryError(e, subject);
-    } finally {
-      if (timer !== undefined) clearInterval(timer);
-      signal?.removeEventListener("abort", onAbort);
-    }
+    });
   }
 
   /** Every statement run so far. */

@@ -105,10 +105,25 @@ export function _sampleShape(s: Float64Array, what: string): _Shape {
     e4 += s4 >= d4 ? (s4 - t) + d4 : (d4 - t) + s4;
     s4 = t;
   }
-  const delta = (s1 + e1) / n;
-  const a2 = (s2 + e2) / n;
-  const a3 = (s3 + e3) / n;
-  const a4 = (s4 + e4) / n;
+  return _shapeFromSums(n, c0, [s1 + e1, s2 + e2, s3 + e3, s4 + e4], k);
+}
+
+/**
+ * The {@linkcode _Shape} from the sums Σd, Σd², Σd³, Σd⁴ of the deviations
+ * d = u − c0 of n values u = x·2ᵏ about a centre c0 near their mean: the
+ * residual Σd/n (the rounding left in the centre) is folded back through
+ * the binomial expansion of the moments about the exact mean.
+ */
+export function _shapeFromSums(
+  n: number,
+  c0: number,
+  sums: readonly [number, number, number, number],
+  k: number,
+): _Shape {
+  const delta = sums[0] / n;
+  const a2 = sums[1] / n;
+  const a3 = sums[2] / n;
+  const a4 = sums[3] / n;
   const dd = delta * delta;
   const m2 = a2 - dd;
   const m3 = a3 - 3 * delta * a2 + 2 * dd * delta;
