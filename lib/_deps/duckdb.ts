@@ -11,5 +11,7 @@ export type { DuckDBConnection, DuckDBInstance } from "npm:@duckdb/node-api@1.5.
 
 /** The package, loaded once, on the first scan. */
 export function loadDuckDB(): Promise<typeof import("npm:@duckdb/node-api@1.5.6-r.1")> {
+  // The full specifier, as every file here uses, so that mod.ts works from any folder.
+  // deno-lint-ignore no-import-prefix
   return import("npm:@duckdb/node-api@1.5.6-r.1");
 }
