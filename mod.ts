@@ -192,4 +192,4 @@ export {
   ScanSource,
 } from "./lib/scan/scan.ts";
 export type { ScanAnalysis, ScanSample } from "./lib/scan/screen.ts";
-export type { ScanProgress } from "./lib/scan/engine.ts";
+export type { EngineOptions, Pass, ScanProgress } from "./lib/scan/engine.ts";

@@ -63,8 +63,11 @@ export type Rows = (number | string | null)[][];
 
 /** One statement run: what it computes, its SQL text and its seconds. */
 export interface Pass {
+  /** What the statement computes, in words. */
   readonly step: string;
+  /** The SQL text sent to the engine. */
   readonly sql: string;
+  /** Seconds it took, results read. */
   readonly seconds: number;
 }
 

@@ -222,12 +222,15 @@ export interface ScanGroup {
 
 /** The screening of a column within each group. */
 export interface ScanGroups {
+  /** The numeric column screened. */
   readonly column: string;
+  /** The column whose values define the groups. */
   readonly group: string;
   /** The groups, in the order of their values. */
   readonly groups: readonly ScanGroup[];
   /** Holm-adjusted Shapiro–Wilk p-values, aligned with `groups`. */
   readonly pAdjusted: readonly number[];
+  /** The plain data above, for JSON. */
   toJSON(): unknown;
 }
 
