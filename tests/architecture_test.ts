@@ -11,7 +11,16 @@ import assert from "node:assert/strict";
 const LIB = new URL("../lib/", import.meta.url);
 
 /** Layers from the bottom up: a module may import its own layer and those below it. */
-const LAYERS = ["numeric", "stats", "reexpress", "stakes", "render", "data", "plumb"] as const;
+const LAYERS = [
+  "numeric",
+  "stats",
+  "reexpress",
+  "stakes",
+  "render",
+  "data",
+  "plumb",
+  "scan",
+] as const;
 type Layer = (typeof LAYERS)[number];
 /** Modules every layer may import: errors, the result types and display protocol, packages. */
 const SHARED = ["errors", "results", "_deps"] as const;

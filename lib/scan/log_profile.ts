@@ -25,7 +25,8 @@
  * @module
  */
 import { _ZERO_LAMBDA } from "../reexpress/_checks.ts";
-import { _expm1, _phi, type _Profile, type _ProfilePoint } from "../reexpress/_profile.ts";
+import type { _Profile, _ProfilePoint } from "../reexpress/_profile.ts";
+import { _expm1, _phi } from "../reexpress/_profile_terms.ts";
 import type { Cell } from "./cells.ts";
 
 /** Largest |t| = |v − c|/c a cell may hold to be summed by its series. */

@@ -7,18 +7,19 @@
  * @module
  */
 import { PlumbError } from "../errors.ts";
-import type { Analysis, TestOutcome } from "../plumb/analysis.ts";
+import type { Analysis, Subsample, TestOutcome } from "../results/analysis.ts";
 import { readShape } from "../plumb/reading.ts";
 import { _fitLambda } from "../reexpress/_fit.ts";
 import { _boxCoxProfile } from "../reexpress/_profile.ts";
 import type { LambdaFit } from "../reexpress/lambda_fit.ts";
 import { andersonDarling } from "../stats/anderson_darling.ts";
 import { _dagostinoPearsonOf, type DagostinoPearsonResult } from "../stats/dagostino_pearson.ts";
-import { _histogramFinish, _histogramLayout } from "../stats/histogram_data.ts";
+import { _histogramFinish, _histogramLayout } from "../stats/histogram_layout.ts";
 import { _jarqueBeraOf } from "../stats/jarque_bera.ts";
 import { lilliefors } from "../stats/lilliefors.ts";
 import { _momentsOf, type _Shape } from "../stats/moments.ts";
-import { _keptRanks, _qqBuild, type QqOptions } from "../stats/qq_data.ts";
+import { _qqBuild, type QqOptions } from "../stats/qq_data.ts";
+import { thinRanks } from "../numeric/thin_ranks.ts";
 import type { TestResult } from "../stats/result.ts";
 import { shapiroFrancia } from "../stats/shapiro_francia.ts";
 import { shapiroWilk } from "../stats/shapiro_wilk.ts";
@@ -114,7 +115,7 @@ export async function screenColumn(
   const sorted = sortFloat64(sample);
   const maxPoints = options.qq.maxPoints ?? 800;
   const tailPoints = options.qq.tailPoints ?? 200;
-  const kept = _keptRanks(n, maxPoints, tailPoints);
+  const kept = thinRanks(n, maxPoints, tailPoints);
   // Ranks for the type-7 quartiles (Hyndman & Fan 1996), for the histogram's IQR.
   const quart = [0.25, 0.75].flatMap((p) => {
     const h = (n - 1) * p;
@@ -197,7 +198,19 @@ export async function screenColumn(
     fitSeconds = +(q.engine.elapsed() - t0).toFixed(3);
   }
   const k2 = tests[4].result as DagostinoPearsonResult | undefined;
-  const reading = readShape({ n, moments: m, primary, dagostino: k2, qq, values: sorted });
+  const subsample: Subsample | null = sample.length < n
+    ? Object.freeze({ size: sample.length, seed: options.seed })
+    : null;
+  const reading = readShape({
+    n,
+    moments: m,
+    primary,
+    dagostino: k2,
+    qq,
+    values: sorted,
+    sortedSample: sorted,
+    subsample,
+  });
   return Object.freeze({
     origin: Object.freeze({
       label: label.label,
@@ -209,6 +222,7 @@ export async function screenColumn(
     n,
     moments: m,
     primary,
+    subsample,
     tests: Object.freeze(tests),
     qq,
     histogram,
