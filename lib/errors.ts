@@ -45,7 +45,7 @@ export type PlumbErrorCode =
   | "overlapping-limits"
   /** A query the SQL engine could not run (its message follows). */
   | "query-failed"
-  /** Work stopped on request before it finished; nothing partial was kept. */
+  /** Work stopped on request before it finished (nothing partial was kept). */
   | "cancelled";
 
 /**
