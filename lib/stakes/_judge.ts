@@ -14,10 +14,15 @@
  *   and re-expressed fits differ by more than a factor of 2 (each counted
  *   from 1 per million), it is unclear: the data cannot tell which is right.
  * - Capability: it matters when the re-expressed or percentile-based Cpk lies
- *   outside the interval of the normal-theory Cpk.
- * - Mean: it matters when an end of the bootstrap interval differs from the
+ *   outside the interval of the normal-theory Cpk. With neither available,
+ *   it follows the central range's verdict (Cpk rests on the same tails),
+ *   except that a range that matters makes it unclear.
+ * - Mean: it matters when the bootstrap interval's centre is shifted from the
  *   t interval's by more than a tenth of the t half-width and by more than
- *   three times the bootstrap end's own resampling error.
+ *   three times a bootstrap end's own resampling error. Centres, not ends:
+ *   with few values every bootstrap interval is narrower than the t interval
+ *   (n-divisor spread, normal rather than t quantiles), which is no sign of
+ *   skewness; a shifted centre is.
  *
  * @module
  */
@@ -120,26 +125,31 @@ function _outside(o: OutsideFractions): QuantityJudgement {
   ]);
 }
 
-function _capability(c: CapabilityStakes): QuantityJudgement {
+function _capability(c: CapabilityStakes, range: QuantityJudgement): QuantityJudgement {
   const [lo, hi] = c.normal.cpkCi;
   const pct = `${+(c.normal.level * 100).toPrecision(6)}%`;
   const others: [string, number][] = [];
   if (c.reexpressed !== null) others.push(["re-expressed", c.reexpressed.cpk]);
   if (c.percentile.cpk !== null) others.push(["percentile-based", c.percentile.cpk]);
   if (others.length === 0) {
-    return _q("unclear", [
-      "No index that does not assume normality is available here " +
-      "(no re-expression, and too few values for the percentile-based one)",
-    ]);
+    const none = "No Cpk free of the normal model is available here (no re-expression was used, " +
+      "and a percentile-based index needs more values)";
+    return range.verdict === "matters"
+      ? _q("unclear", [`${none}, yet the central range shows the normal model misplacing a tail`])
+      : _q(range.verdict, [
+        `${none}; the central range shows ${
+          range.verdict === "negligible" ? "no" : "no clear"
+        } departure in the tails, on which Cpk rests`,
+      ]);
   }
   const out = others.filter(([, v]) => v < lo || v > hi);
   const text = (list: [string, number][]) =>
     list.map(([name, v]) => `the ${name} Cpk ${_g(v)}`).join(" and ");
-  const base = `the normal-theory Cpk ${_g(c.normal.cpk)} (${pct} interval ${_g(lo)} to ${_g(hi)})`;
-  if (out.length > 0) return _q("matters", [`${_cap(text(out))} lies outside ${base}`]);
-  return _q("negligible", [
-    `${_cap(text(others))} lie${others.length === 1 ? "s" : ""} inside ${base}`,
-  ]);
+  const base = `the ${pct} interval of the normal-theory Cpk ${_g(c.normal.cpk)} ` +
+    `(${_g(lo)} to ${_g(hi)})`;
+  const verb = (list: unknown[]) => (list.length === 1 ? "lies" : "lie");
+  if (out.length > 0) return _q("matters", [`${_cap(text(out))} ${verb(out)} outside ${base}`]);
+  return _q("negligible", [`${_cap(text(others))} ${verb(others)} inside ${base}`]);
 }
 
 function _cap(s: string): string {
@@ -157,17 +167,26 @@ function _mean(m: _Mean): QuantityJudgement {
   // resampling error of a bootstrap quantile: √(α(1 − α)/B)/φ(z_α) standard errors
   const se = half / m.tDetail.tQuantile;
   const mcse = Math.sqrt((alpha * (1 - alpha)) / m.bootstrapDetail.resamples) / normalPdf(z) * se;
-  const diff = Math.max(Math.abs(b0 - m.t[0]), Math.abs(b1 - m.t[1]));
+  // Compare centres, not ends: at small n every bootstrap interval is narrower
+  // than the t interval (it uses the n-divisor spread and no t quantile), which
+  // says nothing about the shape; a shifted centre is what skewness does.
+  const shift = (b0 + b1) / 2 - (m.t[0] + m.t[1]) / 2;
   const bar = Math.max(0.1 * half, 3 * mcse);
-  const share = `${_g((diff / half) * 100)}% of the t interval's half-width`;
-  if (diff > bar) {
+  const share = `${_g((Math.abs(shift) / half) * 100)}% of the t interval's half-width`;
+  if (Math.abs(shift) > bar) {
+    const dir = shift > 0 ? "above" : "below";
     return _q("matters", [
-      `The bootstrap interval's ends differ from the t interval's by up to ${share}: ` +
-      "the sample's skewness moves the mean's uncertainty to one side",
+      `The bootstrap interval is centred ${share} ${dir} the t interval's centre: the ` +
+      `sample's skewness moves the mean's uncertainty ${shift > 0 ? "upward" : "downward"}`,
     ]);
   }
+  const narrower = 1 - (b1 - b0) / (m.t[1] - m.t[0]);
   return _q("negligible", [
-    `The bootstrap and t intervals differ by at most ${share}`,
+    `The bootstrap and t intervals are centred within ${share} of each other` +
+    (narrower > 0.05
+      ? `; the bootstrap one is ${_g(narrower * 100)}% narrower, as bootstrap intervals tend ` +
+        "to be with few values"
+      : ""),
   ]);
 }
 
@@ -179,10 +198,11 @@ export function _judge(
   mean: _Mean,
   n: number,
 ): StakesJudgement {
+  const r = _range(range, n);
   const parts = {
-    range: _range(range, n),
+    range: r,
     outside: outside === null ? null : _outside(outside),
-    capability: capability === null ? null : _capability(capability),
+    capability: capability === null ? null : _capability(capability, r),
     mean: _mean(mean),
   };
   const all = Object.values(parts).filter((p) => p !== null).map((p) => p!.verdict);

@@ -57,6 +57,8 @@ export interface CentralRange {
   readonly flags: readonly RangeFlag[];
   /** About sample size and open ends. */
   readonly notes: readonly string[];
+  /** The data's quantiles at p = 0, 0.01, …, 1 (rank p(n + 1)), for drawing: 101 values at any n. */
+  readonly strip: readonly number[];
 }
 
 function _g(v: number): string {
@@ -154,5 +156,8 @@ export function _centralRange(
     ranksCiLevel: rankLevel,
     flags: Object.freeze(flags.map((f) => Object.freeze(f))),
     notes: Object.freeze(notes),
+    strip: Object.freeze(
+      Array.from({ length: 101 }, (_, i) => _rankQuantileSorted(sorted, i / 100)),
+    ),
   });
 }
