@@ -177,7 +177,8 @@ function _mean(m: _Mean): QuantityJudgement {
     const dir = shift > 0 ? "above" : "below";
     return _q("matters", [
       `The bootstrap interval is centred ${share} ${dir} the t interval's centre: the ` +
-      `sample's skewness moves the mean's uncertainty ${shift > 0 ? "upward" : "downward"}`,
+      `sample's skewness moves the mean's uncertainty ${shift > 0 ? "upward" : "downward"}, ` +
+      "so for a one-sided statement about the mean the bootstrap interval is the safer one",
     ]);
   }
   const narrower = 1 - (b1 - b0) / (m.t[1] - m.t[0]);
