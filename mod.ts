@@ -193,3 +193,44 @@ export {
 } from "./lib/scan/scan.ts";
 export type { ScanAnalysis, ScanSample } from "./lib/scan/screen.ts";
 export type { EngineOptions, Pass, ScanProgress } from "./lib/scan/engine.ts";
+
+// What the departure changes downstream
+export type { StakesView } from "./lib/plumb/stakes_view.ts";
+export {
+  type MeanStakes,
+  type Stakes,
+  stakes,
+  STAKES_CAUTION,
+  type StakesOptions,
+} from "./lib/stakes/stakes.ts";
+export {
+  type CentralRange,
+  type RangeFlag,
+  RANK_LIMITS_MIN_N,
+} from "./lib/stakes/central_range.ts";
+export type { CapabilityStakes, OutsideFractions } from "./lib/stakes/specification.ts";
+export type { QuantityJudgement, StakesJudgement, StakesVerdict } from "./lib/stakes/_judge.ts";
+export {
+  type Capability,
+  capabilityIndices,
+  type CapabilityOptions,
+} from "./lib/stats/capability.ts";
+export {
+  type PercentileCapability,
+  percentileCapability,
+} from "./lib/stats/percentile_capability.ts";
+export {
+  type BcaInterval,
+  bcaInterval,
+  bootstrapMean,
+  type BootstrapOptions,
+} from "./lib/stats/bootstrap_bca.ts";
+export { type MeanIntervalOptions, type TInterval, tInterval } from "./lib/stats/mean_interval.ts";
+export { clopperPearson, type ProportionIntervalOptions } from "./lib/stats/proportion_interval.ts";
+export {
+  type QuantileInterval,
+  quantileInterval,
+  type QuantileIntervalOptions,
+  type QuantileRanks,
+} from "./lib/stats/quantile_interval.ts";
+export { rankQuantile } from "./lib/stats/rank_quantile.ts";

@@ -12,7 +12,7 @@
 import type { Table } from "../data/table.ts";
 import { PlumbError } from "../errors.ts";
 import type { ReexpressionSearch } from "../reexpress/candidates.ts";
-import type { Reexpression } from "../reexpress/reexpression.ts";
+import { type Reexpression, reexpression } from "../reexpress/reexpression.ts";
 import { searchReexpressions } from "../reexpress/search.ts";
 import { cardBundle } from "../render/card.ts";
 import { type Chart, chart, chartBundle } from "../render/chart_bundle.ts";
@@ -20,7 +20,9 @@ import { histogramSpec } from "../render/histogram_spec.ts";
 import { detrendedSpec, qqSpec } from "../render/qq_spec.ts";
 import type { Analysis } from "../results/analysis.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
+import { checkOptions } from "../results/options.ts";
 import type { Reading } from "../results/reading.ts";
+import { stakes, STAKES_OPTIONS, type StakesOptions } from "../stakes/stakes.ts";
 import { histogramData, type HistogramOptions } from "../stats/histogram_data.ts";
 import { qqData, type QqOptions } from "../stats/qq_data.ts";
 import { refuseCensored } from "./_censored_guard.ts";
@@ -32,6 +34,7 @@ import { type CandidatesView, candidatesView, chosenStep } from "./reexpress_vie
 import { type Sentence, sentenceOf, type SentenceOptions, writeSentence } from "./sentence.ts";
 import { pickColumn, type PlumbSource, singleColumn, toTable } from "./source.ts";
 import { checkRequest, type ReexpressRequest, resolveStep, type Step } from "./steps.ts";
+import { type StakesView, stakesView } from "./stakes_view.ts";
 import { type TestsTable, testsView } from "./tests_view.ts";
 
 /** Options for {@linkcode plumb}. */
@@ -106,6 +109,7 @@ export class Plumb implements Displayable {
   #charts: { qq?: Chart; detrended?: Chart; histogram?: Chart } = {};
   #tests: TestsTable | undefined;
   #sentence: Sentence | undefined;
+  #stakes: StakesView | undefined;
   #card: Promise<MimeBundle> | undefined;
 
   /** @internal Use {@linkcode plumb}. */
@@ -311,6 +315,60 @@ export class Plumb implements Displayable {
     const make = () => sentenceOf(() => writeSentence(this.analysis(), options));
     if (Object.keys(options).length > 0) return make();
     return (this.#sentence ??= make());
+  }
+
+  /**
+   * What the departure from normality changes for the next step: the
+   * central range, the share outside specification limits and Cpk (when
+   * `lower` / `upper` are given) and the mean's interval, each computed the
+   * normal-theory way, on a re-expression mapped back to the original
+   * units, and without a model, with a verdict on whether the difference
+   * matters. Always in the variable's original units: after
+   * `.reexpress(...)` the chain's re-expression is the one used; otherwise
+   * the first of the ranked candidates (`reexpression: "none"` for none).
+   *
+   * @param options coverage (default 0.95), lower and upper limits, levels, bootstrap seed
+   */
+  stakes(options: StakesOptions = {}): StakesView {
+    const opts = checkOptions(options, STAKES_OPTIONS, ".stakes()");
+    if (this.#parent !== undefined && opts.reexpression !== undefined) {
+      throw new PlumbError(
+        "bad-option",
+        `Cannot use the reexpression option of .stakes() on ${this.label}: the chain's own ` +
+          "re-expression is used; call .stakes() on the chain plumb() made to choose another",
+        { reexpression: opts.reexpression },
+      );
+    }
+    const own = Object.keys(opts).length === 0;
+    if (own && this.#stakes) return this.#stakes;
+    const view = stakesView(
+      () =>
+        stakes(this.#origin().#load().values, { ...opts, reexpression: this.#stakesModel(opts) }),
+      () => this.#root.column,
+    );
+    if (own) this.#stakes = view;
+    return view;
+  }
+
+  /** The chain plumb() made, whose values are in original units. */
+  #origin(): Plumb {
+    return this.#parent === undefined ? this : this.#parent.#origin();
+  }
+
+  /** The re-expression behind the stakes' re-expressed figures. */
+  #stakesModel(opts: StakesOptions): StakesOptions["reexpression"] {
+    if (this.#parent === undefined) {
+      return opts.reexpression ?? this.#searched().chosen.reexpression;
+    }
+    const steps = this.steps;
+    if (steps.length > 1) {
+      throw new PlumbError(
+        "bad-option",
+        `Cannot compute the stakes of ${this.label}: it applies ${steps.length} re-expressions ` +
+          "in turn, and the stakes view maps back through one: call .stakes() after one .reexpress()",
+      );
+    }
+    return steps.length === 1 ? steps[0].reexpression : reexpression("identity");
   }
 
   /** The analysis as plain data, with the re-expressions applied. */

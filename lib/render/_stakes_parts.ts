@@ -6,7 +6,7 @@
  * @module
  */
 import type { StakesVerdict } from "../stakes/_judge.ts";
-import { roundSig } from "./format.ts";
+import { roundSig } from "../results/format.ts";
 import { PALETTE } from "./theme.ts";
 
 /** Words for the verdicts in panel titles. */

@@ -31,7 +31,7 @@ import {
   _VERDICT,
 } from "./_stakes_parts.ts";
 import { _capabilityPanel, _outsidePanel } from "./_stakes_limit_panels.ts";
-import { roundSig } from "./format.ts";
+import { roundSig } from "../results/format.ts";
 import { VEGALITE_SCHEMA } from "./qq_spec.ts";
 import { stakesNumber as _g } from "./stakes_words.ts";
 import { CHART_CONFIG, PALETTE } from "./theme.ts";

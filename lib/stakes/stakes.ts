@@ -16,6 +16,7 @@ import { _limitsOption } from "../stats/capability.ts";
 import { type TInterval, tInterval } from "../stats/mean_interval.ts";
 import { _sampleShape } from "../stats/moments.ts";
 import { _levelOption } from "../stats/quantile_interval.ts";
+import { checkOptions } from "../results/options.ts";
 import { _judge, type StakesJudgement } from "./_judge.ts";
 import { _stakesJSON } from "./_json.ts";
 import { type _ScaleModel, _scaleModel } from "./_model.ts";
@@ -114,6 +115,18 @@ export interface Stakes {
   toJSON(): Record<string, unknown>;
 }
 
+/** Every option {@linkcode stakes} knows, for the options check. */
+export const STAKES_OPTIONS: readonly string[] = Object.freeze([
+  "coverage",
+  "lower",
+  "upper",
+  "level",
+  "rankLevel",
+  "reexpression",
+  "resamples",
+  "seed",
+]);
+
 /** Bootstrap work budget: resamples × n. */
 const _BOOTSTRAP_BUDGET = 1e8;
 /** The fewest resamples the budget may leave. */
@@ -150,7 +163,13 @@ function _chooseModel(
       { reexpression: option },
     );
   }
-  if (r.kind === "identity") return { model: null, note: "The re-expression is the identity" };
+  if (r.kind === "identity") {
+    return {
+      model: null,
+      note:
+        "The re-expression chosen keeps the data as measured, so there are no re-expressed figures",
+    };
+  }
   const { model, note } = _scaleModel(v, r);
   return { model, note: note ?? `Re-expressed figures use ${r.label}` };
 }
@@ -173,6 +192,7 @@ function _chooseModel(
  */
 export function stakes(x: ArrayLike<number>, options: StakesOptions = {}): Stakes {
   const what = "the stakes view";
+  options = checkOptions(options, STAKES_OPTIONS, "stakes");
   const coverage = options.coverage ?? 0.95;
   if (typeof coverage !== "number" || !(coverage > 0 && coverage < 1)) {
     throw new PlumbError(
