@@ -71,6 +71,7 @@ export type { TestsTable } from "./lib/plumb/tests_view.ts";
 export type { CandidatesView } from "./lib/plumb/reexpress_view.ts";
 export { PlumbGroups } from "./lib/plumb/groups.ts";
 export type { GroupOptions, GroupResult, GroupRow } from "./lib/plumb/group_screen.ts";
+export type { ResidualRequest } from "./lib/plumb/residual_model.ts";
 export { Survey, survey } from "./lib/plumb/survey.ts";
 export type { SurveyOptions, SurveyResult, SurveyRow } from "./lib/plumb/survey_screen.ts";
 
@@ -114,6 +115,27 @@ export {
   histogramData,
   type HistogramOptions,
 } from "./lib/stats/histogram_data.ts";
+// Linear models and serial dependence
+export { fitLinearModel, type LinearModelOptions } from "./lib/stats/linear_model.ts";
+export type {
+  AliasedColumn,
+  Coefficient,
+  FitTerm,
+  LinearModelFit,
+} from "./lib/stats/linear_model_types.ts";
+export type { FactorValues, MissingCount, ModelTerms, Named } from "./lib/stats/model_design.ts";
+export {
+  type ResidualEnvelope,
+  residualEnvelope,
+  type ResidualEnvelopeOptions,
+} from "./lib/stats/residual_envelope.ts";
+export {
+  type SerialDependence,
+  serialDependence,
+  type SerialOptions,
+} from "./lib/stats/serial_dependence.ts";
+export { type LagOneOptions, type LagOneResult, lagOneTest } from "./lib/stats/lag_one.ts";
+export { type RunsResult, runsTest } from "./lib/stats/runs_test.ts";
 export { normalCdf, normalPdf, normalQuantile, normalSf } from "./lib/numeric/normal.ts";
 export { type RandomStream, randomSubsample, seededRandom } from "./lib/numeric/random.ts";
 

@@ -18,6 +18,11 @@ import type { TestResult } from "../stats/result.ts";
 import { SHAPIRO_WILK_MAX_N } from "../stats/shapiro_wilk.ts";
 import type { Analysis, SampleOrigin, Subsample, TestOutcome } from "../results/analysis.ts";
 import { readShape } from "./reading.ts";
+import { cardBundle } from "../render/card.ts";
+import { chartBundle } from "../render/chart_bundle.ts";
+import { histogramSpec } from "../render/histogram_spec.ts";
+import { qqSpec } from "../render/qq_spec.ts";
+import type { MimeBundle } from "../results/display.ts";
 
 /** Options for {@linkcode analyse}. */
 export interface AnalyseOptions {
@@ -31,6 +36,17 @@ export interface AnalyseOptions {
    * @default 1
    */
   readonly seed?: number;
+  /**
+   * An envelope to draw in place of the independent-sample one, in the
+   * values' own units, at the QQ plot's ranks (1-based): e.g. the simulated
+   * envelope of a model's studentised residuals.
+   * @default the envelope of `qq`
+   */
+  readonly envelope?: (ranks: readonly number[]) => {
+    readonly lower: readonly number[];
+    readonly upper: readonly number[];
+    readonly method: string;
+  };
 }
 
 /** The smallest sample plumbline analyses: moments need 4 values. */
@@ -122,7 +138,8 @@ export function analyse(
   const qqOptions: QqOptions = origin.rows
     ? { ...options.qq, rows: origin.rows }
     : { ...options.qq };
-  const qq = _qqDataSorted(values, sorted, shape, qqOptions);
+  const own = _qqDataSorted(values, sorted, shape, qqOptions);
+  const qq = options.envelope ? withEnvelope(own, options.envelope(own.rank)) : own;
   const histogram = _histogramDataSorted(values, sorted, shape);
   const k2 = tests.find((t) => t.test === "D'Agostino–Pearson")?.result as
     | DagostinoPearsonResult
@@ -137,6 +154,7 @@ export function analyse(
     values,
     subsample,
   });
+  const notes = origin.notes ?? [];
   return Object.freeze({
     origin: Object.freeze({ ...origin, rows: undefined }),
     n,
@@ -146,6 +164,71 @@ export function analyse(
     tests: Object.freeze(tests),
     qq,
     histogram,
-    reading,
+    reading: notes.length
+      ? Object.freeze({ ...reading, points: Object.freeze([...notes, ...reading.points]) })
+      : reading,
+  });
+}
+
+/**
+ * Refuse to screen fewer than {@linkcode ANALYSE_MIN_N} values, saying what
+ * was left out.
+ *
+ * @param label what is screened
+ * @param n values left
+ * @param missing missing cells left out
+ * @param text non-numeric cells left out
+ * @throws {PlumbError} always, `"too-few"`
+ */
+export function refuseTooFew(label: string, n: number, missing: number, text: number): never {
+  throw new PlumbError(
+    "too-few",
+    `Cannot screen ${label}: ${n} value${n === 1 ? "" : "s"} after leaving out ` +
+      `${missing} missing and ${text} non-numeric cells, and at least ${ANALYSE_MIN_N} are needed`,
+  );
+}
+
+/**
+ * The card of an analysis: its QQ plot and histogram rendered, then the
+ * card's bundle (`lib/render/card.ts`).
+ *
+ * @param a the analysis
+ * @param label the name the charts carry
+ */
+export async function cardOf(a: Analysis, label: string): Promise<MimeBundle> {
+  const [qq, hist] = await Promise.all([
+    chartBundle(qqSpec(a.qq, { name: label })),
+    chartBundle(histogramSpec(a.histogram, { name: label })),
+  ]);
+  return cardBundle(a, { qq: qq["text/html"] ?? "", histogram: hist["text/html"] ?? "" });
+}
+
+/**
+ * The QQ data with another envelope at the same ranks (e.g. the simulated
+ * envelope of studentised residuals), its exits counted again.
+ *
+ * @example
+ * ```ts
+ * import { withEnvelope } from "./analysis.ts";
+ * import { qqData } from "@plumbline/plumbline";
+ * const q = withEnvelope(qqData([1, 2, 3, 4, 9]), { lower: [0, 0, 0, 0, 0], upper: [5, 5, 5, 5, 5], method: "fixed" });
+ * if (q.outsideCount !== 1 || q.envelopeMethod !== "fixed") throw new Error("envelope");
+ * ```
+ */
+export function withEnvelope(
+  qq: Analysis["qq"],
+  env: { readonly lower: readonly number[]; readonly upper: readonly number[]; method: string },
+): Analysis["qq"] {
+  const outside = qq.value.map((v, k): -1 | 0 | 1 =>
+    v < env.lower[k] ? -1 : v > env.upper[k] ? 1 : 0
+  );
+  return Object.freeze({
+    ...qq,
+    envelope: "pointwise" as const,
+    envelopeMethod: env.method,
+    lower: Object.freeze([...env.lower]),
+    upper: Object.freeze([...env.upper]),
+    outside: Object.freeze(outside),
+    outsideCount: outside.filter((o) => o !== 0).length,
   });
 }

@@ -14,8 +14,7 @@ import { PlumbError } from "../errors.ts";
 import type { ReexpressionSearch } from "../reexpress/candidates.ts";
 import { type Reexpression, reexpression } from "../reexpress/reexpression.ts";
 import { searchReexpressions } from "../reexpress/search.ts";
-import { cardBundle } from "../render/card.ts";
-import { type Chart, chart, chartBundle } from "../render/chart_bundle.ts";
+import { type Chart, chart } from "../render/chart_bundle.ts";
 import { histogramSpec } from "../render/histogram_spec.ts";
 import { detrendedSpec, qqSpec } from "../render/qq_spec.ts";
 import type { Analysis } from "../results/analysis.ts";
@@ -26,14 +25,17 @@ import { stakes, STAKES_OPTIONS, type StakesOptions } from "../stakes/stakes.ts"
 import { histogramData, type HistogramOptions } from "../stats/histogram_data.ts";
 import { qqData, type QqOptions } from "../stats/qq_data.ts";
 import { refuseCensored } from "./_censored_guard.ts";
-import { analyse, ANALYSE_MIN_N } from "./analysis.ts";
+import { analyse, ANALYSE_MIN_N, cardOf, refuseTooFew, withEnvelope } from "./analysis.ts";
 import type { GroupOptions } from "./group_screen.ts";
 import { PlumbGroups } from "./groups.ts";
 import { lambdaExplorer } from "./lambda_view.ts";
 import { type CandidatesView, candidatesView, chosenStep } from "./reexpress_view.ts";
+import * as fitting from "./residual_link.ts";
+import type { LinearModelFit } from "../stats/linear_model.ts";
 import { type Sentence, sentenceOf, type SentenceOptions, writeSentence } from "./sentence.ts";
 import { pickColumn, type PlumbSource, singleColumn, toTable } from "./source.ts";
 import { checkRequest, type ReexpressRequest, resolveStep, type Step } from "./steps.ts";
+import { stepLabel, stepsData } from "./steps.ts";
 import { type StakesView, stakesView } from "./stakes_view.ts";
 import { type TestsTable, testsView } from "./tests_view.ts";
 
@@ -99,6 +101,7 @@ export class Plumb implements Displayable {
   readonly #root: _Root;
   readonly #parent: Plumb | undefined;
   readonly #request: ReexpressRequest | undefined;
+  readonly #model: fitting.ResidualLink | undefined;
   // Kept on first need; undefined means not yet computed.
   #step: Step | null | undefined;
   #loaded: _Loaded | undefined;
@@ -113,10 +116,11 @@ export class Plumb implements Displayable {
   #card: Promise<MimeBundle> | undefined;
 
   /** @internal Use {@linkcode plumb}. */
-  constructor(root: _Root, parent?: Plumb, request?: ReexpressRequest) {
+  constructor(root: _Root, parent?: Plumb, request?: ReexpressRequest | fitting.ResidualLink) {
     this.#root = root;
     this.#parent = parent;
-    this.#request = request;
+    this.#model = request instanceof fitting.ResidualLink ? request : undefined;
+    this.#request = request instanceof fitting.ResidualLink ? undefined : request;
     Object.freeze(this);
   }
 
@@ -131,6 +135,7 @@ export class Plumb implements Displayable {
    */
   get label(): string {
     if (this.#parent === undefined) return this.#root.column;
+    if (this.#model) return `studentised residuals of ${this.#fitted().formula}`;
     const step = this.#resolved();
     const label = this.#parent.label;
     return step === null ? label : step.formula.replace(/\bx\b/, () => label);
@@ -139,6 +144,7 @@ export class Plumb implements Displayable {
   /** The re-expressions applied so far, in order (resolved on first read). */
   get steps(): readonly Step[] {
     if (this.#parent === undefined) return [];
+    if (this.#model) return this.#parent.steps;
     const step = this.#resolved();
     return step === null ? this.#parent.steps : [...this.#parent.steps, step];
   }
@@ -146,14 +152,12 @@ export class Plumb implements Displayable {
   /** What this chain's `.reexpress()` request became, or `null` on the chain `plumb()` made. */
   get choice(): ReexpressionChoice | null {
     if (this.#parent === undefined || this.#request === undefined) return null;
-    const step = this.#resolved();
-    const reason = this.#request === "best"
-      ? this.#parent.#searched().reason
-      : step?.note ?? "as requested";
+    const step = this.#resolved(), request = this.#request;
+    const reason = request === "best" ? this.#parent.#searched().reason : step?.note;
     return Object.freeze({
-      request: this.#request,
-      reexpression: step === null ? null : step.reexpression,
-      reason,
+      request,
+      reexpression: step?.reexpression ?? null,
+      reason: reason ?? "as requested",
     });
   }
 
@@ -172,9 +176,18 @@ export class Plumb implements Displayable {
     return this.#step;
   }
 
+  #fitted(): fitting.ResidualValues {
+    return this.#model!.of(() => ({ ...this.#parent!.#load(), label: this.#parent!.label }));
+  }
+
+  /** A residual chain's envelope, simulated on its design (Atkinson 1981). */
+  #envelope = (level?: number) => fitting.envelopeOf(this.#fitted().fit, level);
+
   #load(): _Loaded {
     if (this.#loaded) return this.#loaded;
-    if (this.#parent === undefined) {
+    if (this.#model) {
+      this.#loaded = fitting.residualsLoaded(this.#parent!.#load(), this.#fitted());
+    } else if (this.#parent === undefined) {
       const { table, column, options } = this.#root;
       const col = table.numeric(column, { dropText: options.dropText ?? false });
       refuseCensored(col, column);
@@ -200,24 +213,22 @@ export class Plumb implements Displayable {
   analysis(): Analysis {
     if (this.#analysis) return this.#analysis;
     const { values, rows, missing, text } = this.#load();
-    if (values.length < ANALYSE_MIN_N) {
-      const n = values.length;
-      throw new PlumbError(
-        "too-few",
-        `Cannot screen ${this.label}: ${n} value${n === 1 ? "" : "s"} after leaving out ` +
-          `${missing} missing and ${text} non-numeric cells, and at least ${ANALYSE_MIN_N} are needed`,
-      );
-    }
+    if (values.length < ANALYSE_MIN_N) refuseTooFew(this.label, values.length, missing, text);
+    const model = this.#model ? this.#fitted() : undefined;
     this.#analysis = analyse(values, {
       label: this.label,
       column: this.#root.column,
-      transform: this.steps.length ? this.label : undefined,
+      transform: this.steps.length ? stepLabel(this.#root.column, this.steps) : undefined,
       missingDropped: missing,
       textDropped: text,
       // 1-based data rows; Int32Array.prototype.map, unlike Int32Array.from with a
       // mapping function, does not copy the input into a temporary list first.
       rows: rows.map((r) => r + 1),
-    }, { qq: this.#root.options.qq });
+      notes: model?.notes,
+    }, {
+      qq: this.#root.options.qq,
+      envelope: model && this.#envelope(this.#root.options.qq?.level),
+    });
     return this.#analysis;
   }
 
@@ -229,6 +240,7 @@ export class Plumb implements Displayable {
   /** The same variable (with its re-expressions) screened within each group of a column. */
   by(column: string, options: GroupOptions = {}): PlumbGroups {
     const { table, column: variable, options: own } = this.#root;
+    if (this.#model) fitting.refuseAfterResiduals(".by()");
     pickColumn(table, column);
     return new PlumbGroups({
       table,
@@ -246,8 +258,34 @@ export class Plumb implements Displayable {
    * which may be the data as they are; `.choice` says what was chosen and why.
    */
   reexpress(request: ReexpressRequest = "best"): Plumb {
+    if (this.#model) fitting.refuseAfterResiduals(".reexpress()");
     checkRequest(request);
     return new Plumb(this.#root, this, request);
+  }
+
+  /**
+   * A chain over the externally studentised residuals of a least-squares fit of these values on
+   * other columns (complete rows; `.values()` in their order; QQ envelope simulated on the design).
+   *
+   * @param request the covariates, factors and interactions, by column name
+   * @example
+   * ```ts
+   * import { plumb } from "@plumbline/plumbline";
+   * const t = { fill: [5.1, 7.2, 5.8, 9.1, 8.2, 11.3, 9.7, 13.1, 12.2, 14.8], temp: [1, 2, 3, 4, 5, 6, 7, 8, 9, 10] };
+   * const r = plumb(t, "fill").residuals({ covariates: ["temp"] }); // fill ~ temp
+   * if (r.values().length !== 10 || r.model().dfResidual !== 8) throw new Error("residuals");
+   * ```
+   */
+  residuals(request: fitting.ResidualRequest = {}): Plumb {
+    if (this.#model) fitting.refuseAfterResiduals(".residuals()");
+    const { table, column } = this.#root;
+    return new Plumb(this.#root, this, new fitting.ResidualLink(table, request, column));
+  }
+
+  /** The least-squares fit behind a chain made by `.residuals()`. */
+  model(): LinearModelFit {
+    if (!this.#model) fitting.refuseWithoutModel(this.label);
+    return this.#fitted().fit;
   }
 
   /** The ranked re-expression candidates, each re-tested: displayable and exportable. */
@@ -280,7 +318,8 @@ export class Plumb implements Displayable {
       if (own) return spec(this.analysis().qq);
       const { values, rows } = this.#load();
       const merged = { ...this.#root.options.qq, ...options, rows: rows.map((r) => r + 1) };
-      return spec(qqData(values, merged));
+      const q = qqData(values, merged); // a residual chain keeps its simulated envelope
+      return spec(this.#model ? withEnvelope(q, this.#envelope(merged.level)(q.rank)) : q);
     });
     if (own) this.#charts[kind] = c;
     return c;
@@ -330,6 +369,7 @@ export class Plumb implements Displayable {
    * @param options coverage (default 0.95), lower and upper limits, levels, bootstrap seed
    */
   stakes(options: StakesOptions = {}): StakesView {
+    if (this.#model) fitting.refuseAfterResiduals(".stakes()");
     const opts = checkOptions(options, STAKES_OPTIONS, ".stakes()");
     if (this.#parent !== undefined && opts.reexpression !== undefined) {
       throw new PlumbError(
@@ -373,27 +413,12 @@ export class Plumb implements Displayable {
 
   /** The analysis as plain data, with the re-expressions applied. */
   toJSON(): Analysis & { readonly steps: readonly Omit<Step, "apply">[] } {
-    return {
-      ...this.analysis(),
-      steps: this.steps.map((s) => ({
-        reexpression: s.reexpression,
-        formula: s.formula,
-        note: s.note,
-      })),
-    };
+    return { ...this.analysis(), steps: stepsData(this.steps) };
   }
 
   /** The card: label, counts, reading, QQ plot and histogram, tests, cautions. */
   [DISPLAY](): Promise<MimeBundle> {
-    this.#card ??= (async () => {
-      const a = this.analysis();
-      const [qq, hist] = await Promise.all([
-        chartBundle(qqSpec(a.qq, { name: this.label })),
-        chartBundle(histogramSpec(a.histogram, { name: this.label })),
-      ]);
-      return cardBundle(a, { qq: qq["text/html"] ?? "", histogram: hist["text/html"] ?? "" });
-    })();
-    return this.#card;
+    return (this.#card ??= cardOf(this.analysis(), this.label));
   }
 }
 

@@ -90,6 +90,7 @@ export function writeSentence(a: Analysis, options: SentenceOptions = {}): strin
     `${test}; skewness G1 = ${proseShape(m.G1)}, excess kurtosis G2 = ${proseShape(m.G2)}.`,
   );
   parts.push(`Reading: ${VERDICT_WORDS[reading.verdict]}.`);
+  for (const note of origin.notes ?? []) parts.push(`${note}.`);
   if (a.subsample) {
     parts.push(
       `W and p come from a seeded random subsample of ${a.subsample.size} values, the limit of Royston's calibration.`,

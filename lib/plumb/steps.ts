@@ -175,3 +175,16 @@ export function stepLabel(name: string, steps: readonly Step[]): string {
   for (const s of steps) label = s.formula.replace(/\bx\b/, () => label);
   return label;
 }
+
+/**
+ * Steps as plain data (without their functions), for `toJSON()`.
+ *
+ * @example
+ * ```ts
+ * import { resolveStep, stepsData } from "./steps.ts";
+ * if (stepsData([resolveStep("sqrt", new Float64Array([1, 4]))])[0].formula !== "√(x)") throw new Error("data");
+ * ```
+ */
+export function stepsData(steps: readonly Step[]): Omit<Step, "apply">[] {
+  return steps.map((s) => ({ reexpression: s.reexpression, formula: s.formula, note: s.note }));
+}

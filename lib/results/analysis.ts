@@ -37,6 +37,12 @@ export interface SampleOrigin {
   readonly textDropped: number;
   /** The source row (1-based data row) of each value, aligned with the values. */
   readonly rows?: ArrayLike<number>;
+  /**
+   * What the reading and the write-up must say about where these values came
+   * from (e.g. that they are a model's residuals, or serially dependent): one
+   * sentence each, without a final period. They lead the reading's points.
+   */
+  readonly notes?: readonly string[];
 }
 
 /** A seeded random subsample: how many values, drawn with which seed. */

@@ -32,8 +32,9 @@ export interface RunsResult {
   readonly n: number;
   /** The median the values were compared with. */
   readonly median: number;
-  /** Values above and below it (values equal to it are left out). */
+  /** Values above it (values equal to it are left out). */
   readonly above: number;
+  /** Values below it. */
   readonly below: number;
   /** Runs counted. */
   readonly runs: number;
