@@ -7,7 +7,7 @@
  */
 import { PlumbError } from "../errors.ts";
 import { randomSubsample } from "../numeric/random.ts";
-import { sortedCopy } from "../numeric/sort.ts";
+import { sortedCopy, sortFloat64 } from "../numeric/sort.ts";
 import { checkFinite, checkSize } from "../stats/_input.ts";
 import { NORMALITY_TESTS, type PreparedSample } from "../stats/battery.ts";
 import type { DagostinoPearsonResult } from "../stats/dagostino_pearson.ts";
@@ -47,6 +47,12 @@ export interface AnalyseOptions {
     readonly upper: readonly number[];
     readonly method: string;
   };
+  /**
+   * The measurement step of the data the values come from, when known
+   * (residuals inherit their data's step); `null` for none.
+   * @default found from the values
+   */
+  readonly step?: number | null;
 }
 
 /** The smallest sample plumbline analyses: moments need 4 values. */
@@ -116,9 +122,12 @@ export function analyse(
   const [first, ...others] = NORMALITY_TESTS;
   let primary: TestResult;
   let subsample: Subsample | null = null;
+  let subSorted: Float64Array | undefined;
   if (n > SHAPIRO_WILK_MAX_N) {
     subsample = Object.freeze({ size: SHAPIRO_WILK_MAX_N, seed: options.seed ?? 1 });
-    const sub = first.run(randomSubsample(values, subsample.size, subsample.seed));
+    // Sorted once here: the test runs on it, and so do the σ estimates behind W.
+    subSorted = sortFloat64(randomSubsample(values, subsample.size, subsample.seed));
+    const sub = first.run(subSorted);
     primary = Object.freeze({
       ...sub,
       method: `${sub.method}, on a seeded random subsample of ${subsample.size} of the ${n} values`,
@@ -152,7 +161,10 @@ export function analyse(
     qq,
     sortedSample: sorted,
     values,
+    rows: origin.rows,
+    step: options.step,
     subsample,
+    subsampleSorted: subSorted,
   });
   const notes = origin.notes ?? [];
   return Object.freeze({

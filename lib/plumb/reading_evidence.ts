@@ -33,6 +33,12 @@ export interface EvidenceInput {
   readonly step?: number | null;
   /** The sample sd, when there are no moments (n = 3). */
   readonly sd?: number;
+  /**
+   * The sorted values Shapiro–Wilk ran on, when a subsample: the σ estimates
+   * behind W are taken on the same values as W.
+   * @default the sample itself
+   */
+  readonly primarySorted?: Float64Array;
 }
 
 /** Everything the reading weighs, as frozen plain data. */
@@ -46,7 +52,7 @@ export interface ReadingEvidence {
   readonly outliers: OutlierResult;
   /** A separate cluster, or why none. */
   readonly cluster: ClusterResult;
-  /** The order-statistic slope and the sd behind W. */
+  /** The order-statistic slope and the sd behind W (on the values W came from). */
   readonly geometry: ShapiroWilkGeometry;
   /** The verdict and what carried it. */
   readonly grounds: VerdictGrounds;
@@ -77,7 +83,7 @@ export function gatherEvidence(sorted: Float64Array, input: EvidenceInput): Read
   const rounding = judgeRounding(step, sd, input.primary.n);
   const outliers = _generalizedEsdSorted(sorted, { alpha: READING_RULES.outlierAlpha });
   const cluster = _separateClusterSorted(sorted, { step, coarse: rounding.coarse });
-  const geometry = _shapiroWilkGeometrySorted(sorted);
+  const geometry = _shapiroWilkGeometrySorted(input.primarySorted ?? sorted);
   const grounds = decideVerdict({
     n,
     p: input.primary.pValue,

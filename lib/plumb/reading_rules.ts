@@ -31,7 +31,7 @@
  *
  * @module
  */
-import type { Verdict } from "../results/reading.ts";
+import type { Verdict, VerdictGrounds } from "../results/reading.ts";
 
 /** Every threshold of the reading, with its source in the module header. */
 export const READING_RULES = Object.freeze({
@@ -82,22 +82,7 @@ export interface VerdictEvidence {
   readonly coarse: boolean;
 }
 
-/** The verdict and what carried it, as frozen plain data. */
-export interface VerdictGrounds {
-  readonly verdict: Verdict;
-  /** Shapiro–Wilk counted as evidence (p < 0.05, and the step not coarse). */
-  readonly byTest: boolean;
-  /** The skewness counted (stands out, and large enough above 2,000 values). */
-  readonly bySkew: boolean;
-  /** The kurtosis counted. */
-  readonly byTails: boolean;
-  /** Outliers counted. */
-  readonly byOutliers: boolean;
-  /** A cluster counted. */
-  readonly byCluster: boolean;
-  /** Whether effect sizes decided (more than 2,000 values). */
-  readonly effectsDecide: boolean;
-}
+export type { VerdictGrounds };
 
 /**
  * The verdict from the evidence, by the rule in this module's header.

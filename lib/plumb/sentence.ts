@@ -45,6 +45,69 @@ export interface SentenceOptions {
    * @default undefined
    */
   readonly adjusted?: { readonly p: number; readonly method: string; readonly family: number };
+  /**
+   * End with the standard cautions (a large p is not proof; residuals before
+   * a t-test; decisions follow your procedures). A list of sentences states
+   * them once, after the last one, instead.
+   * @default true
+   */
+  readonly cautions?: boolean;
+}
+
+/** The cautions a write-up ends with (once per list of sentences). */
+export const SENTENCE_CAUTIONS: readonly string[] = Object.freeze([
+  "Before a t-test or ANOVA, judge normality from the residuals' QQ plot rather than using this test as a gate.",
+  "Where this result feeds a clinical, safety or product-release decision, that decision follows your organisation's own procedures and the applicable standards; a normality check is one input to it.",
+]);
+
+/** What the reading found, as a clause for the write-up (empty when nothing is named). */
+function _findings(a: Analysis): string[] {
+  const f = a.reading.facts;
+  const out: string[] = [];
+  const rows = (list: readonly number[], total: number) =>
+    `row${total === 1 ? "" : "s"} ${list.map(formatCount).join(", ")}${
+      total > list.length ? ", …" : ""
+    }`;
+  if (f.cluster !== null) {
+    out.push(
+      `${formatCount(f.cluster.count)} values (${
+        Number((100 * f.cluster.share).toPrecision(2))
+      }%) form a separate cluster ${f.cluster.side === "high" ? "above" : "below"} the rest ` +
+        `(${
+          rows(f.cluster.rows, f.cluster.count)
+        }); check those records before transforming the data.`,
+    );
+  }
+  if (f.cause === "outliers") {
+    const list = f.outliers.values.slice(0, 5).map((v) =>
+      `${formatNumber(v.value, 4)} (row ${formatCount(v.row)})`
+    ).join(", ");
+    out.push(
+      `${
+        f.outliers.count === 1 ? "One value stands" : `${f.outliers.count} values stand`
+      } apart by the ` +
+        `generalized ESD procedure: ${list}${f.outliers.count > 5 ? ", …" : ""}; without ${
+          f.outliers.count === 1 ? "it" : "them"
+        } the rest looks normal, so check ${
+          f.outliers.count === 1 ? "that record" : "those records"
+        } first.`,
+    );
+  }
+  if (f.pileUp !== null && f.cause === "pile-up") {
+    out.push(
+      `${formatCount(f.pileUp.count)} values sit exactly at the ${f.pileUp.end} (${
+        formatNumber(f.pileUp.value, 4)
+      }), as at a detection or reporting limit; no re-expression removes such a pile-up.`,
+    );
+  }
+  if (f.tied) {
+    out.push(
+      `The values are recorded in steps of ${
+        Number((f.step ?? 0).toPrecision(6))
+      }, coarse against their spread, so the verdict rests on skewness, kurtosis and outliers rather than on p.`,
+    );
+  }
+  return out;
 }
 
 /**
@@ -89,11 +152,18 @@ export function writeSentence(a: Analysis, options: SentenceOptions = {}): strin
   parts.push(
     `${test}; skewness G1 = ${proseShape(m.G1)}, excess kurtosis G2 = ${proseShape(m.G2)}.`,
   );
-  parts.push(`Reading: ${VERDICT_WORDS[reading.verdict]}.`);
+  parts.push(
+    `Reading: ${VERDICT_WORDS[reading.verdict]}${
+      reading.verdict === "no-clear-departure" ? "" : `, from ${reading.reason}`
+    }.`,
+  );
+  parts.push(..._findings(a));
   for (const note of origin.notes ?? []) parts.push(`${note}.`);
   if (a.subsample) {
     parts.push(
-      `W and p come from a seeded random subsample of ${a.subsample.size} values, the limit of Royston's calibration.`,
+      `W and p come from a seeded random subsample of ${formatCount(a.subsample.size)} of the ${
+        formatCount(n)
+      } values, the limit of Royston's calibration.`,
     );
   }
   if (origin.transform) {
@@ -114,12 +184,7 @@ export function writeSentence(a: Analysis, options: SentenceOptions = {}): strin
       } values a small p can reflect a departure too small to matter; weigh G1, G2 and the QQ plot.`,
     );
   }
-  parts.push(
-    "Before a t-test or ANOVA, judge normality from the residuals' QQ plot rather than using this test as a gate.",
-  );
-  parts.push(
-    "Where this result feeds a clinical, safety or product-release decision, that decision follows your organisation's own procedures and the applicable standards; a normality check is one input to it.",
-  );
+  if (options.cautions ?? true) parts.push(...SENTENCE_CAUTIONS);
   return parts.join(" ");
 }
 

@@ -184,12 +184,21 @@ function _q7(s: Float64Array, p: number): number {
   return lo + 1 < s.length ? s[lo] + (h - lo) * (s[lo + 1] - s[lo]) : s[lo];
 }
 
-/** Whether the rest of the sample, on its own, is consistent with a normal distribution. */
-function _restLooksNormal(rest: Float64Array, clusterHigh: boolean, coarse: boolean): boolean {
+/**
+ * Whether the rest of a sample (sorted, with a group or outliers removed) is
+ * on its own consistent with a normal distribution, by step 4 of the method
+ * in this module's header; `towardHigh` says on which side the removed
+ * values were, so that a skew towards them counts against the rest.
+ */
+export function _restLooksNormal(
+  rest: Float64Array,
+  towardHigh: boolean,
+  coarse: boolean,
+): boolean {
   if (rest.length < 4 || rest[0] === rest[rest.length - 1]) return false;
   const m = _momentsOf(rest.length, _sampleShape(rest, "the rest of the sample"));
   if (rest.length > SHAPIRO_WILK_MAX_N) return Math.abs(m.G1) < 0.25 && Math.abs(m.G2) < 0.5;
-  const toward = clusterHigh ? m.G1 : -m.G1;
+  const toward = towardHigh ? m.G1 : -m.G1;
   if (toward >= 2 * m.seG1) return false;
   if (coarse) return Math.abs(m.G2) < 2.576 * m.seG2;
   return _shapiroWilkSorted(rest).pValue >= 0.02;

@@ -114,7 +114,9 @@ for (const [n, kind] of CASES) {
       dagostino: "skipped" in k2 ? undefined : k2,
       qq,
       values: x,
+      rows,
       subsample: n > 5000 ? { size: 5000, seed: 1 } : null,
+      subsampleSorted: n > 5000 ? Float64Array.from(denseSubsample(x, 5000, 1)).sort() : undefined,
     });
     deepEqual(a.reading, reading);
   });

@@ -1,4 +1,5 @@
 import { equal, match, ok } from "node:assert/strict";
+import { seededRandom } from "../../lib/numeric/random.ts";
 import { analyse } from "../../lib/plumb/analysis.ts";
 import { proseP, writeSentence } from "../../lib/plumb/sentence.ts";
 import { SHAPES } from "./_shapes.ts";
@@ -33,7 +34,7 @@ for (const [name, x] of Object.entries(SHAPES)) {
     if (a.primary.pValue >= 0.05) {
       ok(s.includes("A large p does not show that the data are normal"));
     }
-    if (a.n > 5000) ok(s.includes("seeded random subsample of 5000"));
+    if (a.n > 5000) ok(s.includes("seeded random subsample of 5,000 of the 50,000 values"));
   });
 }
 
@@ -58,4 +59,22 @@ Deno.test("sentence: an adjusted p is reported beside the raw one", () => {
   const a = analyse(SHAPES.rightSkewed, origin("delay"));
   const s = writeSentence(a, { adjusted: { p: 0.0004, method: "Holm", family: 12 } });
   match(s, /p < 0\.001 \(Holm-adjusted p < 0\.001 over 12 tests\)/);
+});
+
+Deno.test("sentence: the reason for the verdict and what was found are kept", () => {
+  const a = analyse(SHAPES.rightSkewed, origin("delay"));
+  match(writeSentence(a), /Reading: clear departure from normal, from strong right skew\./);
+  const rng = seededRandom(7);
+  const bulk = Float64Array.from({ length: 40 }, () => 10 + 0.2 * rng.normal());
+  const b = analyse(Float64Array.from([...bulk, 12.5]), origin("fill"));
+  match(
+    writeSentence(b),
+    /One value stands apart by the generalized ESD procedure: 12\.50 \(row 41\); without it the rest looks normal/,
+  );
+});
+
+Deno.test("sentence: cautions can be left to the end of a list", () => {
+  const a = analyse(SHAPES.normal15, origin("fill"));
+  const s = writeSentence(a, { cautions: false });
+  ok(!s.includes(CAUTION_GATE) && !s.includes(CAUTION_DECISION));
 });
