@@ -12,7 +12,8 @@ import type { QqData } from "../stats/qq_data.ts";
 import type { TestResult } from "../stats/result.ts";
 import { READING_RULES } from "./reading_rules.ts";
 import type { Subsample } from "../results/analysis.ts";
-import type { ReadingFacts, ValueAtRow } from "../results/reading.ts";
+import type { ReadingFacts } from "../results/reading.ts";
+import { cap, causePoints, f3, pct, plural, roundingPoint } from "./reading_causes.ts";
 
 /** What the words are written from. */
 export interface WordsInput {
@@ -24,19 +25,6 @@ export interface WordsInput {
   readonly twoPeaks: boolean;
   readonly subsample?: Subsample | null;
 }
-
-/** Three significant digits; 0 when it rounds to 0 at three decimals (sums of symmetric data). */
-const f3 = (x: number) => (Math.abs(x) < 5e-4 ? "0" : formatNumber(x, 3));
-/** A step or level as written: up to 6 significant digits, no trailing zeros, true minus sign. */
-const short = (x: number) => String(Number(x.toPrecision(6))).replace("-", "−");
-const cap = (s: string) => s[0].toUpperCase() + s.slice(1);
-const plural = (k: number, one: string, many: string) => (k === 1 ? one : many);
-const pct = (share: number) => `${short(Number((100 * share).toPrecision(2)))}%`;
-const listRows = (rows: readonly number[], total: number) =>
-  `row${plural(total, "", "s")} ${rows.map(formatCount).join(", ")}${
-    total > rows.length ? ", …" : ""
-  }`;
-const valueAt = (v: ValueAtRow) => `${f3(v.value)} (row ${formatCount(v.row)})`;
 
 /** The reason for the verdict in a few words (no W, no n). */
 function _reason(f: ReadingFacts, verdict: string): string {
@@ -66,95 +54,6 @@ function _reason(f: ReadingFacts, verdict: string): string {
         ? "coarse rounding, shape otherwise consistent with normal at this n"
         : "shape consistent with normal at this n";
   }
-}
-
-/**
- * The sentences that name a cause and its remedy (cluster, outliers, pile-up),
- * and separately the far values that belong to the shape (said after it).
- */
-function _causePoints(f: ReadingFacts, n: number): { lead: string[]; after: string[] } {
-  const out: string[] = [];
-  const after: string[] = [];
-  const c = f.cluster;
-  if (c !== null) {
-    const where = c.side === "high" ? "above" : "below";
-    const [lo, hi] = c.gap;
-    out.push(
-      `A separate cluster: ${formatCount(c.count)} values (${
-        pct(c.share)
-      }) lie ${where} the rest, ` +
-        `beyond an empty stretch from ${f3(lo)} to ${f3(hi)} (${
-          listRows(c.rows, c.count)
-        }); without ` +
-        `them the rest is consistent with a normal distribution. The departure comes from this ` +
-        `group, not from the shape of the data: find out how these records differ (source, ` +
-        `instrument, handling) before any re-expression`,
-    );
-  }
-  const o = f.outliers;
-  // A cluster or a pile-up already accounts for the far values on its side.
-  const others = o.values.filter((v) =>
-    !(c !== null && v.side === c.side) && !(f.pileUp !== null && f.cause === "pile-up")
-  );
-  if (
-    others.length > 0 &&
-    (o.alone || f.cause === "skew" || f.cause === "tails" || f.cause === "shape")
-  ) {
-    const shown = others.slice(0, 5);
-    const list = shown.map(valueAt).join(", ") + (others.length > shown.length ? ", …" : "");
-    const level = `${short(100 * o.level)}% level`;
-    (o.alone ? out : after).push(
-      o.alone
-        ? `${o.count} outlier${
-          plural(o.count, "", "s")
-        } by the generalized ESD procedure at the ${level} ` +
-          `(Rosner 1983): ${list}; without ${
-            plural(o.count, "it", "them")
-          } the rest is consistent ` +
-          `with a normal distribution. Check ${plural(o.count, "this record", "these records")} ` +
-          `first; a re-expression would bend every value to accommodate ${
-            plural(o.count, "one", "a few")
-          }`
-        : `The most extreme value${plural(others.length, "", "s")}, ${list}, stand${
-          plural(others.length, "s", "")
-        } out even by the generalized ESD procedure (${level}), but the rest is not normal either: ` +
-          `${
-            plural(others.length, "it belongs", "they belong")
-          } to the shape described here rather than to a separate cause`,
-    );
-  }
-  const p = f.pileUp;
-  if (p !== null) {
-    out.push(
-      `${formatCount(p.count)} of ${formatCount(n)} values sit exactly at the ${p.end}, ${
-        f3(p.value)
-      }: ` +
-        `a ${
-          p.end === "minimum" ? "floor" : "ceiling"
-        } such as a detection or reporting limit; no ` +
-        `re-expression makes a pile-up at a limit look normal, so consider methods for censored data`,
-    );
-  }
-  return { lead: out, after };
-}
-
-/** The step against the spread, when it is worth a word. */
-function _roundingPoint(f: ReadingFacts, n: number): string | undefined {
-  const r = f.rounding;
-  if (f.step === null) return undefined;
-  const ratio = `step/sd = ${formatNumber(r.ratio, 2)}`;
-  if (r.coarse) {
-    return `Recorded in steps of ${short(f.step)}, coarse against the spread (${ratio}, ` +
-      `above ${formatNumber(r.limit, 2)} at n = ${formatCount(n)}): rounding alone makes ` +
-      `Shapiro–Wilk reject normal data this coarse, so its p is set aside and the verdict rests on ` +
-      `skewness, kurtosis, outliers and clusters; the QQ plot shows the steps`;
-  }
-  if (f.distinct < 0.7 * n) {
-    return `Recorded in steps of ${short(f.step)}: ${formatCount(f.distinct)} distinct ` +
-      `values among ${formatCount(n)}, but the step is fine against the spread (${ratio}, within ` +
-      `${formatNumber(r.limit, 2)} at this n), so the repeats do not distort the tests`;
-  }
-  return undefined;
 }
 
 /** The sentences on skew and tails. */
@@ -311,9 +210,9 @@ export function readingWords(w: WordsInput): {
   const headline = `${cap(reason)} (W = ${formatNumber(primary.statistic, 4)}, n = ${
     formatCount(n)
   })`;
-  const cause = _causePoints(f, n);
+  const cause = causePoints(f, n);
   const points: string[] = [...cause.lead];
-  const rounding = _roundingPoint(f, n);
+  const rounding = roundingPoint(f, n);
   if (rounding !== undefined && f.rounding.coarse) points.push(rounding);
   points.push(..._shapePoints(f, m, n), ...cause.after);
   if (w.twoPeaks) {
