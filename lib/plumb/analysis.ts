@@ -18,10 +18,7 @@ import type { TestResult } from "../stats/result.ts";
 import { SHAPIRO_WILK_MAX_N } from "../stats/shapiro_wilk.ts";
 import type { Analysis, SampleOrigin, Subsample, TestOutcome } from "../results/analysis.ts";
 import { readShape } from "./reading.ts";
-import { cardBundle } from "../render/card.ts";
-import { chartBundle } from "../render/chart_bundle.ts";
-import { histogramSpec } from "../render/histogram_spec.ts";
-import { qqSpec } from "../render/qq_spec.ts";
+import { cardBundle, cardCharts } from "../render/card.ts";
 import type { MimeBundle } from "../results/display.ts";
 
 /** Options for {@linkcode analyse}. */
@@ -149,7 +146,12 @@ export function analyse(
     : { ...options.qq };
   const own = _qqDataSorted(values, sorted, shape, qqOptions);
   const qq = options.envelope ? withEnvelope(own, options.envelope(own.rank)) : own;
-  const histogram = _histogramDataSorted(values, sorted, shape);
+  const histogram = _histogramDataSorted(
+    values,
+    sorted,
+    shape,
+    options.step !== undefined ? { step: options.step } : {},
+  );
   const k2 = tests.find((t) => t.test === "D'Agostino–Pearson")?.result as
     | DagostinoPearsonResult
     | undefined;
@@ -208,11 +210,7 @@ export function refuseTooFew(label: string, n: number, missing: number, text: nu
  * @param label the name the charts carry
  */
 export async function cardOf(a: Analysis, label: string): Promise<MimeBundle> {
-  const [qq, hist] = await Promise.all([
-    chartBundle(qqSpec(a.qq, { name: label })),
-    chartBundle(histogramSpec(a.histogram, { name: label })),
-  ]);
-  return cardBundle(a, { qq: qq["text/html"] ?? "", histogram: hist["text/html"] ?? "" });
+  return cardBundle(a, await cardCharts(a, label));
 }
 
 /**

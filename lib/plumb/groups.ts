@@ -5,14 +5,13 @@
  *
  * @module
  */
-import { cardBundle } from "../render/card.ts";
+import { cardBundle, cardCharts } from "../render/card.ts";
 import { chartBundle } from "../render/chart_bundle.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
 import { escapeHtml, escapeMarkdown, plainText } from "../render/escape.ts";
 import { formatCount, formatP } from "../results/format.ts";
 import { histogramSpec } from "../render/histogram_spec.ts";
 import { groupSpec } from "../render/group_spec.ts";
-import { qqSpec } from "../render/qq_spec.ts";
 import { qqSparkline } from "../render/sparkline.ts";
 import { tableHtml, tableMarkdown, type TableModel, tableText } from "../render/table.ts";
 import { ADJUSTMENT_NAMES, checkAdjustment } from "../stats/multiplicity.ts";
@@ -190,14 +189,7 @@ export class PlumbGroups implements Displayable {
       let resHtml = "", resMd = "", resText = "";
       if (r.residuals) {
         const a = r.residuals;
-        const [qq, hist] = await Promise.all([
-          chartBundle(qqSpec(a.qq, { name: a.origin.label })),
-          chartBundle(histogramSpec(a.histogram, { name: a.origin.label })),
-        ]);
-        const card = cardBundle(a, {
-          qq: qq["text/html"] ?? "",
-          histogram: hist["text/html"] ?? "",
-        });
+        const card = cardBundle(a, await cardCharts(a, a.origin.label));
         resHtml = card["text/html"] ?? "";
         resMd = card["text/markdown"] ?? "";
         resText = card["text/plain"];

@@ -99,8 +99,10 @@ export function roundingPoint(f: ReadingFacts, n: number): string | undefined {
   const ratio = `step/sd = ${formatNumber(r.ratio, 2)}`;
   if (r.coarse) {
     return `Recorded in steps of ${short(f.step)}, coarse against the spread (${ratio}, ` +
-      `above ${formatNumber(r.limit, 2)} at n = ${formatCount(n)}): rounding alone makes ` +
-      `Shapiro–Wilk reject normal data this coarse, so its p is set aside and the verdict rests on ` +
+      `above ${formatNumber(r.limit, 2)} at n = ${
+        formatCount(n)
+      }): rounding this coarse can by itself ` +
+      `make Shapiro–Wilk reject normal data, so its p is set aside and the verdict rests on ` +
       `skewness, kurtosis, outliers and clusters; the QQ plot shows the steps`;
   }
   if (f.distinct < 0.7 * n) {

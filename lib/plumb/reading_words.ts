@@ -27,7 +27,7 @@ export interface WordsInput {
 }
 
 /** The reason for the verdict in a few words (no W, no n). */
-function _reason(f: ReadingFacts, verdict: string): string {
+function _reason(f: ReadingFacts): string {
   switch (f.cause) {
     case "pile-up":
       return `${formatCount(f.pileUp!.count)} values piled up at the ${f.pileUp!.end}, ${
@@ -50,9 +50,7 @@ function _reason(f: ReadingFacts, verdict: string): string {
     case "shape":
       return "small departures in shape";
     default:
-      return verdict === "no-clear-departure" && f.tied
-        ? "coarse rounding, shape otherwise consistent with normal at this n"
-        : "shape consistent with normal at this n";
+      return "shape consistent with normal at this n";
   }
 }
 
@@ -206,7 +204,7 @@ export function readingWords(w: WordsInput): {
   sizeNote: string;
 } {
   const { n, moments: m, primary, qq, facts: f } = w;
-  const reason = _reason(f, f.grounds.verdict);
+  const reason = _reason(f);
   const headline = `${cap(reason)} (W = ${formatNumber(primary.statistic, 4)}, n = ${
     formatCount(n)
   })`;

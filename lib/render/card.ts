@@ -1,17 +1,24 @@
 /**
- * The card of one analysed variable: its label and counts, the reading, the
- * QQ plot and histogram side by side (as static SVG), the test table and the
- * cautions. HTML, Markdown and plain text from the same plain data.
+ * The card of one analysed variable, arranged around what plumbline adds:
+ * the reading first (verdict, what the departure comes from, what to do),
+ * then the QQ plot with its envelope, marked exits and both σ lines beside
+ * the evidence grouped by what each measure looks at, then the rest of the
+ * reading, a histogram strip and the cautions. HTML, Markdown and plain text
+ * from the same plain data; the full test table stays one call away
+ * (`.tests()`).
  *
  * @module
  */
 import type { Analysis } from "../results/analysis.ts";
 import { type Verdict, VERDICT_WORDS } from "../results/reading.ts";
-import { testsTable } from "./analysis_tables.ts";
 import type { MimeBundle } from "../results/display.ts";
+import { chartBundle } from "./chart_bundle.ts";
 import { escapeHtml, escapeMarkdown, plainText } from "./escape.ts";
 import { formatCentre, formatCount, formatNumber } from "../results/format.ts";
 import { tableHtml, tableMarkdown, tableText } from "./table.ts";
+import { evidenceLedger, ledgerHtml, ledgerLines } from "./evidence_ledger.ts";
+import { histogramSpec } from "./histogram_spec.ts";
+import { qqSpec } from "./qq_spec.ts";
 
 /** Accent colour per verdict (Okabe–Ito); the verdict is always also written out. */
 export const VERDICT_COLOUR: Readonly<Record<Verdict, string>> = Object.freeze({
@@ -46,10 +53,36 @@ export function countsLine(a: Analysis): string {
 }
 
 /**
- * The card's bundle (`text/html`, `text/markdown`, `text/plain`).
+ * The card's charts, rendered: the QQ plot with its envelope, marked exits
+ * and both reference lines (the sd's, solid; the order-statistic slope's,
+ * dashed), and a wide, low histogram strip with bins that follow the
+ * measurement step.
  *
  * @param a the analysis
- * @param charts the QQ plot and histogram as HTML (static SVG), already rendered
+ * @param name the variable's name for the charts' titles
+ */
+export async function cardCharts(
+  a: Analysis,
+  name: string,
+): Promise<{ qq: string; histogram: string }> {
+  const [qq, hist] = await Promise.all([
+    chartBundle(
+      qqSpec(a.qq, { name, slope: a.reading.facts.sigma.slope, width: 340, height: 280 }),
+    ),
+    chartBundle(histogramSpec(a.histogram, { name, width: 560, height: 90 })),
+  ]);
+  return { qq: qq["text/html"] ?? "", histogram: hist["text/html"] ?? "" };
+}
+
+/**
+ * The card's bundle (`text/html`, `text/markdown`, `text/plain`), arranged
+ * around the reading: the verdict and what it comes from first, then the QQ
+ * plot beside the evidence grouped by what each measure looks at (the ends,
+ * the lean, the middle, the whole line), then the rest of the reading, the
+ * histogram strip and the cautions.
+ *
+ * @param a the analysis
+ * @param charts the QQ plot and histogram as HTML (static SVG), already rendered (see {@linkcode cardCharts})
  *
  * @example
  * ```ts
@@ -63,22 +96,29 @@ export function countsLine(a: Analysis): string {
 export function cardBundle(a: Analysis, charts: { qq: string; histogram: string }): MimeBundle {
   const r = a.reading;
   const colour = VERDICT_COLOUR[r.verdict];
-  const tests = testsTable(a.tests, "Tests");
+  const ledger = evidenceLedger(a);
+  const [lead, ...rest] = r.points;
+  const verdict = _cap(VERDICT_WORDS[r.verdict]);
   const html = [
-    `<div class="plumbline-card" style="font-family:sans-serif;max-width:920px;border:1px solid #bbb;` +
+    `<div class="plumbline-card" style="font-family:sans-serif;max-width:940px;border:1px solid #bbb;` +
     `border-radius:6px;padding:10px 14px;background:#ffffff;color:#111111">`,
-    `<div style="font-size:16px;font-weight:bold">${escapeHtml(a.origin.label)}</div>`,
-    `<div style="color:#444;font-size:90%">${escapeHtml(countsLine(a))}</div>`,
-    `<div style="margin:8px 0;padding:4px 10px;border-left:6px solid ${colour};background:#f6f6f6">` +
-    `<strong>${escapeHtml(_cap(VERDICT_WORDS[r.verdict]))}</strong> — ${
+    `<div><span style="font-size:16px;font-weight:bold">${escapeHtml(a.origin.label)}</span>` +
+    `<span style="color:#555;font-size:88%;margin-left:10px">${
+      escapeHtml(countsLine(a))
+    }</span></div>`,
+    `<div style="margin:8px 0;padding:6px 12px;border-left:7px solid ${colour};background:#f5f5f5">` +
+    `<div style="font-size:15px"><strong>${escapeHtml(verdict)}</strong> — ${
       escapeHtml(r.headline)
-    }</div>`,
+    }</div>` +
+    (lead === undefined ? "" : `<div style="margin-top:4px">${escapeHtml(lead)}.</div>`) +
+    `</div>`,
+    `<div style="display:flex;flex-wrap:wrap;gap:12px;align-items:flex-start;margin:6px 0">` +
+    `<div>${charts.qq}</div><div style="flex:1;min-width:320px">${ledgerHtml(ledger)}</div></div>`,
     `<ul style="margin:4px 0 4px 18px;padding:0">${
-      r.points.map((p) => `<li>${escapeHtml(p)}.</li>`).join("")
+      rest.map((p) => `<li>${escapeHtml(p)}.</li>`).join("")
     }</ul>`,
     `<p style="margin:4px 0;font-style:italic">${escapeHtml(r.sizeNote)}.</p>`,
-    `<div style="display:flex;flex-wrap:wrap;gap:10px;margin:8px 0">${charts.qq}${charts.histogram}</div>`,
-    tableHtml(tests),
+    `<div style="margin:6px 0">${charts.histogram}</div>`,
     `<div style="margin-top:6px;font-size:85%;color:#444">${
       CARD_CAUTIONS.map((c) => `<p style="margin:2px 0">${escapeHtml(c)}</p>`).join("")
     }</div>`,
@@ -89,24 +129,25 @@ export function cardBundle(a: Analysis, charts: { qq: string; histogram: string 
     "",
     escapeMarkdown(countsLine(a)),
     "",
-    `**${escapeMarkdown(_cap(VERDICT_WORDS[r.verdict]))}** — ${escapeMarkdown(r.headline)}`,
+    `**${escapeMarkdown(verdict)}** — ${escapeMarkdown(r.headline)}`,
     "",
     ...r.points.map((p) => `- ${escapeMarkdown(p)}.`),
     "",
-    `*${escapeMarkdown(r.sizeNote)}.*`,
+    ...ledgerLines(ledger).map(escapeMarkdown),
     "",
-    tableMarkdown(tests),
+    `*${escapeMarkdown(r.sizeNote)}.*`,
     "",
     ...CARD_CAUTIONS.map((c) => escapeMarkdown(c)),
   ].join("\n");
   const text = plainText([
     a.origin.label,
     countsLine(a),
-    `${_cap(VERDICT_WORDS[r.verdict])}: ${r.headline}`,
+    `${verdict}: ${r.headline}`,
     ...r.points.map((p) => `  - ${p}.`),
-    `  ${r.sizeNote}.`,
     "",
-    tableText(tests),
+    ...ledgerLines(ledger),
+    "",
+    `  ${r.sizeNote}.`,
     "",
     ...CARD_CAUTIONS,
   ].join("\n"));

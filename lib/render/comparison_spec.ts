@@ -9,7 +9,8 @@ import type { TopLevelSpec } from "../_deps/vega_lite.ts";
 import { PlumbError } from "../errors.ts";
 import type { QqData } from "../stats/qq_data.ts";
 import { formatCount, formatNumber, formatPClause } from "../results/format.ts";
-import { _qqPanel, VEGALITE_SCHEMA } from "./qq_spec.ts";
+import { _qqPanel } from "./qq_panel.ts";
+import { VEGALITE_SCHEMA } from "./qq_spec.ts";
 import { CHART_CONFIG, PANEL } from "./theme.ts";
 
 /** One candidate re-expression. */

@@ -8,7 +8,8 @@ import type { TopLevelSpec } from "../_deps/vega_lite.ts";
 import type { QqData } from "../stats/qq_data.ts";
 import { _defaultPerPanel, _gridCheck } from "./comparison_spec.ts";
 import { formatCentre, formatCount, formatNumber } from "../results/format.ts";
-import { _qqPanel, VEGALITE_SCHEMA } from "./qq_spec.ts";
+import { _qqPanel } from "./qq_panel.ts";
+import { VEGALITE_SCHEMA } from "./qq_spec.ts";
 import { CHART_CONFIG, PANEL } from "./theme.ts";
 
 /** One group's QQ data. */

@@ -20,7 +20,8 @@ import type { TopLevelSpec } from "../_deps/vega_lite.ts";
 import { PlumbError } from "../errors.ts";
 import type { QqData } from "../stats/qq_data.ts";
 import { formatCount, formatNumber, formatPClause, roundSig } from "../results/format.ts";
-import { _pickIndices, VEGALITE_SCHEMA } from "./qq_spec.ts";
+import { _pickIndices } from "./qq_panel.ts";
+import { VEGALITE_SCHEMA } from "./qq_spec.ts";
 import { CHART_CONFIG, PALETTE, PANEL } from "./theme.ts";
 
 /** What the λ explorer shows, filled from a Box–Cox profile fit. */

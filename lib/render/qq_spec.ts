@@ -2,7 +2,10 @@
  * Vega-Lite specs for the normal QQ plot and its detrended form, from
  * {@linkcode QqData}: ordered values (y, data units) against normal scores
  * (x), the fitted line mean + sd·z, and the envelope as a band; points
- * outside the band change colour and shape.
+ * outside the band change colour and shape. Given the order-statistic slope
+ * behind Shapiro–Wilk's W (`shapiro_wilk_geometry.ts`), a second, dashed
+ * line mean + slope·z shows it beside the sd's line: W is the square of
+ * their slopes' ratio, so the gap between the two lines is what W measures.
  *
  * Data reach the spec under fixed field names (`z`, `v`, `lo`, `hi`, `rk`,
  * `row`, `out`); the variable's own name appears only in titles and
@@ -12,7 +15,6 @@
  * @module
  */
 import type { TopLevelSpec } from "../_deps/vega_lite.ts";
-import { thinRanks } from "../numeric/thin_ranks.ts";
 import type { QqData } from "../stats/qq_data.ts";
 import { formatCentre, formatCount, formatNumber, roundSig } from "../results/format.ts";
 import { CHART_CONFIG, PALETTE, PANEL } from "./theme.ts";
@@ -37,6 +39,12 @@ export interface QqSpecOptions {
    * @default 260
    */
   readonly height?: number;
+  /**
+   * The order-statistic slope Σaᵢx₍ᵢ₎/√(n − 1) (Shapiro–Wilk's numerator
+   * on the scale of the sd), drawn as a dashed line mean + slope·z.
+   * @default undefined (no second line)
+   */
+  readonly slope?: number;
 }
 
 /** Legend labels of the three point states (constant text, no user input). */
@@ -75,8 +83,14 @@ export function _qqRecords(
 }
 
 /** The envelope band, the reference line and the points, as layers (data supplied by the parent). */
-// deno-lint-ignore no-explicit-any
-export function _qqLayers(q: QqData, name: string, detrended: boolean, valueTitle: string): any[] {
+export function _qqLayers(
+  q: QqData,
+  name: string,
+  detrended: boolean,
+  valueTitle: string,
+  slope?: number,
+  // deno-lint-ignore no-explicit-any
+): any[] {
   const x = { field: "z", type: "quantitative", title: "normal score z" } as const;
   const yScale = { zero: false };
   const zs = [q.z[0], q.z[q.shown - 1]];
@@ -87,6 +101,24 @@ export function _qqLayers(q: QqData, name: string, detrended: boolean, valueTitl
         values: zs.map((z) => ({ z: roundSig(z, 5), v: roundSig(q.mean + q.sd * z, 8) })),
       },
     };
+  // The order-statistic line, relative to the sd's line in the detrended form.
+  const second = slope === undefined || !Number.isFinite(slope) ? [] : [{
+    data: {
+      values: zs.map((z) => ({
+        z: roundSig(z, 5),
+        v: roundSig(detrended ? (slope - q.sd) * z : q.mean + slope * z, 8),
+      })),
+    },
+    mark: {
+      type: "line",
+      color: PALETTE.line,
+      strokeWidth: 1.5,
+      strokeDash: [5, 3],
+      tooltip: false,
+      aria: false,
+    },
+    encoding: { x, y: { field: "v", type: "quantitative", title: valueTitle, scale: yScale } },
+  }];
   return [
     {
       mark: { type: "area", color: PALETTE.band, opacity: 0.35, tooltip: false, aria: false },
@@ -101,6 +133,7 @@ export function _qqLayers(q: QqData, name: string, detrended: boolean, valueTitl
       mark: { type: "line", color: PALETTE.line, strokeWidth: 1.5, tooltip: false, aria: false },
       encoding: { x, y: { field: "v", type: "quantitative", title: valueTitle, scale: yScale } },
     },
+    ...second,
     {
       transform: [{ calculate: _STATE_EXPR, as: "state" }],
       mark: { type: "point", filled: true, size: 24, opacity: 0.9, aria: false },
@@ -148,19 +181,31 @@ export function _tooltipTitle(title: string): string {
 }
 
 /** The subtitle lines shared by both QQ forms. */
-export function _qqSubtitle(q: QqData, detrended: boolean): string[] {
+export function _qqSubtitle(q: QqData, detrended: boolean, slope?: number): string[] {
   const shown = q.shown === q.n
     ? `all ${formatCount(q.n)} points`
     : `${formatCount(q.shown)} of ${formatCount(q.n)} points shown (tails in full)`;
-  const band = `${q.envelope} ${Math.round(q.level * 1000) / 10}% envelope`;
-  return [
+  const band = `${q.envelope} ${Math.round(q.level * 1000) / 10}%`;
+  const two = slope !== undefined && Number.isFinite(slope);
+  const lines = [
     `${detrended ? "detrended normal QQ plot" : "normal QQ plot"} · ${shown}`,
-    `line: ${formatCentre(q.mean, q.sd)} + ${formatNumber(q.sd)}·z (mean, sd) · band: ${band}`,
+    `band: ${band} · ${two ? "solid" : "line"}: ${formatCentre(q.mean, q.sd)} + ${
+      formatNumber(q.sd)
+    }·z (mean, sd)`,
   ];
+  if (two) {
+    lines.push(`dashed: slope ${formatNumber(slope)} from the ordered values (W's numerator)`);
+  }
+  return lines;
 }
 
 /** A description of the chart for screen readers and plain text. */
-export function _qqDescription(q: QqData, name: string, detrended: boolean): string {
+export function _qqDescription(
+  q: QqData,
+  name: string,
+  detrended: boolean,
+  slope?: number,
+): string {
   const below = q.outside.filter((o) => o < 0).length;
   const above = q.outside.filter((o) => o > 0).length;
   const what = detrended
@@ -170,7 +215,14 @@ export function _qqDescription(q: QqData, name: string, detrended: boolean): str
       `${formatCentre(q.mean, q.sd)} + ${
         formatNumber(q.sd)
       }·z (intercept the mean, slope the standard deviation)`;
-  return `${what}. Normal scores use ${q.positions}. ${q.thinning[0].toUpperCase()}${
+  const dashed = slope === undefined || !Number.isFinite(slope)
+    ? ""
+    : `, and a dashed line with the ` +
+      `order-statistic slope ${
+        formatNumber(slope)
+      } (Shapiro–Wilk's W is the square of the ratio of ` +
+      `this slope to the sd)`;
+  return `${what}${dashed}. Normal scores use ${q.positions}. ${q.thinning[0].toUpperCase()}${
     q.thinning.slice(1)
   }. ` +
     `The band is the ${q.envelopeMethod}. ` +
@@ -183,13 +235,13 @@ function _spec(q: QqData, options: QqSpecOptions, detrended: boolean): TopLevelS
   const valueTitle = detrended ? `${name} − line` : name;
   return {
     $schema: VEGALITE_SCHEMA,
-    description: _qqDescription(q, name, detrended),
-    title: { text: name, subtitle: _qqSubtitle(q, detrended) },
+    description: _qqDescription(q, name, detrended, options.slope),
+    title: { text: name, subtitle: _qqSubtitle(q, detrended, options.slope) },
     config: CHART_CONFIG,
     width: options.width ?? PANEL.width,
     height: options.height ?? PANEL.height,
     data: { values: _qqRecords(q, detrended) },
-    layer: detrended ? _qqLayers(q, name, true, valueTitle) : _qqLayers(q, name, false, valueTitle),
+    layer: _qqLayers(q, name, detrended, valueTitle, options.slope),
   } as TopLevelSpec;
 }
 
@@ -197,13 +249,15 @@ function _spec(q: QqData, options: QqSpecOptions, detrended: boolean): TopLevelS
  * The normal QQ plot of one sample.
  *
  * @param q the QQ data (see `qqData`)
- * @param options name and size
+ * @param options name, size and the order-statistic slope for the dashed line
  * @example
  * ```ts
  * import { qqData } from "@plumbline/plumbline";
+ * import { shapiroWilkGeometry } from "../stats/shapiro_wilk_geometry.ts";
  * import { qqSpec } from "./qq_spec.ts";
- * const spec = qqSpec(qqData([5.1, 4.9, 5.3, 5.0, 5.2, 4.7]), { name: "fill (mL)" });
- * if (!JSON.stringify(spec).includes("fill (mL)")) throw new Error("title");
+ * const x = [5.1, 4.9, 5.3, 5.0, 5.2, 4.7];
+ * const spec = qqSpec(qqData(x), { name: "fill (mL)", slope: shapiroWilkGeometry(x).slope });
+ * if (!JSON.stringify(spec).includes("fill (mL)") || !JSON.stringify(spec).includes("dashed")) throw new Error("title");
  * ```
  */
 export function qqSpec(q: QqData, options: QqSpecOptions = {}): TopLevelSpec {
@@ -227,36 +281,4 @@ export function qqSpec(q: QqData, options: QqSpecOptions = {}): TopLevelSpec {
  */
 export function detrendedSpec(q: QqData, options: QqSpecOptions = {}): TopLevelSpec {
   return _spec(q, options, true);
-}
-
-/**
- * Indices into a QQ data's arrays that keep at most `max` points: both ends
- * in full (a quarter of the budget each), the middle evenly spaced.
- */
-export function _pickIndices(shown: number, max: number): number[] {
-  if (shown <= max) return Array.from({ length: shown }, (_, k) => k);
-  return thinRanks(shown, max, Math.floor(max / 4)).map((r) => r - 1);
-}
-
-/** Options of one small QQ panel inside a composed chart. */
-export interface _PanelOptions {
-  readonly name: string;
-  readonly title: string;
-  readonly subtitle: string[];
-  readonly width: number;
-  readonly height: number;
-  readonly maxPoints: number;
-}
-
-/** One QQ panel (own data, own title) for concatenated charts. */
-// deno-lint-ignore no-explicit-any
-export function _qqPanel(q: QqData, o: _PanelOptions): any {
-  const pick = _pickIndices(q.shown, o.maxPoints);
-  return {
-    title: { text: o.title, subtitle: o.subtitle },
-    width: o.width,
-    height: o.height,
-    data: { values: _qqRecords(q, false, pick) },
-    layer: _qqLayers(q, o.name, false, o.name),
-  };
 }

@@ -138,25 +138,6 @@ export function sortedSample(
 }
 
 /**
- * A warning about ties, or `undefined` when ties are few. Many repeated
- * values (rounded or discrete data) make order-statistic tests reject
- * normality even when the underlying quantity is normal.
- *
- * The threshold — warn when fewer than 70% of the values are distinct — is
- * common practice, not a published rule.
- *
- * @param sorted the sample in ascending order
- */
-export function tiesWarning(sorted: Float64Array): string | undefined {
-  const n = sorted.length;
-  let distinct = n > 0 ? 1 : 0;
-  for (let i = 1; i < n; i++) if (sorted[i] !== sorted[i - 1]) distinct++;
-  if (n === 0 || distinct >= 0.7 * n) return undefined;
-  return `Only ${distinct} distinct values among ${n}: the data look rounded or discrete, ` +
-    `and ties alone can make a normality test reject; judge the QQ plot, whose steps show the rounding`;
-}
-
-/**
  * Throw `PlumbError("non-finite")` when a sample's standard deviation,
  * though computed without overflow, exceeds the largest double (values
  * near −1.8e308 and +1.8e308 together): it cannot be reported in the data's

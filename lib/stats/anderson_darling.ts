@@ -6,7 +6,8 @@
  */
 import { normalSf } from "../numeric/normal.ts";
 import { formatNumber } from "../results/format.ts";
-import { checkSize, sortedSample, tiesWarning } from "./_input.ts";
+import { checkSize, sortedSample } from "./_input.ts";
+import { roundingWarning } from "./rounding.ts";
 import { _sampleShape, type _Shape, _zScore } from "./moments.ts";
 import { freezeResult, type TestResult } from "./result.ts";
 
@@ -88,7 +89,8 @@ function _pValue(a: number): { p: number; bound: "none" | "at-most" } {
  * "at-most"`) rather than an increasing p.
  *
  * Range: n ≥ 8 (common practice); no upper limit; sorting is the main cost.
- * Adds the ties warning when fewer than 70% of the values are distinct.
+ * Adds a warning when the measurement step is coarse against the spread
+ * (`rounding.ts`).
  * A² checked against scipy 1.10 `anderson` and p against statsmodels 0.13
  * `normal_ad` to 1e−9 (tests/stats/anderson_darling_test.ts).
  *
@@ -142,7 +144,7 @@ export function _andersonDarlingSorted(s: Float64Array, shape: _Shape): Anderson
   const modified = a2 * (1 + 0.75 / n + 2.25 / (n * n));
   const { p, bound } = _pValue(modified);
   const warnings: string[] = [];
-  const ties = tiesWarning(s);
+  const ties = roundingWarning(s, false);
   if (ties !== undefined) warnings.push(ties);
   if (bound === "at-most") {
     warnings.push(

@@ -17,19 +17,25 @@
  * - `"sturges"`: ⌈log₂ n⌉ + 1 bins (Sturges 1926, Journal of the American
  *   Statistical Association 21:65–66).
  *
- * The bins split [min, max] into k equal parts, k = ⌈range / h⌉ capped at
- * `maxBins`; a value equal to the maximum falls in the last bin.
+ * Bins (`histogram_bins.ts`): when the values sit on a measurement step h
+ * (found from the data, or passed in), the width is a whole number of steps
+ * and the edges lie half a step off the recorded values, so every bin holds
+ * the same number of grid values; otherwise [min, max] is split into
+ * k = ⌈range / w⌉ equal parts, capped at `maxBins`. A width or a number of
+ * bins can be asked for instead of a rule.
  *
  * @module
  */
 import { ldexp, rescaleExponent } from "../numeric/ldexp.ts";
 import { selectRanks } from "../numeric/select.ts";
 import { checkNotConstant, checkSize, checkSpreadFinite, finiteCopy } from "./_input.ts";
+import { sortFloat64 } from "../numeric/sort.ts";
+import { type BinRule, checkBinRequest } from "./histogram_bins.ts";
+import { _measurementStepSorted } from "./measurement_step.ts";
 import { _sampleShape, type _Shape } from "./moments.ts";
 import { _histogramFinish, _histogramLayout } from "./histogram_layout.ts";
 
-/** A bin-width rule. */
-export type BinRule = "freedman-diaconis" | "scott" | "sturges";
+export type { BinRule };
 
 /** Options for {@linkcode histogramData}. */
 export interface HistogramOptions {
@@ -38,6 +44,23 @@ export interface HistogramOptions {
    * @default "freedman-diaconis"
    */
   readonly rule?: BinRule;
+  /**
+   * A bin width in the data's units (instead of a rule); with a measurement
+   * step it is made a whole number of steps, and the note says so.
+   * @default undefined (the rule decides)
+   */
+  readonly width?: number;
+  /**
+   * A number of bins (instead of a rule); with a measurement step the width
+   * is a whole number of steps, so the count can differ slightly.
+   * @default undefined (the rule decides)
+   */
+  readonly bins?: number;
+  /**
+   * The measurement step the values sit on; `null` for none.
+   * @default found from the values (`measurement_step.ts`)
+   */
+  readonly step?: number | null;
   /**
    * Upper limit on the number of bins.
    * @default 200
@@ -54,8 +77,10 @@ export interface HistogramOptions {
 export interface HistogramData {
   /** Number of values. */
   readonly n: number;
-  /** The rule that set the width (after any fallback). */
-  readonly rule: BinRule;
+  /** The rule that set the width (after any fallback), or `"width"` / `"bins"` when asked for. */
+  readonly rule: BinRule | "width" | "bins";
+  /** The measurement step the bins follow, or `null`. */
+  readonly step: number | null;
   /** The rule and its source, in words, with any fallback explained. */
   readonly ruleNote: string;
   /** Width of every bin. */
@@ -106,9 +131,12 @@ function _iqrBySelection(data: Float64Array): number {
  * @example
  * ```ts
  * import { histogramData } from "@plumbline/plumbline";
+ * // whole numbers: bins of whole width, edges at half-units
  * const h = histogramData([1, 2, 2, 3, 3, 3, 4, 4, 5, 9]);
  * const total = h.counts.reduce((s, c) => s + c, 0);
- * if (total !== 10 || h.edges[0] !== 1 || h.edges[h.edges.length - 1] !== 9) throw new Error("bins");
+ * if (total !== 10 || h.step !== 1 || h.binWidth % 1 !== 0 || h.edges[0] !== 0.5) {
+ *   throw new Error("bins");
+ * }
  * ```
  */
 export function histogramData(x: ArrayLike<number>, options: HistogramOptions = {}): HistogramData {
@@ -123,11 +151,20 @@ export function histogramData(x: ArrayLike<number>, options: HistogramOptions = 
     if (data[i] > max) max = data[i];
   }
   checkNotConstant(Float64Array.of(min, max), what);
+  checkBinRequest(options);
+  const step = options.step !== undefined
+    ? options.step
+    : _measurementStepSorted(sortFloat64(data.slice())).step;
   const k = rescaleExponent(Math.max(-min, max));
   if (k !== 0) {
     // Bin x·2ᵏ, whose range, squares and density cannot overflow or underflow,
     // and map the lengths back (counts and curve heights do not change).
-    const h = histogramData(data.map((v) => ldexp(v, k)), options);
+    const scaled = {
+      ...options,
+      step: step === null ? null : ldexp(step, k),
+      width: options.width === undefined ? undefined : ldexp(options.width, k),
+    };
+    const h = histogramData(data.map((v) => ldexp(v, k)), scaled);
     checkSpreadFinite(ldexp(h.sd, -k), what);
     const back = (a: readonly number[]) => Object.freeze(a.map((v) => ldexp(v, -k)));
     const edges = back(h.edges) as number[];
@@ -135,14 +172,15 @@ export function histogramData(x: ArrayLike<number>, options: HistogramOptions = 
       ...h,
       // A bin spanning values near −1.8e308 to +1.8e308 is wider than the largest double.
       binWidth: Math.min(Number.MAX_VALUE, ldexp(h.binWidth, -k)),
-      edges: Object.freeze([min, ...edges.slice(1, -1), max]),
+      edges: Object.freeze(edges),
+      step,
       mean: ldexp(h.mean, -k),
       sd: ldexp(h.sd, -k),
-      curveX: Object.freeze([min, ...back(h.curveX).slice(1, -1), max]),
+      curveX: back(h.curveX),
     });
   }
   const { mean, sd } = _sampleShape(data, what);
-  return _histogramBuild(data, { min, max, mean, sd }, options, () => _iqrBySelection(data));
+  return _histogramBuild(data, { min, max, mean, sd, step }, options, () => _iqrBySelection(data));
 }
 
 /**
@@ -164,11 +202,15 @@ export function _histogramDataSorted(
   const min = sorted[0];
   const max = sorted[n - 1];
   checkNotConstant(Float64Array.of(min, max), what);
-  if (rescaleExponent(Math.max(-min, max)) !== 0) return histogramData(values, options);
+  checkBinRequest(options);
+  const step = options.step !== undefined ? options.step : _measurementStepSorted(sorted).step;
+  if (rescaleExponent(Math.max(-min, max)) !== 0) {
+    return histogramData(values, { ...options, step });
+  }
   const at = (rank: number) => sorted[rank - 1];
   return _histogramBuild(
     values,
-    { min, max, mean: shape.mean, sd: shape.sd },
+    { min, max, mean: shape.mean, sd: shape.sd, step },
     options,
     () => _quantile7(at, n, 0.75) - _quantile7(at, n, 0.25),
   );
@@ -177,18 +219,20 @@ export function _histogramDataSorted(
 /** The histogram of finite, non-constant data with moderate magnitudes (see histogramData). */
 function _histogramBuild(
   data: Float64Array,
-  summary: { min: number; max: number; mean: number; sd: number },
+  summary: { min: number; max: number; mean: number; sd: number; step: number | null },
   options: HistogramOptions,
   interquartile: () => number,
 ): HistogramData {
   const n = data.length;
-  const { min, max, mean, sd } = summary;
-  const layout = _histogramLayout(n, min, max, sd, options, interquartile);
+  const { min, max, mean, sd, step } = summary;
+  const layout = _histogramLayout(n, min, max, sd, options, interquartile, step);
   const { k, edges, width } = layout;
+  const first = edges[0];
   const counts: number[] = new Array(k).fill(0);
   for (let i = 0; i < n; i++) {
-    let b = Math.floor((data[i] - min) / width);
+    let b = Math.floor((data[i] - first) / width);
     if (b >= k) b = k - 1;
+    if (b < 0) b = 0;
     // guard against rounding at an interior edge: place by the stored edges
     if (b > 0 && data[i] < edges[b]) b--;
     else if (b < k - 1 && data[i] >= edges[b + 1]) b++;

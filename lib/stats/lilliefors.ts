@@ -5,7 +5,8 @@
  * @module
  */
 import { normalCdf } from "../numeric/normal.ts";
-import { checkSize, sortedSample, tiesWarning } from "./_input.ts";
+import { checkSize, sortedSample } from "./_input.ts";
+import { roundingWarning } from "./rounding.ts";
 import { _sampleShape, type _Shape, _zScore } from "./moments.ts";
 import { freezeResult, type TestResult } from "./result.ts";
 
@@ -64,8 +65,8 @@ function _dallalWilkinson(d: number, n: number): number {
  * over the whole range use Anderson–Darling or Shapiro–Wilk, which are also
  * more powerful.
  *
- * Range: n ≥ 5; no upper limit. Adds the ties warning when fewer than 70%
- * of the values are distinct. D and p checked against statsmodels 0.13
+ * Range: n ≥ 5; no upper limit. Adds a warning when the measurement step
+ * is coarse against the spread (`rounding.ts`). D and p checked against statsmodels 0.13
  * `lilliefors(pvalmethod="approx")` to 1e−9 (tests/stats/lilliefors_test.ts).
  *
  * @param x the sample: finite numbers, at least 5, not all equal
@@ -104,7 +105,7 @@ export function _lillieforsSorted(s: Float64Array, shape: _Shape): LillieforsRes
   const pDw = _dallalWilkinson(d, n);
   const calibrated = pDw <= _P_CALIBRATED;
   const warnings: string[] = [];
-  const ties = tiesWarning(s);
+  const ties = roundingWarning(s, false);
   if (ties !== undefined) warnings.push(ties);
   if (!calibrated) {
     warnings.push(

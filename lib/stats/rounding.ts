@@ -24,6 +24,7 @@
  *
  * @module
  */
+import { _measurementStepSorted } from "./measurement_step.ts";
 
 /** The coarseness verdict of a step, as frozen plain data. */
 export interface RoundingJudgement {
@@ -45,6 +46,17 @@ export const ROUNDING_LIMIT_SMALL_N = 0.35;
 export const ROUNDING_LIMIT_THREE = 0.05;
 
 /**
+ * The largest step/sd ratio (see {@linkcode roundingLimit}) for a test that
+ * sees all n values: Anderson–Darling, Lilliefors and Shapiro–Francia have
+ * no 5,000 cap, and the same c/√n is used at their own n (extrapolated from
+ * the Shapiro–Wilk calibration, not simulated for each test).
+ */
+export function roundingLimitAt(n: number): number {
+  if (n <= 3) return ROUNDING_LIMIT_THREE;
+  return Math.min(ROUNDING_LIMIT_SMALL_N, ROUNDING_LIMIT_C / Math.sqrt(n));
+}
+
+/**
  * The largest step/sd ratio at which rounding alone keeps Shapiro–Wilk's
  * false-alarm rate at or below 10%, for a sample of n.
  *
@@ -59,6 +71,41 @@ export const ROUNDING_LIMIT_THREE = 0.05;
 export function roundingLimit(n: number): number {
   if (n <= 3) return ROUNDING_LIMIT_THREE;
   return Math.min(ROUNDING_LIMIT_SMALL_N, ROUNDING_LIMIT_C / Math.sqrt(Math.min(n, 5000)));
+}
+
+/**
+ * A test's warning about rounding, or `undefined` when the step (found from
+ * the sorted sample) is fine against its spread at this n. Replaces a rule
+ * by the share of distinct values, which warned about finely recorded data
+ * with many repeats and missed coarse data with few.
+ *
+ * @param sorted the sample, ascending, finite, not constant
+ * @param capped whether the test sees at most 5,000 values (Shapiro–Wilk's limit)
+ *
+ * @example
+ * ```ts
+ * import { roundingWarning } from "./rounding.ts";
+ * const halves = Float64Array.from([1, 1.5, 1.5, 2, 2, 2, 2.5, 2.5, 3, 3.5, 2, 1.5]).sort();
+ * if (!roundingWarning(halves, true)?.startsWith("Recorded in steps of 0.5")) throw new Error("coarse");
+ * ```
+ */
+export function roundingWarning(sorted: Float64Array, capped: boolean): string | undefined {
+  const n = sorted.length;
+  const { step } = _measurementStepSorted(sorted);
+  if (step === null) return undefined;
+  let mean = 0;
+  for (let i = 0; i < n; i++) mean += sorted[i];
+  mean /= n;
+  let ss = 0;
+  for (let i = 0; i < n; i++) ss += (sorted[i] - mean) ** 2;
+  const sd = Math.sqrt(ss / (n - 1));
+  const limit = capped ? roundingLimit(n) : roundingLimitAt(n);
+  const ratio = step / sd;
+  if (!(ratio > limit)) return undefined;
+  const fmt = (v: number) => String(Number(v.toPrecision(2)));
+  return `Recorded in steps of ${Number(step.toPrecision(6))}, coarse against the spread ` +
+    `(step/sd = ${fmt(ratio)}; the limit at n = ${n} is ${fmt(limit)}): rounding alone can make ` +
+    `this test reject normal data; judge the QQ plot, whose steps show the rounding`;
 }
 
 /**

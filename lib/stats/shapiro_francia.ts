@@ -6,7 +6,8 @@
  */
 import { normalSf } from "../numeric/normal.ts";
 import { blomScoresUpper } from "./plotting_positions.ts";
-import { checkSize, sortedSample, tiesWarning } from "./_input.ts";
+import { checkSize, sortedSample } from "./_input.ts";
+import { roundingWarning } from "./rounding.ts";
 import { freezeResult, type TestResult } from "./result.ts";
 
 const _NAME = "the Shapiro–Francia test";
@@ -104,7 +105,7 @@ export function _shapiroFranciaSorted(s: Float64Array): TestResult {
   const { mean: mu, sd: sigma } = shapiroFranciaNull(n);
   const p = oneMinus === 0 ? 1 : normalSf((Math.log(oneMinus) - mu) / sigma);
   const warnings: string[] = [];
-  const ties = tiesWarning(s);
+  const ties = roundingWarning(s, true);
   if (ties) warnings.push(ties);
   return freezeResult({
     test: "Shapiro–Francia",

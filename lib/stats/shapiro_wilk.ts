@@ -5,7 +5,8 @@
  */
 import { normalSf } from "../numeric/normal.ts";
 import { shapiroWilkCoefficients } from "./shapiro_wilk_coefficients.ts";
-import { checkSize, sortedSample, tiesWarning } from "./_input.ts";
+import { checkSize, sortedSample } from "./_input.ts";
+import { roundingWarning } from "./rounding.ts";
 import { freezeResult, type TestResult } from "./result.ts";
 
 const _NAME = "the Shapiro–Wilk test";
@@ -42,7 +43,8 @@ export const SHAPIRO_WILK_MAX_N = 5000;
  *
  * Errors: `PlumbError` with code `"too-few"` (n < 3), `"too-many"`
  * (n > 5000), `"non-finite"` (NaN, ±∞ or non-numbers), `"constant"` (all
- * values equal). Warnings: ties (rounded or discrete data).
+ * values equal). Warnings: a measurement step coarse against the spread
+ * (`rounding.ts`).
  *
  * @param x the sample, any order
  * @returns a frozen {@linkcode TestResult} with `statisticName: "W"`
@@ -69,7 +71,7 @@ export function _shapiroWilkSorted(s: Float64Array): TestResult {
   const w = shapiroWilkW(s);
   const p = shapiroWilkPValue(w, n);
   const warnings: string[] = [];
-  const ties = tiesWarning(s);
+  const ties = roundingWarning(s, true);
   if (ties) warnings.push(ties);
   if (n < 20) {
     warnings.push(

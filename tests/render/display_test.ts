@@ -28,7 +28,7 @@ Deno.test("chartBundle's text/plain is the title line and the description", asyn
   const [title, description] = b["text/plain"].split("\n");
   assert.equal(
     title,
-    "fill — normal QQ plot · all 8 points line: 5.075 + 0.2915·z (mean, sd) · band: pointwise 95% envelope",
+    "fill — normal QQ plot · all 8 points band: pointwise 95% · line: 5.075 + 0.2915·z (mean, sd)",
   );
   assert.equal(description, (spec as { description: string }).description);
   const custom = await chartBundle(spec, { title: "T", description: "D" });

@@ -4,6 +4,9 @@ import { chartBundle } from "../../lib/render/chart_bundle.ts";
 import { VEGALITE_MIME } from "../../lib/results/display.ts";
 import { renderSvg } from "../../lib/render/svg.ts";
 import { KINDS, specsFor } from "./_samples.ts";
+import { qqSpec } from "../../lib/render/qq_spec.ts";
+import { qqData } from "../../lib/stats/qq_data.ts";
+import { assertClose } from "../_assert_close.ts";
 
 const specs = specsFor(500, "fill volume (mL)");
 
@@ -56,8 +59,23 @@ Deno.test("every chart draws its own white background (legible on a dark theme)"
 Deno.test("the QQ chart says how many points it shows and names its methods", () => {
   const t = JSON.stringify(specs.qq);
   assert.ok(t.includes("normal QQ plot · all 500 points"));
-  assert.ok(t.includes("band: pointwise 95% envelope"));
+  assert.ok(t.includes("band: pointwise 95% · line:"));
   assert.ok(t.includes("Blom's plotting positions (i − 3/8)/(n + 1/4)"));
   const big = JSON.stringify(specsFor(5000, "x").qq);
   assert.ok(big.includes("800 of 5,000 points shown (tails in full)"));
+});
+
+Deno.test("the QQ chart draws the order-statistic slope as a dashed second line when given", () => {
+  const q = qqData([4.1, 3.9, 4.4, 4.0, 4.2, 3.7, 4.6, 4.3, 3.8, 4.1, 4.0, 9.5]);
+  const spec = qqSpec(q, { name: "fill", slope: 1.0928 }) as unknown as {
+    layer: { mark: { strokeDash?: number[] }; data?: { values: { z: number; v: number }[] } }[];
+  };
+  const dashed = spec.layer.filter((l) => l.mark.strokeDash !== undefined);
+  assert.equal(dashed.length, 1);
+  // the line passes through the mean at z = 0 with slope 1.0928: check at its two ends
+  const [a, b] = dashed[0].data!.values;
+  // (the spec rounds z to 5 significant digits, so the slope read back is good to about 1e-4)
+  assertClose((b.v - a.v) / (b.z - a.z), 1.0928, { rel: 1e-4 }, "slope of the dashed line");
+  assert.ok(JSON.stringify(spec).includes("dashed: slope 1.093 from the ordered values"));
+  assert.ok(!JSON.stringify(qqSpec(q, { name: "fill" })).includes("strokeDash"));
 });

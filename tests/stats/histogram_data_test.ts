@@ -42,7 +42,7 @@ Deno.test("Freedman–Diaconis bins: k = ⌈range / (2·IQR·n^(−1/3))⌉, eve
 
 Deno.test("the curve is the fitted normal density scaled to counts", () => {
   const x = [1, 2, 2, 3, 3, 3, 4, 4, 5];
-  const h = histogramData(x, { curvePoints: 5 });
+  const h = histogramData(x, { curvePoints: 5, step: null });
   assert.equal(h.curveX.length, 5);
   assert.equal(h.curveX[0], 1);
   assert.equal(h.curveX[4], 5);
@@ -87,5 +87,38 @@ Deno.test("histogramData rejects unusable input with PlumbError", () => {
       );
       return true;
     },
+  );
+});
+
+Deno.test("with a measurement step, widths are whole steps and edges half-steps; width and bins can be asked", () => {
+  // the issue's case: data to 0.1 once gave width 0.118 and a false spike of 120 among bars of 58
+  const rng = seededRandom(12);
+  const x = Array.from({ length: 3000 }, () => Math.round((20 + 1.5 * rng.normal()) * 10) / 10);
+  const h = histogramData(x);
+  assert.equal(h.step, 0.1);
+  assertClose(h.binWidth / 0.1, Math.round(h.binWidth / 0.1), { abs: 1e-9 }, "width in steps");
+  assertClose(((h.edges[0] - Math.min(...x)) / 0.1) % 1, -0.5, { abs: 1e-9 }, "first edge");
+  // every value sits half a step from the nearest edge, so each bin holds the same number of
+  // grid values (no bin catches two where its neighbour catches one)
+  for (const v of new Set(x)) {
+    const j = h.edges.findIndex((e) => e > v) - 1;
+    assertClose(
+      Math.min(v - h.edges[j], h.edges[j + 1] - v) % 0.1,
+      0.05,
+      { abs: 1e-9 },
+      `value ${v}`,
+    );
+  }
+  const whole = histogramData(x.map((v) => Math.round(v)));
+  assert.equal(whole.binWidth % 1, 0);
+  assert.equal(histogramData(x, { width: 0.5 }).binWidth, 0.5);
+  assert.equal(histogramData(x, { step: null, bins: 12 }).counts.length, 12);
+  assert.throws(
+    () => histogramData(x, { width: -1 }),
+    (e) => e instanceof PlumbError && e.code === "bad-option",
+  );
+  assert.throws(
+    () => histogramData(x, { bins: 0 }),
+    (e) => e instanceof PlumbError && e.code === "bad-option",
   );
 });

@@ -91,7 +91,7 @@ Deno.test("Lilliefors D with ties equals the exact sup over the empirical steps"
     best = Math.max(best, Math.abs(ecdfAt(v) - f), Math.abs(ecdfBefore(v) - f));
   }
   assertClose(r.statistic, best, { rel: 1e-12 }, "D with ties");
-  assert.ok(r.warnings.some((w) => w.startsWith("Only 5 distinct values among 12")));
+  assert.ok(r.warnings.some((w) => w.startsWith("Recorded in steps of")), r.warnings.join("|"));
 });
 
 /** erf by its Maclaurin series: about 1e-15 for |x| ≤ 1.5, all the check above needs (|x| < 1.2). */

@@ -1,6 +1,7 @@
 import { equal, match, ok, throws } from "node:assert/strict";
 import fc from "fast-check";
 import { PlumbError } from "../../lib/errors.ts";
+import { seededRandom } from "../../lib/numeric/random.ts";
 import { shapiroWilk, shapiroWilkPValue } from "../../lib/stats/shapiro_wilk.ts";
 import { shapiroWilkCoefficients } from "../../lib/stats/shapiro_wilk_coefficients.ts";
 import { assertClose } from "../_assert_close.ts";
@@ -97,9 +98,21 @@ Deno.test("errors: too few, too many, non-finite, constant", () => {
   check([4, 4, 4, 4], "constant", /4 identical values \(all 4\)/);
 });
 
-Deno.test("ties produce a warning naming the number of distinct values", () => {
+Deno.test("a step coarse against the spread gives a warning; a fine one, even with repeats, does not", () => {
+  // whole numbers with sd 1.0 at n = 12: step/sd = 0.98 > 0.35 (limit from tools/sim/rounding_limit.ts)
   const r = shapiroWilk([1, 1, 1, 2, 2, 2, 2, 3, 3, 3, 4, 4]);
-  ok(r.warnings.some((w) => /^Only 4 distinct values among 12/.test(w)), r.warnings.join("|"));
+  ok(
+    r.warnings.some((w) => /^Recorded in steps of 1, coarse against the spread/.test(w)),
+    r.warnings.join("|"),
+  );
+  // 0.01 steps with sd about 0.5: many repeats at n = 600, but no warning
+  const rng = seededRandom(9);
+  const fine = Array.from(
+    { length: 600 },
+    () => Math.round((5.5 + 0.48 * rng.normal()) * 100) / 100,
+  );
+  ok(new Set(fine).size < 0.7 * 600);
+  equal(shapiroWilk(fine).warnings.length, 0);
 });
 
 Deno.test("extreme magnitudes: W is unchanged from 1e-300 to 1e300 scale and 1e15 offsets", () => {
