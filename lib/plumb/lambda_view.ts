@@ -6,6 +6,7 @@
  *
  * @module
  */
+import { PlumbError } from "../errors.ts";
 import { randomSubsample } from "../numeric/random.ts";
 import { boxCoxFit } from "../reexpress/box_cox_fit.ts";
 import { boxCoxProfile } from "../reexpress/box_cox_profile.ts";
@@ -17,6 +18,18 @@ import { type Chart, chart } from "../render/chart_bundle.ts";
 import { lambdaExplorerSpec } from "../render/lambda_explorer_spec.ts";
 import { qqData } from "../stats/qq_data.ts";
 import { SHAPIRO_WILK_MAX_N, shapiroWilk } from "../stats/shapiro_wilk.ts";
+
+/** Whether re-expressed values can be tested: finite, and not all equal. */
+function _usable(y: Float64Array): boolean {
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const v of y) {
+    if (!Number.isFinite(v)) return false;
+    if (v < lo) lo = v;
+    if (v > hi) hi = v;
+  }
+  return hi > lo;
+}
 
 /** Grid points of the explorer. */
 export const LAMBDA_GRID_POINTS = 41;
@@ -62,18 +75,49 @@ function _spec(values: Float64Array, name: string): TopLevelSpec {
   const logLik = Array.from(
     positive ? boxCoxProfile(values, lambdas) : yeoJohnsonProfile(values, lambdas),
   );
-  const perLambda = lambdas.map((l) => {
-    const y = applyReexpression(sample, reexpression(kind, { lambda: l }));
-    const w = shapiroWilk(y);
-    return { W: w.statistic, p: w.pValue, qq: qqData(y, { maxPoints: 60, tailPoints: 15 }) };
+  // Box–Cox of x/g is an affine map of Box–Cox of x (g the geometric mean), so W
+  // and the QQ shape are the same; it keeps values that vary little relative to
+  // their size (1000 ± 0.3) from collapsing to one double at extreme λ.
+  let scaled: Float64Array | undefined;
+  const scaledSample = () => {
+    if (scaled) return scaled;
+    let logSum = 0;
+    for (const v of sample) logSum += Math.log(v);
+    const g = Math.exp(logSum / sample.length);
+    return scaled = sample.map((v) => v / g);
+  };
+  const kept: number[] = [];
+  const perLambda = lambdas.flatMap((l, k) => {
+    const step = reexpression(kind, { lambda: l });
+    for (const x of positive ? [sample, scaledSample()] : [sample]) {
+      const y = applyReexpression(x, step);
+      if (!_usable(y)) continue;
+      const w = shapiroWilk(y);
+      kept.push(k);
+      return [{ W: w.statistic, p: w.pValue, qq: qqData(y, { maxPoints: 60, tailPoints: 15 }) }];
+    }
+    return [];
   });
   const family = positive ? "Box–Cox" : "Yeo–Johnson";
-  const label = values.length > SHAPIRO_WILK_MAX_N
-    ? `${name} (${family}; QQ, W and p on a seeded subsample of ${SHAPIRO_WILK_MAX_N})`
-    : `${name} (${family})`;
+  const dropped = lambdas.length - kept.length;
+  const label =
+    (values.length > SHAPIRO_WILK_MAX_N
+      ? `${name} (${family}; QQ, W and p on a seeded subsample of ${SHAPIRO_WILK_MAX_N})`
+      : `${name} (${family})`) +
+    (dropped > 0
+      ? `; ${dropped} λ left out: the re-expressed values are equal in double precision there`
+      : "");
+  if (kept.length < 2) {
+    throw new PlumbError(
+      "constant",
+      `Cannot draw the λ explorer for ${name}: at ${dropped} of ${lambdas.length} powers the ` +
+        `re-expressed values are all equal in double precision; the data vary too little relative ` +
+        `to their size for powers to change their shape`,
+    );
+  }
   return lambdaExplorerSpec({
-    lambdas,
-    logLik,
+    lambdas: kept.map((k) => lambdas[k]),
+    logLik: kept.map((k) => logLik[k]),
     lambdaHat: fit.lambda,
     ci: [fit.ci[0] ?? -Infinity, fit.ci[1] ?? Infinity],
     ciLevel: fit.level,

@@ -13,7 +13,8 @@ import { chartBundle } from "../render/chart_bundle.ts";
 import { comparisonSpec } from "../render/comparison_spec.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
 import { escapeHtml, escapeMarkdown, plainText } from "../render/escape.ts";
-import { formatNumber, formatP } from "../results/format.ts";
+import { formatCount, formatNumber, formatP } from "../results/format.ts";
+import { SHAPIRO_WILK_MAX_N } from "../stats/shapiro_wilk.ts";
 import { tableHtml, tableMarkdown, type TableModel, tableText } from "../render/table.ts";
 import { qqData } from "../stats/qq_data.ts";
 import { type Step, stepLabel, stepOf } from "./steps.ts";
@@ -48,7 +49,20 @@ export function candidatesTable(s: ReexpressionSearch, name: string): TableModel
       { title: "" },
     ],
     rows,
-    notes: [s.reason, `Ranking: ${s.rule}.`, ...s.skipped.map((k) => `Not tried: ${k}.`)],
+    notes: [
+      s.reason,
+      `Ranking: ${s.rule}.`,
+      ...(s.n > SHAPIRO_WILK_MAX_N
+        ? [
+          `W and p: Shapiro–Wilk on a seeded random subsample of ${
+            formatCount(SHAPIRO_WILK_MAX_N)
+          } of the ${
+            formatCount(s.n)
+          } values (seed 1, as a chain on them uses); 1 − W′ uses all of them.`,
+        ]
+        : []),
+      ...s.skipped.map((k) => `Not tried: ${k}.`),
+    ],
   };
 }
 

@@ -168,11 +168,18 @@ export function resolveStep(request: Exclude<ReexpressRequest, "best">, x: Float
  * import { resolveStep, stepLabel } from "./steps.ts";
  * const steps = [resolveStep("sqrt", new Float64Array([1, 4]))];
  * if (stepLabel("count", steps) !== "√(count)") throw new Error(stepLabel("count", steps));
+ * const twice = [resolveStep("reciprocal", new Float64Array([1, 4])), resolveStep("reciprocal", new Float64Array([1, 4]))];
+ * if (stepLabel("count", twice) !== "1/(1/count)") throw new Error(stepLabel("count", twice));
  * ```
  */
 export function stepLabel(name: string, steps: readonly Step[]): string {
   let label = name;
-  for (const s of steps) label = s.formula.replace(/\bx\b/, () => label);
+  for (const s of steps) {
+    // Where x stands bare (1/x), anything but a single word is bracketed: 1/(1/x), 1/(fill volume).
+    const bare = !/\(x[ )]/.test(s.formula);
+    const inner = bare && !/^[\p{L}\p{N}_.]+$/u.test(label) ? `(${label})` : label;
+    label = s.formula.replace(/\bx\b/, () => inner);
+  }
   return label;
 }
 

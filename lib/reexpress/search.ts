@@ -6,12 +6,14 @@
  */
 import { PlumbError } from "../errors.ts";
 import { checkSize, finiteCopy } from "../stats/_input.ts";
+import { randomSubsample } from "../numeric/random.ts";
 import { NORMALITY_TESTS } from "../stats/battery.ts";
+import { SHAPIRO_WILK_MAX_N } from "../stats/shapiro_wilk.ts";
 import { moments } from "../stats/moments.ts";
 import { normalScores } from "../stats/plotting_positions.ts";
 import { boxCoxFit } from "./box_cox_fit.ts";
 import type { LambdaFit } from "./lambda_fit.ts";
-import { nearestLadderPower } from "./ladder.ts";
+import { LADDER_POWERS, nearestLadderPower } from "./ladder.ts";
 import { logShift } from "./log.ts";
 import { applyReexpression, type Reexpression, reexpression } from "./reexpression.ts";
 import { yeoJohnsonFit } from "./yeo_johnson_fit.ts";
@@ -146,7 +148,16 @@ export function searchReexpressions(
     const pct = `${+(bc.level * 100).toPrecision(6)}%`;
     const ladder = nearestLadderPower(bc);
     if (ladder === null) {
-      skipped.push(`Ladder power: no power from −2 to 2 lies inside the Box–Cox ${pct} interval`);
+      // 3 significant digits and a true minus sign (U+2212), as everywhere in the displays
+      const num = (v: number) => String(Number(v.toPrecision(3))).replace("-", "−");
+      const iv = (v: number | null, open: string) => (v === null ? open : num(v));
+      skipped.push(
+        `Ladder power: none of the powers considered, ${
+          LADDER_POWERS.map(num).join(", ")
+        } (Tukey's ladder; 0 is the log), lies inside the Box–Cox ${pct} interval ${
+          iv(bc.ci[0], "−∞")
+        } to ${iv(bc.ci[1], "∞")}`,
+      );
     } else if ([1, 0, 0.5, -1].includes(ladder)) {
       const which = drafts.find((d) =>
         d.simplicity === ({ 1: 0, 0: 1, 0.5: 2, [-1]: 3 } as Record<number, number>)[ladder]
@@ -199,6 +210,14 @@ export function searchReexpressions(
     }
     const tests = NORMALITY_TESTS.map(({ name: test, run }): CandidateTest => {
       try {
+        // Above Shapiro–Wilk's calibrated range, W and p come from the same seeded
+        // subsample a chain on these values would use (size 5000, seed 1).
+        if (test === "Shapiro–Wilk" && y.length > SHAPIRO_WILK_MAX_N) {
+          const sub = run(randomSubsample(y, SHAPIRO_WILK_MAX_N, 1));
+          const method = `${sub.method}, on a seeded random subsample of ${SHAPIRO_WILK_MAX_N} ` +
+            `of the ${y.length} values`;
+          return Object.freeze({ test, result: Object.freeze({ ...sub, method }), note: null });
+        }
         return Object.freeze({ test, result: run(y), note: null });
       } catch (e) {
         if (!(e instanceof PlumbError)) throw e;

@@ -5,6 +5,9 @@
  * @module
  */
 
+/** What a number that could not be computed reads as in any display. */
+export const NOT_COMPUTED = "not computed";
+
 /**
  * A count with comma thousands separators, e.g. `1,000,000`.
  *
@@ -37,7 +40,8 @@ export function formatCount(n: number): string {
  * ```
  */
 export function formatNumber(x: number, digits = 4): string {
-  if (Number.isNaN(x)) return "NaN";
+  // A missing value reads as such in every display, never as "NaN".
+  if (Number.isNaN(x)) return NOT_COMPUTED;
   if (x === Infinity) return "∞";
   if (x === -Infinity) return "−∞";
   if (x === 0) return "0";
@@ -80,7 +84,7 @@ export function formatCompact(x: number, digits = 4): string {
  * ```
  */
 export function formatP(p: number): string {
-  if (Number.isNaN(p)) return "NaN";
+  if (Number.isNaN(p)) return NOT_COMPUTED;
   if (p < 0.0001) return "< 0.0001";
   return p.toFixed(4);
 }
@@ -113,6 +117,7 @@ export function roundSig(x: number, digits = 6): number {
  * ```
  */
 export function formatPClause(p: number): string {
+  if (Number.isNaN(p)) return `p ${NOT_COMPUTED}`;
   const s = formatP(p);
   return s.startsWith("<") ? `p ${s}` : `p = ${s}`;
 }

@@ -25,7 +25,7 @@ Deno.test("formatNumber: significant digits, true minus, exponent outside [1e-4,
   assert.equal(formatNumber(0), "0");
   assert.equal(formatNumber(Infinity), "∞");
   assert.equal(formatNumber(-Infinity), "−∞");
-  assert.equal(formatNumber(NaN), "NaN");
+  assert.equal(formatNumber(NaN), "not computed");
 });
 
 Deno.test("formatCompact: no trailing zeros, true minus in the number and its exponent", () => {
