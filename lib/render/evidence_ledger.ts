@@ -66,7 +66,17 @@ function _testRow(
   digits = 4,
 ): LedgerRow[] {
   if (o === undefined) return [];
-  if (!o.result) return [{ what, value: "not run", evidence: o.skipped ?? "", strength: null }];
+  if (!o.result) {
+    // "Cannot run … on 6 values: at least 8 are needed" reads "needs at least 8 values" here
+    const least = /at least (\d+)/.exec(o.skipped ?? "");
+    const most = /at most (\d+)/.exec(o.skipped ?? "");
+    const why = least
+      ? `needs at least ${least[1]} values`
+      : most
+      ? `calibrated for at most ${most[1]} values`
+      : o.skipped ?? "";
+    return [{ what, value: "not run", evidence: why, strength: null }];
+  }
   const r = o.result as TestResult & { pBound?: string };
   const p = pCell(r);
   return [{
