@@ -141,20 +141,23 @@ export function _generalizedEsdSorted(
   }
   // Centre at the median, scale by half the range (halved first, so it cannot overflow).
   const centre = s[n >> 1];
+  const half = centre / 2;
   const scale = s[n - 1] / 2 - s[0] / 2;
-  const u = (v: number) => (v / 2 - centre / 2) / scale;
+  const u = (v: number) => (v / 2 - half) / scale;
   let lo = 0;
   let hi = n - 1;
   let sum = 0;
   let sumSq = 0;
   const refill = () => {
-    sum = 0;
-    sumSq = 0;
+    let a = 0;
+    let b = 0;
     for (let k = lo; k <= hi; k++) {
-      const d = u(s[k]);
-      sum += d;
-      sumSq += d * d;
+      const d = (s[k] / 2 - half) / scale;
+      a += d;
+      b += d * d;
     }
+    sum = a;
+    sumSq = b;
   };
   refill();
   const statistics: number[] = [];
