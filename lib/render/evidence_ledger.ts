@@ -87,6 +87,16 @@ function _testRow(
   }];
 }
 
+/** One of K²'s two component scores. */
+function _scoreRow(what: string, z: number, p: number): LedgerRow {
+  return {
+    what,
+    value: `z = ${formatNumber(z, 3)}`,
+    evidence: _pText(formatP(p)),
+    strength: _pStrength(p),
+  };
+}
+
 function _effectRow(what: string, symbol: string, g: number, se: number): LedgerRow {
   return {
     what,
@@ -118,14 +128,7 @@ export function evidenceLedger(a: Analysis): LedgerGroup[] {
     _effectRow("excess kurtosis", "G2", m.G2, m.seG2),
     ..._testRow(_test(a.tests, "Anderson–Darling"), "Anderson–Darling, tail-weighted", "A²"),
   ];
-  if (k2) {
-    ends.push({
-      what: "D'Agostino kurtosis score",
-      value: `z = ${formatNumber(k2.kurtosisZ, 3)}`,
-      evidence: _pText(formatP(k2.kurtosisP)),
-      strength: _pStrength(k2.kurtosisP),
-    });
-  }
+  if (k2) ends.push(_scoreRow("D'Agostino kurtosis score", k2.kurtosisZ, k2.kurtosisP));
   const o = f.outliers;
   // Far values on the cluster's side belong to the cluster, not to the outliers.
   const apart = o.values.filter((v) => !(f.cluster !== null && v.side === f.cluster.side));
@@ -148,14 +151,7 @@ export function evidenceLedger(a: Analysis): LedgerGroup[] {
     strength: f.cluster === null ? 0 : 2,
   });
   const lean: LedgerRow[] = [_effectRow("skewness", "G1", m.G1, m.seG1)];
-  if (k2) {
-    lean.push({
-      what: "D'Agostino skewness score",
-      value: `z = ${formatNumber(k2.skewnessZ, 3)}`,
-      evidence: _pText(formatP(k2.skewnessP)),
-      strength: _pStrength(k2.skewnessP),
-    });
-  }
+  if (k2) lean.push(_scoreRow("D'Agostino skewness score", k2.skewnessZ, k2.skewnessP));
   const middle = _testRow(_test(a.tests, "Lilliefors"), "Lilliefors, largest CDF gap", "D");
   const sw = _test(a.tests, "Shapiro–Wilk");
   const whole: LedgerRow[] = _testRow(sw, "Shapiro–Wilk", "W", 4).map((r) => ({
