@@ -15,8 +15,8 @@
  * cluster (each value from N(5, 0.5²) with probability 0.03).
  *
  * Run: `deno run tools/sim/verdict_rates.ts [--reps 2000] [--max-n 1000000]`
- * (about 15 minutes on one core at the defaults). Prints the two Markdown
- * tables in README ("The verdict and how often it is right").
+ * (about 30 minutes on one core at the defaults; the n = 10⁶ cell takes most
+ * of it). Prints the two Markdown tables in README ("The verdict and how often it is right").
  *
  * @module
  */
