@@ -20,7 +20,7 @@
  */
 import type { ReexpressionSearch } from "../reexpress/candidates.ts";
 import { applyReexpression } from "../reexpress/reexpression.ts";
-import { formatNumber, formatPClause } from "../render/format.ts";
+import { formatNumber, formatPClause } from "../results/format.ts";
 import type { Reading } from "../results/reading.ts";
 import { analyse, ANALYSE_MIN_N } from "./analysis.ts";
 import { type Step, stepOf } from "./steps.ts";

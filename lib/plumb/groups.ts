@@ -10,7 +10,6 @@ import { chartBundle } from "../render/chart_bundle.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
 import { escapeHtml, escapeMarkdown, plainText } from "../render/escape.ts";
 import { formatCount, formatP } from "../results/format.ts";
-import { histogramSpec } from "../render/histogram_spec.ts";
 import { groupSpec } from "../render/group_spec.ts";
 import { qqSparkline } from "../render/sparkline.ts";
 import { tableHtml, tableMarkdown, type TableModel, tableText } from "../render/table.ts";

@@ -299,14 +299,21 @@ export class Plumb implements Displayable {
 
   /** The QQ plot with its envelope, as a displayable chart. */
   qq(options: QqOptions = {}): Chart {
-    return this.#chart("qq", options, (q) =>
-      qqSpec(q, { name: this.label, slope: this.analysis().reading.facts.sigma.slope }));
+    return this.#chart(
+      "qq",
+      options,
+      (q) => qqSpec(q, { name: this.label, slope: this.analysis().reading.facts.sigma.slope }),
+    );
   }
 
   /** The detrended QQ plot (deviation from the line, with the envelope). */
   detrended(options: QqOptions = {}): Chart {
-    return this.#chart("detrended", options, (q) =>
-      detrendedSpec(q, { name: this.label, slope: this.analysis().reading.facts.sigma.slope }));
+    return this.#chart(
+      "detrended",
+      options,
+      (q) =>
+        detrendedSpec(q, { name: this.label, slope: this.analysis().reading.facts.sigma.slope }),
+    );
   }
 
   #chart(

@@ -6,7 +6,7 @@
  *
  * @module
  */
-import { formatCount, formatNumber } from "../render/format.ts";
+import { formatCount, formatNumber } from "../results/format.ts";
 import type { ReadingFacts, ValueAtRow } from "../results/reading.ts";
 
 /** Three significant digits; 0 when it rounds to 0 at three decimals (sums of symmetric data). */

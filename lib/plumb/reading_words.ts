@@ -6,7 +6,7 @@
  *
  * @module
  */
-import { formatCount, formatNumber } from "../render/format.ts";
+import { formatCount, formatNumber } from "../results/format.ts";
 import type { Moments } from "../stats/moments.ts";
 import type { QqData } from "../stats/qq_data.ts";
 import type { TestResult } from "../stats/result.ts";

@@ -15,7 +15,6 @@ import type { MimeBundle } from "../results/display.ts";
 import { chartBundle } from "./chart_bundle.ts";
 import { escapeHtml, escapeMarkdown, plainText } from "./escape.ts";
 import { formatCentre, formatCount, formatNumber } from "../results/format.ts";
-import { tableHtml, tableMarkdown, tableText } from "./table.ts";
 import { evidenceLedger, ledgerHtml, ledgerLines } from "./evidence_ledger.ts";
 import { histogramSpec } from "./histogram_spec.ts";
 import { qqSpec } from "./qq_spec.ts";

@@ -30,7 +30,7 @@ import type { DagostinoPearsonResult } from "../stats/dagostino_pearson.ts";
 import type { TestResult } from "../stats/result.ts";
 import { pCell } from "./analysis_tables.ts";
 import { escapeHtml } from "./escape.ts";
-import { formatCount, formatNumber, formatP } from "./format.ts";
+import { formatCount, formatNumber, formatP } from "../results/format.ts";
 
 /** One measure in the ledger. */
 export interface LedgerRow {

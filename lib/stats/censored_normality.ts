@@ -15,8 +15,8 @@ import {
   _NULL_ONE_LIMIT,
   _NULL_SEVERAL_LIMITS,
 } from "./_censored_null_table.ts";
-import { tiesWarning } from "./_input.ts";
 import { BLOM_OFFSET } from "./plotting_positions.ts";
+import { roundingWarning } from "./rounding.ts";
 import { freezeResult, type TestResult } from "./result.ts";
 
 const _NAME = "the censored-sample Shapiro–Francia test";
@@ -180,7 +180,10 @@ export function censoredShapiroFrancia(sample: CensoredSample): CensoredTestResu
         `the limit by knowledge of the process, not by this p-value`,
     );
   }
-  const ties = tiesWarning(g.obs);
+  const obs = g.obs;
+  const ties = obs.length > 2 && obs[0] < obs[obs.length - 1]
+    ? roundingWarning(obs, true)
+    : undefined;
   if (ties) warnings.push(ties);
   if (observed < 20) {
     warnings.push(

@@ -36,7 +36,7 @@ Deno.test("precise data near 1000: every display renders, none says NaN", async 
 });
 
 Deno.test("precise data near 1000: the report of a table with such a column completes", async () => {
-  const t = toTable({ mass, torque: mass.map((v, i) => 2 + ((i * 7919) % 101) / 50) });
+  const t = toTable({ mass, torque: mass.map((_, i) => 2 + ((i * 7919) % 101) / 50) });
   const r = await writeReport(t, { title: "mass" });
   ok(r.html.includes("net") || r.html.includes("mass"));
   ok(!/\bNaN\b/.test(r.html), "the report holds NaN");
