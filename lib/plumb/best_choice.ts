@@ -56,7 +56,9 @@ const _INSTEAD: Readonly<Record<string, string>> = Object.freeze({
  * import { analyse } from "./analysis.ts";
  * import { chooseBestStep } from "./best_choice.ts";
  * import { searchReexpressions } from "../reexpress/search.ts";
- * const x = Float64Array.from({ length: 200 }, (_, i) => Math.exp((i - 100) / 40));
+ * import { normalQuantile } from "@plumbline/plumbline";
+ * // lognormal: normal scores, exponentiated
+ * const x = Float64Array.from({ length: 200 }, (_, i) => Math.exp(0.6 * normalQuantile((i + 0.5) / 200)));
  * const a = analyse(x, { label: "x", column: "x", missingDropped: 0, textDropped: 0 });
  * const c = chooseBestStep(x, a.reading, searchReexpressions(x));
  * if (c.step?.formula !== "ln(x)") throw new Error(c.note);

@@ -117,7 +117,8 @@ function _effectRow(what: string, symbol: string, g: number, se: number): Ledger
  * import { evidenceLedger } from "./evidence_ledger.ts";
  * const x = new Float64Array([4.1, 3.9, 4.4, 4.0, 4.2, 3.7, 4.6, 4.3, 3.8, 4.1, 4.0, 4.5]);
  * const l = evidenceLedger(analyse(x, { label: "fill", column: "fill", missingDropped: 0, textDropped: 0 }));
- * if (l.map((g) => g.title).join("|") !== "The ends|The lean|The middle|The whole line") throw new Error("groups");
+ * const heads = l.map((g) => g.title.split(":")[0]).join("|");
+ * if (heads !== "The ends|The lean|The middle|The whole line") throw new Error("groups");
  * ```
  */
 export function evidenceLedger(a: Analysis): LedgerGroup[] {
