@@ -299,30 +299,23 @@ export class Plumb implements Displayable {
 
   /** The QQ plot with its envelope, as a displayable chart. */
   qq(options: QqOptions = {}): Chart {
-    return this.#chart(
-      "qq",
-      options,
-      (q) => qqSpec(q, { name: this.label, slope: this.analysis().reading.facts.sigma.slope }),
-    );
+    return this.#chart("qq", options, qqSpec);
   }
 
   /** The detrended QQ plot (deviation from the line, with the envelope). */
   detrended(options: QqOptions = {}): Chart {
-    return this.#chart(
-      "detrended",
-      options,
-      (q) =>
-        detrendedSpec(q, { name: this.label, slope: this.analysis().reading.facts.sigma.slope }),
-    );
+    return this.#chart("detrended", options, detrendedSpec);
   }
 
   #chart(
     kind: "qq" | "detrended",
     options: QqOptions,
-    spec: (q: Analysis["qq"]) => ReturnType<typeof qqSpec>,
+    draw: typeof qqSpec,
   ): Chart {
     const own = Object.keys(options).length === 0;
     if (own && this.#charts[kind]) return this.#charts[kind]!;
+    const spec = (q: Analysis["qq"]) =>
+      draw(q, { name: this.label, slope: this.analysis().reading.facts.sigma.slope });
     const c = chart(() => {
       if (own) return spec(this.analysis().qq);
       const { values, rows } = this.#load();
