@@ -9,6 +9,7 @@ import type { MergedLabel, Table } from "../data/table.ts";
 import { PlumbError } from "../errors.ts";
 import type { Analysis } from "../results/analysis.ts";
 import { _meanSd } from "../stats/moments.ts";
+import type { Reexpression } from "../reexpress/reexpression.ts";
 import type { QqOptions } from "../stats/qq_data.ts";
 import { type Adjustment, adjustPValues, checkAdjustment } from "../stats/multiplicity.ts";
 import { refuseCensored } from "./_censored_guard.ts";
@@ -39,6 +40,12 @@ export interface GroupState {
   readonly groupBy: string;
   /** The options of `.by()`. */
   readonly groupOptions: GroupOptions;
+  /**
+   * The re-expression of the chain's `.stakes()` figures, on first need;
+   * `undefined` when the chain has none, so each group uses its own ranked
+   * candidates' first.
+   */
+  readonly stakesModel?: () => Reexpression | undefined;
 }
 
 /** One group's screening, or why it was not screened. */
@@ -95,13 +102,46 @@ function _compare(a: string, b: string): number {
  *
  * @param state the table, the column and its steps, the grouping column and options
  */
-export function screenGroups(state: GroupState): GroupResult {
+/** The rows of one group: where its numbers are, and the cells left out. */
+export interface GroupSample {
+  /** The group's value. */
+  readonly group: string;
+  /** The group's values in original units (before any re-expression), in row order. */
+  readonly values: Float64Array;
+  /** Their 0-based row indices in the table. */
+  readonly rows: readonly number[];
+  /** The group's missing cells, left out. */
+  readonly missingDropped: number;
+  /** The group's text cells, left out on request. */
+  readonly textDropped: number;
+}
+
+/** A variable split by a grouping column, groups in natural order. */
+export interface GroupSplit {
+  /** One entry per group, in natural order (numbers by value, then text). */
+  readonly groups: readonly GroupSample[];
+  /** Rows with a value but no group, left out. */
+  readonly noGroup: number;
+  /** Missing cells of the variable, in all rows. */
+  readonly missingDropped: number;
+  /** Text cells of the variable left out on request, in all rows. */
+  readonly textDropped: number;
+  /** Group labels merged because they differ only in spaces. */
+  readonly mergedLabels: readonly MergedLabel[];
+}
+
+/**
+ * Split the variable by the grouping column: the values of each group (in
+ * original units), with what was left out. Raises `"non-numeric"` (naming
+ * rows) unless text cells are dropped on request, and `"censored"` for
+ * censored cells.
+ *
+ * @param state the table, the column and its steps, the grouping column and options
+ */
+export function splitGroups(state: GroupState): GroupSplit {
   const { table, column, groupBy, options } = state;
-  const steps = state.steps();
-  const adjust = checkAdjustment(state.groupOptions.adjust);
-  // Raises "non-numeric" (naming rows) unless text cells are dropped on request.
   const used = table.numeric(column, { dropText: options.dropText ?? false });
-  refuseCensored(used, stepLabel(column, steps));
+  refuseCensored(used, stepLabel(column, state.steps()));
   const cells = table.numericCells(column);
   const g = table.text(groupBy);
   // Per group: the rows holding a number, and the cells left out.
@@ -119,14 +159,36 @@ export function screenGroups(state: GroupState): GroupResult {
     else if (cells.nonNumeric[i]) entry.text++;
     else entry.rows.push(i);
   }
+  const groups = [...byGroup.keys()].sort(_compare).map((key) => {
+    const { rows, missing, text } = byGroup.get(key)!;
+    return Object.freeze({
+      group: key,
+      values: Float64Array.from(rows, (i) => cells.values[i]),
+      rows,
+      missingDropped: missing,
+      textDropped: text,
+    });
+  });
+  return Object.freeze({
+    groups: Object.freeze(groups),
+    noGroup,
+    missingDropped: used.provenance.missingDropped,
+    textDropped: used.provenance.textDropped,
+    mergedLabels: g.merged,
+  });
+}
+
+export function screenGroups(state: GroupState): GroupResult {
+  const { column, groupBy, options } = state;
+  const steps = state.steps();
+  const adjust = checkAdjustment(state.groupOptions.adjust);
+  const split = splitGroups(state);
   const label = stepLabel(column, steps);
-  const keys = [...byGroup.keys()].sort(_compare);
   const residuals: number[] = [];
   const rows: GroupRow[] = [];
-  for (const key of keys) {
-    const { rows: idx, missing, text } = byGroup.get(key)!;
-    const counts = { missingDropped: missing, textDropped: text };
-    let v: Float64Array = Float64Array.from(idx, (i) => cells.values[i]);
+  for (const { group: key, values, rows: idx, missingDropped, textDropped } of split.groups) {
+    const counts = { missingDropped, textDropped };
+    let v: Float64Array = values;
     for (const s of steps) v = s.apply(v);
     if (v.length >= 2) {
       const { mean } = _meanSd(v);
@@ -173,8 +235,8 @@ export function screenGroups(state: GroupState): GroupResult {
         label: `${label} residuals within ${groupBy}`,
         column,
         transform: steps.length ? label : undefined,
-        missingDropped: used.provenance.missingDropped,
-        textDropped: used.provenance.textDropped,
+        missingDropped: split.missingDropped,
+        textDropped: split.textDropped,
       }, { qq: options.qq });
     } catch (e) {
       if (!(e instanceof PlumbError && e.code === "constant")) throw e;
@@ -185,11 +247,11 @@ export function screenGroups(state: GroupState): GroupResult {
     groupBy,
     adjust,
     groups: Object.freeze(final),
-    noGroup,
-    missingDropped: used.provenance.missingDropped,
-    textDropped: used.provenance.textDropped,
+    noGroup: split.noGroup,
+    missingDropped: split.missingDropped,
+    textDropped: split.textDropped,
     residuals: res,
-    mergedLabels: g.merged,
+    mergedLabels: split.mergedLabels,
   });
 }
 

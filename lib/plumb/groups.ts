@@ -5,6 +5,7 @@
  *
  * @module
  */
+import { PlumbError } from "../errors.ts";
 import { cardBundle, cardCharts } from "../render/card.ts";
 import { chartBundle } from "../render/chart_bundle.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
@@ -15,7 +16,10 @@ import { qqSparkline } from "../render/sparkline.ts";
 import { tableHtml, tableMarkdown, type TableModel, tableText } from "../render/table.ts";
 import { ADJUSTMENT_NAMES, checkAdjustment } from "../stats/multiplicity.ts";
 import { VERDICT_SHORT } from "../results/reading.ts";
+import { checkOptions } from "../results/options.ts";
+import { STAKES_OPTIONS, type StakesOptions } from "../stakes/stakes.ts";
 import { writeSentence } from "./sentence.ts";
+import { type GroupStakesView, groupStakesView } from "./stakes_groups.ts";
 import { _csv } from "./_csv.ts";
 import * as summary from "./_rows.ts";
 import {
@@ -138,6 +142,26 @@ export class PlumbGroups implements Displayable {
       "text/plain": plainText(frozen.map((t) => `• ${t}`).join("\n")),
     });
     return Object.freeze({ texts: frozen, toJSON: () => frozen, [DISPLAY]: () => bundle });
+  }
+
+  /**
+   * What the departure changes within each group: each group's central
+   * range, share outside the limits, Cpk and mean interval, the
+   * normal-theory way beside the ways without a model (see `Plumb.stakes`).
+   *
+   * @param options coverage (default 0.95), lower and upper limits, levels, bootstrap seed
+   */
+  stakes(options: StakesOptions = {}): GroupStakesView {
+    const opts = checkOptions(options, STAKES_OPTIONS, ".by(...).stakes()");
+    if (opts.reexpression !== undefined && this.#s.stakesModel?.() !== undefined) {
+      throw new PlumbError(
+        "bad-option",
+        "Cannot use the reexpression option of .stakes() after .reexpress(): the chain's own " +
+          "re-expression is used in every group",
+        { reexpression: opts.reexpression },
+      );
+    }
+    return groupStakesView(this.#s, opts);
   }
 
   /** The per-group table as CSV (numbers unrounded). */

@@ -249,6 +249,8 @@ export class Plumb implements Displayable {
       options: { dropText: own.dropText, qq: own.qq },
       groupBy: column,
       groupOptions: options,
+      stakesModel: () =>
+        this.#parent === undefined ? undefined : this.#stakesModel({}) as Reexpression,
     });
   }
 

@@ -41,8 +41,18 @@ export interface StakesView extends Displayable {
   save(path: string): Promise<SavedFile>;
 }
 
-/** One CSV row per figure. */
-function _rows(s: Stakes): unknown[][] {
+/** The CSV header of the stakes figures. */
+export const STAKES_CSV_HEAD: readonly string[] = [
+  "quantity",
+  "way",
+  "value",
+  "lower",
+  "upper",
+  "verdict",
+];
+
+/** One CSV row per figure: quantity, way, value, lower, upper, verdict. */
+export function stakesRows(s: Stakes): unknown[][] {
   const j = s.judgement;
   const re = s.reexpression?.label ?? "";
   const r = s.range;
@@ -86,6 +96,25 @@ function _rows(s: Stakes): unknown[][] {
 }
 
 /**
+ * A spec's chart as the SVG and PNG files `save` writes (with a title and
+ * description for screen readers).
+ *
+ * @param spec the chart's spec, on first need
+ * @param title the chart's title, on first need
+ */
+export function specFiles(
+  spec: () => TopLevelSpec,
+  title: () => string,
+): { svg: () => Promise<string>; png: () => Promise<Uint8Array> } {
+  const svg = async () =>
+    accessibleSvg(await renderSvg(spec()), {
+      title: title(),
+      description: String((spec() as { description?: string }).description ?? title()),
+    });
+  return { svg, png: async () => (await rasterize(await svg(), { title: title() })).png };
+}
+
+/**
  * The stakes view of one variable, computed on first need.
  *
  * @param compute the figures, on first need
@@ -111,11 +140,7 @@ export function stakesView(compute: () => Stakes, name: () => string): StakesVie
     () => (model ??= { caption: `What the departure changes: ${name()}`, ...stakesTable(get()) });
   const sentence = sentenceOf(() => stakesSentence(get(), name()));
   const title = () => `What the departure changes for ${name()}`;
-  const svg = async () =>
-    accessibleSvg(await renderSvg(getSpec()), {
-      title: title(),
-      description: String((getSpec() as { description?: string }).description ?? title()),
-    });
+  const files = specFiles(getSpec, title);
   const show = () =>
     bundle ??= (async () => {
       const chart = await chartBundle(getSpec());
@@ -129,7 +154,7 @@ export function stakesView(compute: () => Stakes, name: () => string): StakesVie
         "text/plain": plainText(`${tableText(t)}\n\n${text}`),
       });
     })();
-  const toCSV = () => _csv(["quantity", "way", "value", "lower", "upper", "verdict"], _rows(get()));
+  const toCSV = () => _csv(STAKES_CSV_HEAD, stakesRows(get()));
   return Object.freeze({
     [DISPLAY]: show,
     result: get,
@@ -145,8 +170,7 @@ export function stakesView(compute: () => Stakes, name: () => string): StakesVie
         bundle: show,
         json: () => get().toJSON(),
         csv: toCSV,
-        svg,
-        png: async () => (await rasterize(await svg(), { title: title() })).png,
+        ...files,
       }),
   });
 }

@@ -135,8 +135,12 @@ export function _intervalLayers(intervals: _Interval[], points: _Point[]): unkno
 
 export function _extent(values: readonly (number | null)[], pad = 0.06): [number, number] {
   const v = values.filter((t): t is number => t !== null && Number.isFinite(t));
-  let lo = Math.min(...v);
-  let hi = Math.max(...v);
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const t of v) {
+    if (t < lo) lo = t;
+    if (t > hi) hi = t;
+  }
   if (!(hi > lo)) {
     const d = Math.abs(lo) * 0.1 || 1;
     lo -= d;

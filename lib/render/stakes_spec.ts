@@ -59,7 +59,7 @@ function _rangePanel(s: Stakes, name: string, width: number): Record<string, unk
   rows.push(`ranks, no model (bands: ${+(r.ranksCiLevel * 100).toPrecision(6)}% CI)`);
   rows.push("the data: 101 quantiles");
   const all: (number | null)[] = [...r.normal, ...r.ranks, ...r.strip];
-  if (r.reexpressed !== null) all.push(...r.reexpressed);
+  if (r.reexpressed !== null) all.push(r.reexpressed[0], r.reexpressed[1]);
   for (const [a, b] of r.ranksCi) all.push(a, b);
   const flagged = new Set(r.flags.map((f) => f.side));
   if (r.flags.some((f) => f.code === "below-zero")) all.push(0);
@@ -68,7 +68,7 @@ function _rangePanel(s: Stakes, name: string, width: number): Record<string, unk
     : [[s.outside.lower, "lower limit"], [s.outside.upper, "upper limit"]]
       .filter((l): l is [number, string] => l[0] !== null)
       .map(([v, t]) => ({ v, t: `${t} ${_g(v)}` }));
-  all.push(...limits.map((l) => l.v));
+  for (const l of limits) all.push(l.v);
   const domain = _extent(all);
   const intervals: _Interval[] = [{ r: rows[0], a: r.normal[0], b: r.normal[1], kind: "normal" }];
   const points: _Point[] = r.normal.map((v, j) => {
@@ -201,6 +201,59 @@ export function stakesSpec(s: Stakes, options: StakesSpecOptions = {}): TopLevel
       text: `${name}: what the departure changes`,
       subtitle: `n = ${s.n} · overall: ${_VERDICT[s.judgement.overall]}`,
     },
+    config: { ...CHART_CONFIG, concat: { spacing: 18 } },
+    vconcat: panels,
+  } as unknown as TopLevelSpec;
+}
+
+/** Options for {@linkcode stakesGroupsSpec}. */
+export interface StakesGroupsSpecOptions extends StakesSpecOptions {
+  /**
+   * The grouping column, for panel titles.
+   * @default "group"
+   */
+  readonly by?: string;
+}
+
+/**
+ * The central range of each group, one panel per group (the range panel of
+ * {@linkcode stakesSpec}), each titled by its group and verdict.
+ *
+ * @param groups the groups to draw, in order, each with its stakes
+ * @param options name, grouping column and width
+ */
+export function stakesGroupsSpec(
+  groups: readonly { readonly group: string; readonly stakes: Stakes }[],
+  options: StakesGroupsSpecOptions = {},
+): TopLevelSpec {
+  const name = options.name ?? "value";
+  const by = options.by ?? "group";
+  const width = options.width ?? 420;
+  const made = groups.map(({ group, stakes: s }): Record<string, unknown> => {
+    const panel = _rangePanel(s, name, width);
+    const title = panel.title as { text: string };
+    return { ...panel, title: { ...title, text: `${by} = ${group} (n = ${s.n}) · ${title.text}` } };
+  });
+  // One scale for every group, so that their ranges compare by eye.
+  type X = { scale: { domain: [number, number] } };
+  const shared: [number, number] = [Infinity, -Infinity];
+  for (const p of made) {
+    const [a, b] = (p.encoding as { x: X }).x.scale.domain;
+    shared[0] = Math.min(shared[0], a);
+    shared[1] = Math.max(shared[1], b);
+  }
+  const panels = made.map((p) => {
+    const enc = p.encoding as { x: X };
+    return {
+      ...p,
+      encoding: { ...enc, x: { ...enc.x, scale: { ...enc.x.scale, domain: shared } } },
+    };
+  });
+  return {
+    $schema: VEGALITE_SCHEMA,
+    description: `The central range of ${name} in each ${by} group, computed assuming a normal ` +
+      "model, on a re-expression mapped back, and from the ranks, on one axis per group",
+    title: { text: `${name} by ${by}: the central range three ways` },
     config: { ...CHART_CONFIG, concat: { spacing: 18 } },
     vconcat: panels,
   } as unknown as TopLevelSpec;

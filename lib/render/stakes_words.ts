@@ -29,6 +29,7 @@ export function stakesShare(v: number): string {
 
 const _n = stakesNumber;
 const _pct = (level: number) => `${+(level * 100).toPrecision(6)}%`;
+const _pair = (p: readonly [number | null, number | null]) => _span(p[0], p[1]);
 const _span = (a: number | null, b: number | null) =>
   `${a === null ? "open" : _n(a)} to ${b === null ? "open" : _n(b)}`;
 
@@ -61,7 +62,7 @@ export function stakesTable(s: Stakes): TableModel {
       _span(r.normal[0], r.normal[1]),
       r.reexpressed === null ? "" : _span(r.reexpressed[0], r.reexpressed[1]),
       `${_span(r.ranks[0], r.ranks[1])} (ranks; ${_pct(r.ranksCiLevel)} CIs ` +
-        `${_span(...r.ranksCi[0])}, ${_span(...r.ranksCi[1])})`,
+        `${_pair(r.ranksCi[0])}, ${_pair(r.ranksCi[1])})`,
       s.judgement.range.verdict,
     ),
   ];
@@ -126,8 +127,14 @@ export function stakesTable(s: Stakes): TableModel {
  *
  * @param s the stakes result
  * @param name the variable's name
+ * @param options `caution: false` leaves the caution out (for a list of
+ *   paragraphs that states it once)
  */
-export function stakesSentence(s: Stakes, name: string): string {
+export function stakesSentence(
+  s: Stakes,
+  name: string,
+  options: { readonly caution?: boolean } = {},
+): string {
   const j = s.judgement;
   const parts: [string, StakesVerdict][] = [[
     `the central ${_pct(s.range.coverage)} range`,
@@ -158,18 +165,16 @@ export function stakesSentence(s: Stakes, name: string): string {
   );
   const r = s.range;
   out.push(
-    `Central ${_pct(r.coverage)} range: ${_span(...r.normal)} under the normal model` +
-      (r.reexpressed === null
-        ? ""
-        : `, ${_span(...r.reexpressed)} under ${s.reexpression!.label}`) +
-      `, ${_span(...r.ranks)} from the ranks. ${j.range.reasons.join(". ")}.`,
+    `Central ${_pct(r.coverage)} range: ${_pair(r.normal)} under the normal model` +
+      (r.reexpressed === null ? "" : `, ${_pair(r.reexpressed)} under ${s.reexpression!.label}`) +
+      `, ${_pair(r.ranks)} from the ranks. ${j.range.reasons.join(". ")}.`,
   );
   if (j.outside !== null) out.push(`${j.outside.reasons.join(". ")}.`);
   if (j.capability !== null) out.push(`${j.capability.reasons.join(". ")}.`);
   out.push(
-    `Mean ${_n(s.mean.estimate)}: ${_pct(s.mean.level)} t interval ${_span(...s.mean.t)}, ` +
-      `bootstrap ${_span(...s.mean.bootstrap)}. ${j.mean.reasons.join(". ")}.`,
+    `Mean ${_n(s.mean.estimate)}: ${_pct(s.mean.level)} t interval ${_pair(s.mean.t)}, ` +
+      `bootstrap ${_pair(s.mean.bootstrap)}. ${j.mean.reasons.join(". ")}.`,
   );
-  out.push(`${s.cautions.join(". ")}.`);
+  if (options.caution ?? true) out.push(`${s.cautions.join(". ")}.`);
   return out.join(" ");
 }

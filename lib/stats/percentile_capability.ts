@@ -77,7 +77,7 @@ export function percentileCapability(
   if (upper !== null) sides.push((upper - med) / (hi - med));
   if (lower !== null) sides.push((med - lower) / (med - lo));
   const cp = lower !== null && upper !== null ? (upper - lower) / (hi - lo) : null;
-  const cpk = Math.min(...sides);
+  const cpk = sides.reduce((a, b) => Math.min(a, b), Infinity);
   const degenerate = !Number.isFinite(cpk) || (cp !== null && !Number.isFinite(cp));
   return Object.freeze({
     n,
