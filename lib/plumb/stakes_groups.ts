@@ -143,7 +143,8 @@ function _table(r: GroupStakes, limits: boolean): TableModel {
   const pct = (v: number) => `${+(v * 100).toPrecision(6)}%`;
   const notes = [
     "Re-expressed ranges are mapped back to the original units. Rank-based ranges need many " +
-    "values per group to be firm (each group's own notes are in its paragraph and in toJSON()).",
+    "values per group to be firm: see each group's paragraph, and its notes in toJSON(). " +
+    "Overall verdict: matters when it matters for any figure, else unclear when any is unclear.",
   ];
   const count = (k: number, what: string) => `${k} ${what}${k === 1 ? "" : "s"}`;
   if (r.noGroup > 0) notes.push(`${count(r.noGroup, "row")} with no ${r.groupBy} value left out.`);
@@ -162,7 +163,7 @@ function _table(r: GroupStakes, limits: boolean): TableModel {
       { title: "rank range" },
       ...(limits ? [{ title: "outside: normal / observed" }, { title: "Cpk (CI)" }] : []),
       { title: "mean: t / bootstrap" },
-      { title: "verdict" },
+      { title: "overall verdict" },
     ],
     rows,
     notes,

@@ -51,7 +51,12 @@ export interface StakesSpecOptions {
 }
 
 /** The central-range panel. */
-function _rangePanel(s: Stakes, name: string, width: number): Record<string, unknown> {
+function _rangePanel(
+  s: Stakes,
+  name: string,
+  width: number,
+  shared?: readonly [number, number],
+): Record<string, unknown> {
   const r = s.range;
   const pct = `${+(r.coverage * 100).toPrecision(6)}%`;
   const rows: string[] = ["normal model: mean ± z·sd"];
@@ -69,7 +74,8 @@ function _rangePanel(s: Stakes, name: string, width: number): Record<string, unk
       .filter((l): l is [number, string] => l[0] !== null)
       .map(([v, t]) => ({ v, t: `${t} ${_g(v)}` }));
   for (const l of limits) all.push(l.v);
-  const domain = _extent(all);
+  // Open ends and the axis reach the shared domain's edges when panels share one.
+  const domain = shared ?? _extent(all);
   const intervals: _Interval[] = [{ r: rows[0], a: r.normal[0], b: r.normal[1], kind: "normal" }];
   const points: _Point[] = r.normal.map((v, j) => {
     const side = j === 0 ? "lower" : "upper";
@@ -229,25 +235,19 @@ export function stakesGroupsSpec(
   const name = options.name ?? "value";
   const by = options.by ?? "group";
   const width = options.width ?? 420;
-  const made = groups.map(({ group, stakes: s }): Record<string, unknown> => {
-    const panel = _rangePanel(s, name, width);
-    const title = panel.title as { text: string };
-    return { ...panel, title: { ...title, text: `${by} = ${group} (n = ${s.n}) · ${title.text}` } };
-  });
-  // One scale for every group, so that their ranges compare by eye.
+  // One scale for every group, so that their ranges compare by eye: the union
+  // of each panel's own domain.
   type X = { scale: { domain: [number, number] } };
   const shared: [number, number] = [Infinity, -Infinity];
-  for (const p of made) {
-    const [a, b] = (p.encoding as { x: X }).x.scale.domain;
+  for (const { stakes: s } of groups) {
+    const [a, b] = (_rangePanel(s, name, width).encoding as { x: X }).x.scale.domain;
     shared[0] = Math.min(shared[0], a);
     shared[1] = Math.max(shared[1], b);
   }
-  const panels = made.map((p) => {
-    const enc = p.encoding as { x: X };
-    return {
-      ...p,
-      encoding: { ...enc, x: { ...enc.x, scale: { ...enc.x.scale, domain: shared } } },
-    };
+  const panels = groups.map(({ group, stakes: s }) => {
+    const panel = _rangePanel(s, name, width, shared);
+    const title = panel.title as { text: string };
+    return { ...panel, title: { ...title, text: `${by} = ${group} (n = ${s.n}) · ${title.text}` } };
   });
   return {
     $schema: VEGALITE_SCHEMA,

@@ -4,7 +4,7 @@
 import assert from "node:assert/strict";
 import { seededRandom } from "../../lib/numeric/random.ts";
 import { reexpression } from "../../lib/reexpress/reexpression.ts";
-import { stakesSpec } from "../../lib/render/stakes_spec.ts";
+import { stakesGroupsSpec, stakesSpec } from "../../lib/render/stakes_spec.ts";
 import { stakesSentence, stakesTable } from "../../lib/render/stakes_words.ts";
 import { renderSvg } from "../../lib/render/svg.ts";
 import { tableText } from "../../lib/render/table.ts";
@@ -86,3 +86,23 @@ const TABLE =
   "The candidate search keeps the data as measured, so there are no re-expressed figures";
 const SENTENCE =
   "fill (mL) (n = 24): assuming a normal distribution leaves the central 95% range and Cpk uncertain; and makes no material difference to the share outside the limits and the mean's interval. Central 95% range: 498.6 to 501.4 under the normal model, 498.9 to 501.1 from the ranks. The normal-theory limits lie inside the 90% intervals of the rank-based limits, but with 24 values those intervals are open on one side: too few values to tell the two answers apart. The normal fit's 0.468% outside the limits agrees with the observed 0% (95% interval 0% to 14.2%). No Cpk free of the normal model is available here (no re-expression was used, and a percentile-based index needs more values); the central range shows no clear departure in the tails, on which Cpk rests. Mean 500: 95% t interval 499.7 to 500.3, bootstrap 499.7 to 500.3. The bootstrap and t intervals are centred within 4.88% of the t interval's half-width of each other; the bootstrap one is 7.2% narrower, as bootstrap intervals tend to be with few values. Reference ranges and release decisions follow your organisation's procedures and the applicable standards; these figures inform such a decision, they do not make it.";
+
+Deno.test("stakes groups chart: one panel per group on one shared axis, no warnings", async () => {
+  const groups = [
+    { group: "A", stakes: stakes(normal(60), { lower: 497, upper: 503 }) },
+    { group: "B", stakes: stakes(lognormal(40), { lower: 497, upper: 503 }) },
+  ];
+  const spec = stakesGroupsSpec(groups, { name: "fill", by: "line" }) as unknown as {
+    vconcat: { title: { text: string }; encoding: { x: { scale: { domain: number[] } } } }[];
+  };
+  assert.deepEqual(spec.vconcat.map((p) => p.title.text.split(" · ")[0]), [
+    "line = A (n = 60)",
+    "line = B (n = 40)",
+  ]);
+  const [a, b] = spec.vconcat.map((p) => p.encoding.x.scale.domain);
+  assert.deepEqual(a, b);
+  assert.ok(a[0] < 20 && a[1] > 500, `one axis holds both groups: ${a}`);
+  const warnings: string[] = [];
+  await renderSvg(spec as never, { warnings });
+  assert.deepEqual(warnings, []);
+});

@@ -138,6 +138,39 @@ NOTEBOOKS = {
          "instead, never loaded as an empty table."),
         ("code", 'try {\n  await loadTable(new Set([500.1, 499.8]));\n} catch (e) {\n  console.log((e as Error).message);\n}'),
     ],
+    "05_what_it_changes.ipynb": [
+        ("md", "# What the departure changes for the next number\n\n" + INVENTED + "\n\n"
+         "A p-value says whether a departure from normality can be seen, not whether it matters. "
+         "`.stakes()` computes the figures the lab reports next — a central range, the share outside "
+         "specification limits, Cpk, the mean's interval — the normal-theory way, on a re-expression "
+         "mapped back to the original units, and without a model, on one axis per figure, and says in "
+         "words whether the difference matters.\n\n"
+         "Reference ranges and release decisions follow your organisation's procedures and the "
+         "applicable standards; these figures inform such a decision, they do not make it."),
+        ("code", 'import { loadTable, plumb } from "../mod.ts";\n'
+                 'const table = await loadTable("../demo/bottling_lab.csv");'),
+        ("md", "## Fill volume against its specification limits\n\nThe invented label claim needs every "
+         "bottle between 497 and 503 mL. Fill volume is close to normal, so the normal fit's share "
+         "outside should agree with the share observed (with its exact Clopper–Pearson interval). "
+         "The percentile-based index needs about 740 values for its 0.135% points, and says so."),
+        ("code", 'const fill = plumb(table, "fill_ml", { dropText: true }).stakes({ lower: 497, upper: 503 });\nfill;'),
+        ("md", "## Cap torque: capability on a skewed quantity\n\nCap torque is right-skewed. Cpk rests "
+         "on the tails, so it is computed on the data as measured (with Bissell's interval), on the "
+         "chain's re-expression with the limits mapped there, and from percentiles."),
+        ("code", 'plumb(table, "cap_torque_nm", { dropText: true }).reexpress("log").stakes({ lower: 1.2, upper: 2.8 });'),
+        ("md", "Per filler line, every group on one axis so their ranges compare by eye. The table keeps "
+         "every figure; each paragraph is written for its line."),
+        ("code", 'plumb(table, "cap_torque_nm", { dropText: true }).by("line").stakes({ lower: 1.2, upper: 2.8 });'),
+        ("md", "## A central range for dissolved oxygen\n\nOxygen cannot be negative, yet mean ± 1.96·sd "
+         "puts its lower limit below zero: the chart marks that end. The rank-based limits carry their "
+         "90% confidence intervals from order statistics, as laboratory reference-interval practice "
+         "computes them; the notes say how many values that practice asks for."),
+        ("code", 'const oxygen = plumb(table, "oxygen_ppb", { dropText: true }).stakes();\noxygen;'),
+        ("md", "## For the write-up and the files\n\nThe paragraph, the figures as CSV (numbers "
+         "unrounded), and `save(path)` for `.html`, `.md`, `.svg`, `.png`, `.csv` or `.json`."),
+        ("code", "oxygen.sentence();"),
+        ("code", "console.log(fill.toCSV());"),
+    ],
 }
 
 
