@@ -46,6 +46,8 @@ export interface GroupState {
    * candidates' first.
    */
   readonly stakesModel?: () => Reexpression | undefined;
+  /** Whether the chain carries a `.reexpress()` (known without resolving it). */
+  readonly reexpressed?: boolean;
 }
 
 /** One group's screening, or why it was not screened. */

@@ -5,7 +5,6 @@
  *
  * @module
  */
-import { PlumbError } from "../errors.ts";
 import { cardBundle, cardCharts } from "../render/card.ts";
 import { chartBundle } from "../render/chart_bundle.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
@@ -16,8 +15,8 @@ import { qqSparkline } from "../render/sparkline.ts";
 import { tableHtml, tableMarkdown, type TableModel, tableText } from "../render/table.ts";
 import { ADJUSTMENT_NAMES, checkAdjustment } from "../stats/multiplicity.ts";
 import { VERDICT_SHORT } from "../results/reading.ts";
-import { checkOptions } from "../results/options.ts";
-import { STAKES_OPTIONS, type StakesOptions } from "../stakes/stakes.ts";
+import type { StakesOptions } from "../stakes/stakes.ts";
+import { stakesOptions } from "./stakes_view.ts";
 import { writeSentence } from "./sentence.ts";
 import { type GroupStakesView, groupStakesView } from "./stakes_groups.ts";
 import { _csv } from "./_csv.ts";
@@ -152,15 +151,7 @@ export class PlumbGroups implements Displayable {
    * @param options coverage (default 0.95), lower and upper limits, levels, bootstrap seed
    */
   stakes(options: StakesOptions = {}): GroupStakesView {
-    const opts = checkOptions(options, STAKES_OPTIONS, ".by(...).stakes()");
-    if (opts.reexpression !== undefined && this.#s.stakesModel?.() !== undefined) {
-      throw new PlumbError(
-        "bad-option",
-        "Cannot use the reexpression option of .stakes() after .reexpress(): the chain's own " +
-          "re-expression is used in every group",
-        { reexpression: opts.reexpression },
-      );
-    }
+    const opts = stakesOptions(options, this.#s.reexpressed ?? false, ".by(...).stakes()");
     return groupStakesView(this.#s, opts);
   }
 

@@ -10,18 +10,16 @@
  * @module
  */
 import type { Table } from "../data/table.ts";
-import { PlumbError } from "../errors.ts";
 import type { ReexpressionSearch } from "../reexpress/candidates.ts";
-import { type Reexpression, reexpression } from "../reexpress/reexpression.ts";
+import type { Reexpression } from "../reexpress/reexpression.ts";
 import { searchReexpressions } from "../reexpress/search.ts";
 import { type Chart, chart } from "../render/chart_bundle.ts";
 import { histogramSpec } from "../render/histogram_spec.ts";
 import { detrendedSpec, qqSpec } from "../render/qq_spec.ts";
 import type { Analysis } from "../results/analysis.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
-import { checkOptions } from "../results/options.ts";
 import type { Reading } from "../results/reading.ts";
-import { stakes, STAKES_OPTIONS, type StakesOptions } from "../stakes/stakes.ts";
+import { stakes, type StakesOptions } from "../stakes/stakes.ts";
 import { histogramData, type HistogramOptions } from "../stats/histogram_data.ts";
 import { qqData, type QqOptions } from "../stats/qq_data.ts";
 import { refuseCensored } from "./_censored_guard.ts";
@@ -36,7 +34,7 @@ import { type Sentence, sentenceOf, type SentenceOptions, writeSentence } from "
 import { pickColumn, type PlumbSource, singleColumn, toTable } from "./source.ts";
 import { checkRequest, type ReexpressRequest, resolveStep, type Step } from "./steps.ts";
 import { stepLabel, stepsData } from "./steps.ts";
-import { type StakesView, stakesView } from "./stakes_view.ts";
+import { stakesOptions, stakesStep, type StakesView, stakesView } from "./stakes_view.ts";
 import { type TestsTable, testsView } from "./tests_view.ts";
 
 /** Options for {@linkcode plumb}. */
@@ -251,6 +249,7 @@ export class Plumb implements Displayable {
       groupOptions: options,
       stakesModel: () =>
         this.#parent === undefined ? undefined : this.#stakesModel({}) as Reexpression,
+      reexpressed: this.#parent !== undefined,
     });
   }
 
@@ -361,28 +360,17 @@ export class Plumb implements Displayable {
   }
 
   /**
-   * What the departure from normality changes for the next step: the
-   * central range, the share outside specification limits and Cpk (when
-   * `lower` / `upper` are given) and the mean's interval, each computed the
-   * normal-theory way, on a re-expression mapped back to the original
-   * units, and without a model, with a verdict on whether the difference
-   * matters. Always in the variable's original units: after
-   * `.reexpress(...)` the chain's re-expression is the one used; otherwise
-   * the first of the ranked candidates (`reexpression: "none"` for none).
+   * What the departure from normality changes for the next figure: central
+   * range, share outside `lower` / `upper` and Cpk, the mean's interval,
+   * each the normal-theory way, on a re-expression mapped back, and without
+   * a model, in original units. After `.reexpress(...)` the chain's
+   * re-expression is used; otherwise the ranked candidates' first.
    *
    * @param options coverage (default 0.95), lower and upper limits, levels, bootstrap seed
    */
   stakes(options: StakesOptions = {}): StakesView {
     if (this.#model) fitting.refuseAfterResiduals(".stakes()");
-    const opts = checkOptions(options, STAKES_OPTIONS, ".stakes()");
-    if (this.#parent !== undefined && opts.reexpression !== undefined) {
-      throw new PlumbError(
-        "bad-option",
-        `Cannot use the reexpression option of .stakes() on ${this.label}: the chain's own ` +
-          "re-expression is used; call .stakes() on the chain plumb() made to choose another",
-        { reexpression: opts.reexpression },
-      );
-    }
+    const opts = stakesOptions(options, this.#parent !== undefined, ".stakes()");
     const own = Object.keys(opts).length === 0;
     if (own && this.#stakes) return this.#stakes;
     const view = stakesView(
@@ -404,15 +392,7 @@ export class Plumb implements Displayable {
     if (this.#parent === undefined) {
       return opts.reexpression ?? this.#searched().chosen.reexpression;
     }
-    const steps = this.steps;
-    if (steps.length > 1) {
-      throw new PlumbError(
-        "bad-option",
-        `Cannot compute the stakes of ${this.label}: it applies ${steps.length} re-expressions ` +
-          "in turn, and the stakes view maps back through one: call .stakes() after one .reexpress()",
-      );
-    }
-    return steps.length === 1 ? steps[0].reexpression : reexpression("identity");
+    return stakesStep(this.steps, this.label);
   }
 
   /** The analysis as plain data, with the re-expressions applied. */

@@ -17,7 +17,11 @@ import { stakesSentence, stakesTable } from "../render/stakes_words.ts";
 import { accessibleSvg, renderSvg } from "../render/svg.ts";
 import { tableHtml, tableMarkdown, type TableModel, tableText } from "../render/table.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
-import type { Stakes } from "../stakes/stakes.ts";
+import { PlumbError } from "../errors.ts";
+import { type Reexpression, reexpression } from "../reexpress/reexpression.ts";
+import { checkOptions } from "../results/options.ts";
+import { type Stakes, STAKES_OPTIONS, type StakesOptions } from "../stakes/stakes.ts";
+import type { Step } from "./steps.ts";
 import { _csv } from "./_csv.ts";
 import { type Sentence, sentenceOf } from "./sentence.ts";
 
@@ -39,6 +43,50 @@ export interface StakesView extends Displayable {
   toCSV(): string;
   /** Write the view to a file; the type follows the extension (.svg .png .html .md .txt .csv .json). */
   save(path: string): Promise<SavedFile>;
+}
+
+/**
+ * Check the options of a chain's `.stakes()`: known names only, and no
+ * `reexpression` on a chain that carries its own.
+ *
+ * @param options what the user passed
+ * @param reexpressed whether the chain carries a `.reexpress()`
+ * @param where the call, for messages
+ */
+export function stakesOptions(
+  options: StakesOptions,
+  reexpressed: boolean,
+  where: string,
+): StakesOptions {
+  const opts = checkOptions(options, STAKES_OPTIONS, where);
+  if (reexpressed && opts.reexpression !== undefined) {
+    throw new PlumbError(
+      "bad-option",
+      `Cannot use the reexpression option of ${where} after .reexpress(): the chain's own ` +
+        "re-expression is used; call .stakes() on the chain plumb() made to choose another",
+      { reexpression: opts.reexpression },
+    );
+  }
+  return opts;
+}
+
+/**
+ * The one re-expression the stakes figures map back through: the chain's
+ * step, or the identity when its `.reexpress()` kept the data as measured.
+ *
+ * @param steps the chain's resolved steps
+ * @param label the chain's label, for the message
+ * @throws {PlumbError} `"bad-option"` for more than one step
+ */
+export function stakesStep(steps: readonly Step[], label: string): Reexpression {
+  if (steps.length > 1) {
+    throw new PlumbError(
+      "bad-option",
+      `Cannot compute the stakes of ${label}: it applies ${steps.length} re-expressions ` +
+        "in turn, and the stakes view maps back through one: call .stakes() after one .reexpress()",
+    );
+  }
+  return steps.length === 1 ? steps[0].reexpression : reexpression("identity");
 }
 
 /** The CSV header of the stakes figures. */
