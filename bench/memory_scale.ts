@@ -9,12 +9,11 @@
  * raw data are 8·n bytes. Linux only.
  *
  * Cases: `plumb(table, "c0").analysis()`, `survey(table).result()`, and
- * "analyse": the same steps as plumb's (a fresh copy of the column, its
- * 1-based row labels, `analyse`) with the labels built by `Int32Array.map`
- * instead of `Int32Array.from(…, mapFn)`, whose iterator path holds every
- * element in an intermediate list (about 35 bytes per value in V8).
+ * "analyse": `analyse` on a fresh copy of the column with its 1-based row
+ * labels built in full (what the chain did before it looked labels up only
+ * for the points drawn).
  *
- * Run: deno run -A bench/memory_scale.ts [n] [columns]
+ * Run: deno run -A bench/memory_scale.ts [n] [columns] [normal|lognormal]
  *
  * @module
  */
@@ -31,12 +30,14 @@ function _status(field: string): number {
   return Number(m[1]) * 1024;
 }
 
-function _child(kind: string, n: number, columns: number): void {
+function _child(kind: string, n: number, columns: number, shape: string): void {
   const rng = seededRandom(11);
   const data: Record<string, Float64Array> = {};
   for (let c = 0; c < columns; c++) {
     const x = new Float64Array(n);
-    for (let i = 0; i < n; i++) x[i] = 50 + 3 * rng.normal();
+    if (shape === "lognormal") {
+      for (let i = 0; i < n; i++) x[i] = Math.exp(2 + 0.5 * rng.normal());
+    } else for (let i = 0; i < n; i++) x[i] = 50 + 3 * rng.normal();
     data[`c${c}`] = x;
   }
   const table = tableFromMemory(data);
@@ -51,7 +52,7 @@ function _child(kind: string, n: number, columns: number): void {
     const a = plumb(table, "c0").analysis();
     summary = `W=${a.primary.statistic.toFixed(6)} verdict=${a.reading.verdict}`;
   } else if (kind === "analyse") {
-    // What plumb() does, with the 1-based row labels built by Int32Array.map.
+    // A copy of the column and every row label built, as the chain did before.
     const col = table.numeric("c0");
     const rows = col.rowIndex.map((r) => r + 1);
     const a = analyse(col.values, {
@@ -72,6 +73,7 @@ function _child(kind: string, n: number, columns: number): void {
     kind,
     n,
     columns,
+    shape,
     seconds,
     baselineMB: base / 1e6,
     peakMB: peak / 1e6,
@@ -85,11 +87,12 @@ function _child(kind: string, n: number, columns: number): void {
 if (import.meta.main) {
   const [a0, a1, a2] = Deno.args;
   if (a0 === "--child") {
-    _child(a1, Number(Deno.args[2]), Number(Deno.args[3]));
+    _child(a1, Number(Deno.args[2]), Number(Deno.args[3]), Deno.args[4]);
   } else {
     const n = Number(a0 ?? 1e7);
     const columns = Number(a1 ?? 1);
-    void a2;
+    const shape = a2 ?? "normal";
+    if (shape !== "normal" && shape !== "lognormal") throw new Error(`Unknown shape ${shape}`);
     for (const kind of ["plumb", "survey", "analyse"]) {
       const out = await new Deno.Command(Deno.execPath(), {
         args: [
@@ -101,6 +104,7 @@ if (import.meta.main) {
           kind,
           String(n),
           String(columns),
+          shape,
         ],
         stdout: "piped",
         stderr: "inherit",
@@ -108,7 +112,7 @@ if (import.meta.main) {
       const line = new TextDecoder().decode(out.stdout).trim();
       const r = JSON.parse(line);
       console.log(
-        `${kind.padEnd(7)} n=${n} columns=${columns}: ${r.seconds.toFixed(2)} s, ` +
+        `${kind.padEnd(7)} n=${n} columns=${columns} ${shape}: ${r.seconds.toFixed(2)} s, ` +
           `peak ${r.aboveMB.toFixed(0)} MB above a ${r.baselineMB.toFixed(0)} MB baseline ` +
           `= ${r.ratio.toFixed(2)}× the raw ${r.rawMB.toFixed(0)} MB (${r.summary})`,
       );

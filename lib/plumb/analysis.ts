@@ -9,10 +9,10 @@ import { PlumbError } from "../errors.ts";
 import { randomSubsample } from "../numeric/random.ts";
 import { sortedCopy, sortFloat64 } from "../numeric/sort.ts";
 import { checkFinite, checkSize } from "../stats/_input.ts";
-import { NORMALITY_TESTS, type PreparedSample } from "../stats/battery.ts";
+import { NORMALITY_TESTS, prepareSample } from "../stats/battery.ts";
 import type { DagostinoPearsonResult } from "../stats/dagostino_pearson.ts";
 import { _histogramDataSorted } from "../stats/histogram_data.ts";
-import { _momentsOf, _sampleShape, type _Shape } from "../stats/moments.ts";
+import { _momentsOf, _sampleShape } from "../stats/moments.ts";
 import { _qqDataSorted, type QqOptions } from "../stats/qq_data.ts";
 import type { TestResult } from "../stats/result.ts";
 import { SHAPIRO_WILK_MAX_N } from "../stats/shapiro_wilk.ts";
@@ -50,6 +50,13 @@ export interface AnalyseOptions {
    * @default found from the values
    */
   readonly step?: number | null;
+  /**
+   * The row label of the value at a 0-based position, asked only for the QQ
+   * points drawn (at most `qq.maxPoints`), so that no label is built for the
+   * other values; used in place of `origin.rows`.
+   * @default `origin.rows[position]`, or the position itself
+   */
+  readonly rowLabel?: (position: number) => number;
 }
 
 /** The smallest sample plumbline analyses: moments need 4 values. */
@@ -98,23 +105,16 @@ export function analyse(
 ): Analysis {
   const n = values.length;
   // Validate once, with the messages the moments summary gives, then share
-  // the work: one summary of the values in their own order (moments, K²,
-  // Jarque–Bera, QQ line), one radix-sorted copy (every order-statistic
-  // test, the QQ points, the quartiles, the reading) and one summary of the
-  // sorted copy (Anderson–Darling, Lilliefors).
+  // the work: one summary of the values in their own order (moments, every
+  // test, QQ line, histogram), one radix-sorted copy (every order-statistic
+  // test, the QQ points, the quartiles, the reading), one scan for ties and
+  // one pass over Φ (Anderson–Darling and Lilliefors).
   checkSize(n, ANALYSE_MIN_N, Number.POSITIVE_INFINITY, _MOMENTS);
   checkFinite(values, _MOMENTS);
   const shape = _sampleShape(values, _MOMENTS);
   const m = _momentsOf(n, shape);
   const sorted = sortedCopy(values);
-  let sortedShape: _Shape | undefined;
-  const prepared: PreparedSample = {
-    n,
-    values,
-    sorted,
-    shape,
-    sortedShape: () => (sortedShape ??= _sampleShape(sorted, _MOMENTS)),
-  };
+  const prepared = prepareSample(values, sorted, shape);
   // The battery's first test, Shapiro–Wilk, is the primary one.
   const [first, ...others] = NORMALITY_TESTS;
   let primary: TestResult;
@@ -141,10 +141,14 @@ export function analyse(
     Object.freeze({ test: first.name, result: primary }),
     ...others.map((t) => _run(t.name, () => t.runPrepared(prepared))),
   ];
-  const qqOptions: QqOptions = origin.rows
-    ? { ...options.qq, rows: origin.rows }
-    : { ...options.qq };
-  const own = _qqDataSorted(values, sorted, shape, qqOptions);
+  const own = options.rowLabel
+    ? _qqDataSorted(values, sorted, shape, { ...options.qq }, options.rowLabel)
+    : _qqDataSorted(
+      values,
+      sorted,
+      shape,
+      origin.rows ? { ...options.qq, rows: origin.rows } : { ...options.qq },
+    );
   const qq = options.envelope ? withEnvelope(own, options.envelope(own.rank)) : own;
   const histogram = _histogramDataSorted(
     values,

@@ -9,6 +9,7 @@
  *
  * @module
  */
+import { _numericColumnShared } from "../data/numeric_column.ts";
 import type { Table } from "../data/table.ts";
 import type { ReexpressionSearch } from "../reexpress/candidates.ts";
 import type { Reexpression } from "../reexpress/reexpression.ts";
@@ -31,7 +32,7 @@ import { type CandidatesView, candidatesView, chosenStep } from "./reexpress_vie
 import * as fitting from "./residual_link.ts";
 import type { LinearModelFit } from "../stats/linear_model.ts";
 import { type Sentence, sentenceOf, type SentenceOptions, writeSentence } from "./sentence.ts";
-import { pickColumn, type PlumbSource, singleColumn, toTable } from "./source.ts";
+import { _rowLabel, pickColumn, type PlumbSource, singleColumn, toTable } from "./source.ts";
 import { checkRequest, type ReexpressRequest, resolveStep, type Step } from "./steps.ts";
 import { stepLabel, stepsData } from "./steps.ts";
 import { stakesOptions, stakesStep, type StakesView, stakesView } from "./stakes_view.ts";
@@ -78,8 +79,12 @@ interface _Root {
 
 /** The values a chain analyses, with their rows and what was left out. */
 interface _Loaded {
+  /** Read-only: may be the table's own array (never written to). */
   readonly values: Float64Array;
-  readonly rows: Int32Array;
+  /** The 0-based table rows of the values, built on first call. */
+  readonly rows: () => Int32Array;
+  /** The 1-based data row of the value at a 0-based position, looked up only when drawn. */
+  readonly rowLabel: (position: number) => number;
   readonly missing: number;
   readonly text: number;
 }
@@ -175,7 +180,10 @@ export class Plumb implements Displayable {
   }
 
   #fitted(): fitting.ResidualValues {
-    return this.#model!.of(() => ({ ...this.#parent!.#load(), label: this.#parent!.label }));
+    return this.#model!.of(() => {
+      const from = this.#parent!.#load();
+      return { values: from.values, rows: from.rows(), label: this.#parent!.label };
+    });
   }
 
   /** A residual chain's envelope, simulated on its design (Atkinson 1981). */
@@ -184,14 +192,17 @@ export class Plumb implements Displayable {
   #load(): _Loaded {
     if (this.#loaded) return this.#loaded;
     if (this.#model) {
-      this.#loaded = fitting.residualsLoaded(this.#parent!.#load(), this.#fitted());
+      const from = this.#parent!.#load();
+      const r = fitting.residualsLoaded({ missing: from.missing, text: from.text }, this.#fitted());
+      this.#loaded = { ...r, rows: () => r.rows, rowLabel: (j) => r.rows[j] + 1 };
     } else if (this.#parent === undefined) {
       const { table, column, options } = this.#root;
-      const col = table.numeric(column, { dropText: options.dropText ?? false });
+      const col = _numericColumnShared(table, column, { dropText: options.dropText ?? false });
       refuseCensored(col, column);
       this.#loaded = {
         values: col.values,
-        rows: col.rowIndex,
+        rows: () => col.rowIndex, // built on first read, by the column
+        rowLabel: _rowLabel(col, table.rowCount),
         missing: col.provenance.missingDropped,
         text: col.provenance.textDropped,
       };
@@ -210,7 +221,7 @@ export class Plumb implements Displayable {
   /** The full analysis as plain data (computed once). */
   analysis(): Analysis {
     if (this.#analysis) return this.#analysis;
-    const { values, rows, missing, text } = this.#load();
+    const { values, rowLabel, missing, text } = this.#load();
     if (values.length < ANALYSE_MIN_N) refuseTooFew(this.label, values.length, missing, text);
     const model = this.#model ? this.#fitted() : undefined;
     this.#analysis = analyse(values, {
@@ -219,13 +230,11 @@ export class Plumb implements Displayable {
       transform: this.steps.length ? stepLabel(this.#root.column, this.steps) : undefined,
       missingDropped: missing,
       textDropped: text,
-      // 1-based data rows; Int32Array.prototype.map, unlike Int32Array.from with a
-      // mapping function, does not copy the input into a temporary list first.
-      rows: rows.map((r) => r + 1),
       notes: model?.notes,
     }, {
       qq: this.#root.options.qq,
       envelope: model && this.#envelope(this.#root.options.qq?.level),
+      rowLabel,
     });
     return this.#analysis;
   }
@@ -319,8 +328,9 @@ export class Plumb implements Displayable {
       draw(q, { name: this.label, slope: this.analysis().reading.facts.sigma.slope });
     const c = chart(() => {
       if (own) return spec(this.analysis().qq);
-      const { values, rows } = this.#load();
-      const merged = { ...this.#root.options.qq, ...options, rows: rows.map((r) => r + 1) };
+      const { values, rowLabel } = this.#load();
+      const rows = new Int32Array(values.length).map((_, j) => rowLabel(j));
+      const merged = { ...this.#root.options.qq, ...options, rows };
       const q = qqData(values, merged); // a residual chain keeps its simulated envelope
       return spec(this.#model ? withEnvelope(q, this.#envelope(merged.level)(q.rank)) : q);
     });

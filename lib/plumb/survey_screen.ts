@@ -5,6 +5,7 @@
  *
  * @module
  */
+import { _numericColumnShared } from "../data/numeric_column.ts";
 import type { Table } from "../data/table.ts";
 import { PlumbError } from "../errors.ts";
 import type { Analysis } from "../results/analysis.ts";
@@ -12,6 +13,7 @@ import { type Adjustment, adjustPValues, checkAdjustment } from "../stats/multip
 import { refuseCensored } from "./_censored_guard.ts";
 import { analyse, ANALYSE_MIN_N } from "./analysis.ts";
 import { suggestReexpression } from "./reexpress_view.ts";
+import { _rowLabel } from "./source.ts";
 
 /** Options for {@linkcode survey}. */
 export interface SurveyOptions {
@@ -86,7 +88,7 @@ export function screenColumns(t: Table, options: SurveyOptions): SurveyResult {
     }
     let col;
     try {
-      col = t.numeric(name, { dropText: options.dropText ?? false });
+      col = _numericColumnShared(t, name, { dropText: options.dropText ?? false });
       refuseCensored(col, name);
     } catch (e) {
       if (e instanceof PlumbError && (e.code === "non-numeric" || e.code === "censored")) {
@@ -111,8 +113,7 @@ export function screenColumns(t: Table, options: SurveyOptions): SurveyResult {
         column: name,
         missingDropped: col.provenance.missingDropped,
         textDropped: col.provenance.textDropped,
-        rows: col.rowIndex.map((r) => r + 1),
-      });
+      }, { rowLabel: _rowLabel(col, t.rowCount) });
       const suggestion = a.reading.verdict === "no-clear-departure"
         ? "none needed"
         : suggestReexpression(v);

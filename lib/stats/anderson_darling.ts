@@ -4,11 +4,10 @@
  *
  * @module
  */
-import { normalSf } from "../numeric/normal.ts";
 import { formatNumber } from "../results/format.ts";
-import { checkSize, sortedSample } from "./_input.ts";
+import { type _EdfPass, _edfPass, _edfSample } from "./_edf_pass.ts";
+import { checkSize } from "./_input.ts";
 import { roundingWarning } from "./rounding.ts";
-import { _sampleShape, type _Shape, _zScore } from "./moments.ts";
 import { freezeResult, type TestResult } from "./result.ts";
 
 /** The Anderson–Darling result: {@linkcode TestResult} plus the modified statistic. */
@@ -25,22 +24,6 @@ export interface AndersonDarlingResult extends TestResult {
 const _WHAT = "the Anderson–Darling test";
 /** Smallest n (common practice; the case-3 p formula is used from about 8 values on). */
 const _MIN_N = 8;
-/** Above this |z| the upper tail comes from its asymptotic series rather than Cody's form. */
-const _SERIES_FROM = 30;
-const _HALF_LOG_2PI = 0.9189385332046728; // ½·ln(2π)
-
-/**
- * ln Q(a) for a ≥ 30, Q the normal upper tail: the asymptotic (Laplace)
- * expansion Q(a) = φ(a)/a · (1 − a⁻² + 3a⁻⁴ − 15a⁻⁶ + 105a⁻⁸ − 945a⁻¹⁰ + 10395a⁻¹²),
- * whose first omitted term is below 3e−16 relative there (Abramowitz &
- * Stegun 1964, 26.2.12; equation number from memory).
- */
-function _logUpperTailSeries(a: number): number {
-  const w = 1 / (a * a);
-  const s = w * (-1 + w * (3 + w * (-15 + w * (105 + w * (-945 + w * 10395)))));
-  return -0.5 * a * a - Math.log(a) - _HALF_LOG_2PI + Math.log1p(s);
-}
-
 /** The exponent of the D'Agostino–Stephens formula for A²* ≥ 0.6. */
 function _upperExponent(a: number): number {
   return 1.2937 - 5.709 * a + 0.0186 * a * a;
@@ -106,45 +89,24 @@ function _pValue(a: number): { p: number; bound: "none" | "at-most" } {
  * ```
  */
 export function andersonDarling(x: ArrayLike<number>): AndersonDarlingResult {
-  const s = sortedSample(x, _WHAT, _MIN_N);
-  return _andersonDarlingSorted(s, _sampleShape(s, _WHAT));
+  const { sorted, shape } = _edfSample(x, _WHAT, _MIN_N);
+  return _andersonDarlingOf(_edfPass(sorted, shape), roundingWarning(sorted, false));
 }
 
 /**
- * {@linkcode andersonDarling} on a sample already sorted ascending, finite
- * and not constant, with its {@linkcode _sampleShape} (the size is checked
- * here). No copy of the sample is made.
+ * {@linkcode andersonDarling} from the EDF pass over the sorted sample
+ * (shared with Lilliefors) and its ties warning; the size is checked here.
  */
-export function _andersonDarlingSorted(s: Float64Array, shape: _Shape): AndersonDarlingResult {
-  const n = s.length;
+export function _andersonDarlingOf(
+  pass: _EdfPass,
+  ties: string | undefined,
+): AndersonDarlingResult {
+  const n = pass.n;
   checkSize(n, _MIN_N, Number.POSITIVE_INFINITY, _WHAT);
-  let sum = 0;
-  let comp = 0;
-  for (let i = 0; i < n; i++) {
-    const zi = _zScore(s[i], shape);
-    const a = Math.abs(zi);
-    let logTail: number; // ln Q(|z|)
-    let logBody: number; // ln(1 − Q(|z|))
-    if (a < _SERIES_FROM) {
-      const q = normalSf(a);
-      logTail = Math.log(q);
-      logBody = Math.log1p(-q);
-    } else {
-      logTail = _logUpperTailSeries(a);
-      logBody = -Math.exp(logTail);
-    }
-    const logCdf = zi >= 0 ? logBody : logTail;
-    const logSf = zi >= 0 ? logTail : logBody;
-    const term = (2 * i + 1) * logCdf + (2 * n - 2 * i - 1) * logSf;
-    const t = sum + term;
-    comp += Math.abs(sum) >= Math.abs(term) ? (sum - t) + term : (term - t) + sum;
-    sum = t;
-  }
-  const a2 = -n - (sum + comp) / n;
+  const a2 = -n - pass.adSum / n;
   const modified = a2 * (1 + 0.75 / n + 2.25 / (n * n));
   const { p, bound } = _pValue(modified);
   const warnings: string[] = [];
-  const ties = roundingWarning(s, false);
   if (ties !== undefined) warnings.push(ties);
   if (bound === "at-most") {
     warnings.push(

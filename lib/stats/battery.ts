@@ -6,10 +6,12 @@
  *
  * @module
  */
-import { _andersonDarlingSorted, andersonDarling } from "./anderson_darling.ts";
+import { type _EdfPass, _edfPass } from "./_edf_pass.ts";
+import { roundingWarning } from "./rounding.ts";
+import { _andersonDarlingOf, andersonDarling } from "./anderson_darling.ts";
 import { _dagostinoPearsonOf, dagostinoPearson } from "./dagostino_pearson.ts";
 import { _jarqueBeraOf, jarqueBera } from "./jarque_bera.ts";
-import { _lillieforsSorted, lilliefors } from "./lilliefors.ts";
+import { _lillieforsOf, lilliefors } from "./lilliefors.ts";
 import type { _Shape } from "./moments.ts";
 import type { TestResult } from "./result.ts";
 import { _shapiroFranciaSorted, shapiroFrancia } from "./shapiro_francia.ts";
@@ -17,8 +19,9 @@ import { _shapiroWilkSorted, shapiroWilk } from "./shapiro_wilk.ts";
 
 /**
  * A sample validated once (finite, not constant) and prepared for every
- * test: its values in their own order, a sorted copy, and the moment
- * summaries of each (the summary of the sorted copy is computed on first use).
+ * test: its values in their own order, a sorted copy, their moment summary,
+ * and the work several tests share, each done once on first use: the scan
+ * for rounding and the pass over the fitted normal's distribution function.
  */
 export interface PreparedSample {
   /** Number of values. */
@@ -29,8 +32,38 @@ export interface PreparedSample {
   readonly sorted: Float64Array;
   /** The moment summary of `values`, summed in their own order. */
   readonly shape: _Shape;
-  /** The moment summary of `sorted`, summed in ascending order. */
-  sortedShape(): _Shape;
+  /**
+   * The rounding warning of the sample for a test that sees at most 5,000
+   * values (`capped`) or all of them: `roundingWarning(sorted, capped)`.
+   */
+  ties(capped: boolean): string | undefined;
+  /** The EDF pass over `sorted` with `shape` (`_edfPass(sorted, shape)`). */
+  edf(): _EdfPass;
+}
+
+/**
+ * A {@linkcode PreparedSample} from values already validated (finite, not
+ * constant), their sorted copy and their moment summary; the shared work is
+ * done on first use and kept.
+ */
+export function prepareSample(
+  values: Float64Array,
+  sorted: Float64Array,
+  shape: _Shape,
+): PreparedSample {
+  const ties = new Map<boolean, string | undefined>();
+  let edf: _EdfPass | undefined;
+  return {
+    n: values.length,
+    values,
+    sorted,
+    shape,
+    ties: (capped) => {
+      if (!ties.has(capped)) ties.set(capped, roundingWarning(sorted, capped));
+      return ties.get(capped);
+    },
+    edf: () => (edf ??= _edfPass(sorted, shape)),
+  };
 }
 
 /** One test of the battery. */
@@ -61,22 +94,22 @@ export const NORMALITY_TESTS: readonly NormalityTest[] = Object.freeze([
   Object.freeze({
     name: "Shapiro–Wilk",
     run: shapiroWilk,
-    runPrepared: (s: PreparedSample) => _shapiroWilkSorted(s.sorted),
+    runPrepared: (s: PreparedSample) => _shapiroWilkSorted(s.sorted, s.ties(true)),
   }),
   Object.freeze({
     name: "Shapiro–Francia",
     run: shapiroFrancia,
-    runPrepared: (s: PreparedSample) => _shapiroFranciaSorted(s.sorted),
+    runPrepared: (s: PreparedSample) => _shapiroFranciaSorted(s.sorted, s.ties(true)),
   }),
   Object.freeze({
     name: "Anderson–Darling",
     run: andersonDarling,
-    runPrepared: (s: PreparedSample) => _andersonDarlingSorted(s.sorted, s.sortedShape()),
+    runPrepared: (s: PreparedSample) => _andersonDarlingOf(s.edf(), s.ties(false)),
   }),
   Object.freeze({
     name: "Lilliefors",
     run: lilliefors,
-    runPrepared: (s: PreparedSample) => _lillieforsSorted(s.sorted, s.sortedShape()),
+    runPrepared: (s: PreparedSample) => _lillieforsOf(s.edf(), s.ties(false)),
   }),
   Object.freeze({
     name: "D'Agostino–Pearson",

@@ -4,10 +4,9 @@
  *
  * @module
  */
-import { normalCdf } from "../numeric/normal.ts";
-import { checkSize, sortedSample } from "./_input.ts";
+import { type _EdfPass, _edfPass, _edfSample } from "./_edf_pass.ts";
+import { checkSize } from "./_input.ts";
 import { roundingWarning } from "./rounding.ts";
-import { _sampleShape, type _Shape, _zScore } from "./moments.ts";
 import { freezeResult, type TestResult } from "./result.ts";
 
 /** The Lilliefors result: {@linkcode TestResult} plus what kind of p it is. */
@@ -82,30 +81,21 @@ function _dallalWilkinson(d: number, n: number): number {
  * ```
  */
 export function lilliefors(x: ArrayLike<number>): LillieforsResult {
-  const s = sortedSample(x, _WHAT, _MIN_N);
-  return _lillieforsSorted(s, _sampleShape(s, _WHAT));
+  const { sorted, shape } = _edfSample(x, _WHAT, _MIN_N);
+  return _lillieforsOf(_edfPass(sorted, shape), roundingWarning(sorted, false));
 }
 
 /**
- * {@linkcode lilliefors} on a sample already sorted ascending, finite and
- * not constant, with its {@linkcode _sampleShape} (the size is checked
- * here). No copy of the sample is made.
+ * {@linkcode lilliefors} from the EDF pass over the sorted sample (shared
+ * with Anderson–Darling) and its ties warning; the size is checked here.
  */
-export function _lillieforsSorted(s: Float64Array, shape: _Shape): LillieforsResult {
-  const n = s.length;
+export function _lillieforsOf(pass: _EdfPass, ties: string | undefined): LillieforsResult {
+  const n = pass.n;
   checkSize(n, _MIN_N, Number.POSITIVE_INFINITY, _WHAT);
-  let d = 0;
-  for (let i = 0; i < n; i++) {
-    const f = normalCdf(_zScore(s[i], shape));
-    const above = (i + 1) / n - f;
-    const below = f - i / n;
-    if (above > d) d = above;
-    if (below > d) d = below;
-  }
+  const d = pass.ksDistance;
   const pDw = _dallalWilkinson(d, n);
   const calibrated = pDw <= _P_CALIBRATED;
   const warnings: string[] = [];
-  const ties = roundingWarning(s, false);
   if (ties !== undefined) warnings.push(ties);
   if (!calibrated) {
     warnings.push(

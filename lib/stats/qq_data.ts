@@ -163,12 +163,15 @@ export function qqData(x: ArrayLike<number>, options: QqOptions = {}): QqData {
  * original order (finite, not constant; they give each point its row) and
  * `sorted` the same values ascending. Gives the same result as
  * `qqData(values, options)` without copying or sorting the sample again.
+ * `rowLabel`, when given, labels the point at a 0-based position in
+ * `values` in place of `options.rows`, and is asked only for the points kept.
  */
 export function _qqDataSorted(
   values: Float64Array,
   sorted: Float64Array,
   shape: _Shape,
   options: QqOptions = {},
+  rowLabel?: (position: number) => number,
 ): QqData {
   const what = "a QQ plot";
   checkSize(values.length, 3, Infinity, what);
@@ -177,8 +180,9 @@ export function _qqDataSorted(
     values.length,
     shape.mean,
     shape.sd,
-    options,
+    rowLabel ? { ...options, rows: undefined } : options,
     (ranks) => selectFromSorted(values, sorted, ranks),
+    rowLabel,
   );
 }
 
@@ -189,6 +193,7 @@ export function _qqBuild(
   sd: number,
   options: QqOptions,
   select: (ranks: readonly number[]) => Selected,
+  rowLabel?: (position: number) => number,
 ): QqData {
   const maxPoints = _positiveInt(options.maxPoints ?? 800, "maxPoints", 20);
   const tailPoints = _positiveInt(options.tailPoints ?? 200, "tailPoints", 1);
@@ -220,7 +225,7 @@ export function _qqBuild(
     outside[k] = v < lower[k] ? -1 : v > upper[k] ? 1 : 0;
     if (outside[k] !== 0) outsideCount++;
     const j = picked.row[k];
-    row[k] = options.rows === undefined ? j : options.rows[j];
+    row[k] = rowLabel ? rowLabel(j) : options.rows === undefined ? j : options.rows[j];
   }
   const positions = offset === BLOM_OFFSET
     ? `Blom's plotting positions (i − 3/8)/(n + 1/4)`

@@ -69,9 +69,13 @@ export function shapiroFrancia(x: ArrayLike<number>): TestResult {
 
 /**
  * {@linkcode shapiroFrancia} on a sample already sorted ascending, finite
- * and not constant (the size is checked here).
+ * and not constant (the size is checked here); `ties` is the sample's
+ * rounding warning (`roundingWarning(s, true)`), when the caller has scanned for ties already.
  */
-export function _shapiroFranciaSorted(s: Float64Array): TestResult {
+export function _shapiroFranciaSorted(
+  s: Float64Array,
+  ties: string | undefined = roundingWarning(s, true),
+): TestResult {
   const n = s.length;
   checkSize(n, _MIN_N, _MAX_N, _NAME);
   const m = blomScoresUpper(n);
@@ -105,7 +109,6 @@ export function _shapiroFranciaSorted(s: Float64Array): TestResult {
   const { mean: mu, sd: sigma } = shapiroFranciaNull(n);
   const p = oneMinus === 0 ? 1 : normalSf((Math.log(oneMinus) - mu) / sigma);
   const warnings: string[] = [];
-  const ties = roundingWarning(s, true);
   if (ties) warnings.push(ties);
   return freezeResult({
     test: "Shapiro–Francia",

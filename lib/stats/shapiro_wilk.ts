@@ -63,15 +63,18 @@ export function shapiroWilk(x: ArrayLike<number>): TestResult {
 /**
  * {@linkcode shapiroWilk} on a sample already sorted ascending, finite and
  * not constant (the size is checked here), for callers that sort once and
- * run several tests.
+ * run several tests; `ties` is the sample's rounding warning (`roundingWarning(s, true)`), when
+ * the caller has scanned for ties already.
  */
-export function _shapiroWilkSorted(s: Float64Array): TestResult {
+export function _shapiroWilkSorted(
+  s: Float64Array,
+  ties: string | undefined = roundingWarning(s, true),
+): TestResult {
   const n = s.length;
   checkSize(n, SHAPIRO_WILK_MIN_N, SHAPIRO_WILK_MAX_N, _NAME);
   const w = shapiroWilkW(s);
   const p = shapiroWilkPValue(w, n);
   const warnings: string[] = [];
-  const ties = roundingWarning(s, true);
   if (ties) warnings.push(ties);
   if (n < 20) {
     warnings.push(

@@ -147,3 +147,47 @@ Deno.test("analyse: input errors name the moments summary, as before the shared 
   bad(new Float64Array([1, 2, NaN, 4, Infinity]), "non-finite", /2 of 5 \(at positions 2, 4\)/);
   bad(new Float64Array(10).fill(7), "constant", /10 identical values \(all 7\)/);
 });
+
+Deno.test(".by() gives each group exactly analyse() of its values, and the table is left alone", async () => {
+  const { loadTable } = await import("../../lib/data/load_table.ts");
+  const { plumb } = await import("../../lib/plumb/plumb.ts");
+  const rng = seededRandom(5);
+  const n = 600;
+  const line: (string | null)[] = [];
+  const fill: (number | string | null)[] = [];
+  for (let i = 0; i < n; i++) {
+    line.push(i % 37 === 0 ? null : ["B", "A", "C"][i % 3]);
+    fill.push(i % 29 === 0 ? null : i % 41 === 0 ? "n/a" : Math.exp(rng.normal()));
+  }
+  const table = await loadTable({ line, fill });
+  const before = table.numericCells("fill").values;
+  const r = plumb(table, "fill", { dropText: true }).by("line").result();
+  const after = table.numericCells("fill").values;
+  // Element by element with Object.is: the missing cells are NaN on both sides.
+  equal(after.every((v, i) => Object.is(v, before[i])), true, "the table's numbers are unchanged");
+  deepEqual(r.groups.map((g) => g.group), ["A", "B", "C"]);
+  const pooled: number[] = [];
+  for (const g of r.groups) {
+    const rows: number[] = [];
+    for (let i = 0; i < n; i++) {
+      if (line[i] === g.group && typeof fill[i] === "number") rows.push(i);
+    }
+    const v = Float64Array.from(rows, (i) => fill[i] as number);
+    const a = analyse(v, {
+      ...ORIGIN,
+      label: `fill — line = ${g.group}`,
+      column: "fill",
+      group: g.group,
+      transform: undefined,
+      missingDropped: g.missingDropped,
+      textDropped: g.textDropped,
+      rows: Int32Array.from(rows, (i) => i + 1),
+    });
+    deepEqual(g.analysis, a, g.group);
+    const mean = moments(v).mean;
+    for (const t of v) pooled.push(t - mean);
+  }
+  equal(r.residuals?.n, pooled.length);
+  deepEqual(r.residuals?.moments, moments(pooled));
+  equal(r.residuals?.primary.statistic, shapiroWilk(pooled).statistic);
+});
