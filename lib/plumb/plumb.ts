@@ -9,7 +9,6 @@
  *
  * @module
  */
-import { _numericColumnShared } from "../data/numeric_column.ts";
 import type { Table } from "../data/table.ts";
 import type { ReexpressionSearch } from "../reexpress/candidates.ts";
 import type { Reexpression } from "../reexpress/reexpression.ts";
@@ -23,7 +22,7 @@ import type { Reading } from "../results/reading.ts";
 import { stakes, type StakesOptions } from "../stakes/stakes.ts";
 import { histogramData, type HistogramOptions } from "../stats/histogram_data.ts";
 import { qqData, type QqOptions } from "../stats/qq_data.ts";
-import { refuseCensored } from "./_censored_guard.ts";
+import { allRowLabels, loadColumn, type Loaded, loadResiduals } from "./_loaded.ts";
 import { analyse, ANALYSE_MIN_N, cardOf, refuseTooFew, withEnvelope } from "./analysis.ts";
 import type { GroupOptions } from "./group_screen.ts";
 import { PlumbGroups } from "./groups.ts";
@@ -32,7 +31,7 @@ import { type CandidatesView, candidatesView, chosenStep } from "./reexpress_vie
 import * as fitting from "./residual_link.ts";
 import type { LinearModelFit } from "../stats/linear_model.ts";
 import { type Sentence, sentenceOf, type SentenceOptions, writeSentence } from "./sentence.ts";
-import { _rowLabel, pickColumn, type PlumbSource, singleColumn, toTable } from "./source.ts";
+import { pickColumn, type PlumbSource, singleColumn, toTable } from "./source.ts";
 import { checkRequest, type ReexpressRequest, resolveStep, type Step } from "./steps.ts";
 import { stepLabel, stepsData } from "./steps.ts";
 import { stakesOptions, stakesStep, type StakesView, stakesView } from "./stakes_view.ts";
@@ -77,18 +76,6 @@ interface _Root {
   readonly options: PlumbOptions;
 }
 
-/** The values a chain analyses, with their rows and what was left out. */
-interface _Loaded {
-  /** Read-only: may be the table's own array (never written to). */
-  readonly values: Float64Array;
-  /** The 0-based table rows of the values, built on first call. */
-  readonly rows: () => Int32Array;
-  /** The 1-based data row of the value at a 0-based position, looked up only when drawn. */
-  readonly rowLabel: (position: number) => number;
-  readonly missing: number;
-  readonly text: number;
-}
-
 /**
  * The chain over one numeric variable. Create it with {@linkcode plumb}.
  *
@@ -107,7 +94,7 @@ export class Plumb implements Displayable {
   readonly #model: fitting.ResidualLink | undefined;
   // Kept on first need; undefined means not yet computed.
   #step: Step | null | undefined;
-  #loaded: _Loaded | undefined;
+  #loaded: Loaded | undefined;
   #analysis: Analysis | undefined;
   #search: ReexpressionSearch | undefined;
   #candidates: CandidatesView | undefined;
@@ -189,23 +176,13 @@ export class Plumb implements Displayable {
   /** A residual chain's envelope, simulated on its design (Atkinson 1981). */
   #envelope = (level?: number) => fitting.envelopeOf(this.#fitted().fit, level);
 
-  #load(): _Loaded {
+  #load(): Loaded {
     if (this.#loaded) return this.#loaded;
     if (this.#model) {
-      const from = this.#parent!.#load();
-      const r = fitting.residualsLoaded({ missing: from.missing, text: from.text }, this.#fitted());
-      this.#loaded = { ...r, rows: () => r.rows, rowLabel: (j) => r.rows[j] + 1 };
+      this.#loaded = loadResiduals(this.#parent!.#load(), this.#fitted());
     } else if (this.#parent === undefined) {
       const { table, column, options } = this.#root;
-      const col = _numericColumnShared(table, column, { dropText: options.dropText ?? false });
-      refuseCensored(col, column);
-      this.#loaded = {
-        values: col.values,
-        rows: () => col.rowIndex, // built on first read, by the column
-        rowLabel: _rowLabel(col, table.rowCount),
-        missing: col.provenance.missingDropped,
-        text: col.provenance.textDropped,
-      };
+      this.#loaded = loadColumn(table, column, options.dropText ?? false);
     } else {
       const from = this.#parent.#load();
       const step = this.#resolved();
@@ -328,10 +305,9 @@ export class Plumb implements Displayable {
       draw(q, { name: this.label, slope: this.analysis().reading.facts.sigma.slope });
     const c = chart(() => {
       if (own) return spec(this.analysis().qq);
-      const { values, rowLabel } = this.#load();
-      const rows = new Int32Array(values.length).map((_, j) => rowLabel(j));
-      const merged = { ...this.#root.options.qq, ...options, rows };
-      const q = qqData(values, merged); // a residual chain keeps its simulated envelope
+      const loaded = this.#load();
+      const merged = { ...this.#root.options.qq, ...options, rows: allRowLabels(loaded) };
+      const q = qqData(loaded.values, merged); // a residual chain keeps its simulated envelope
       return spec(this.#model ? withEnvelope(q, this.#envelope(merged.level)(q.rank)) : q);
     });
     if (own) this.#charts[kind] = c;

@@ -9,7 +9,7 @@ import { _isTable } from "../data/_table_store.ts";
 import { frameColumns } from "../data/frame_like.ts";
 import { tableFromMemory } from "../data/in_memory.ts";
 import type { MemorySource } from "../data/memory_source.ts";
-import type { NumericColumn, Table } from "../data/table.ts";
+import type { Table } from "../data/table.ts";
 
 /**
  * What `plumb` and `survey` accept: a table from `loadTable`, or in-memory
@@ -91,13 +91,4 @@ export function pickColumn(table: Table, column: string | undefined): string {
         numeric.join(", ")
       }): name the one to analyse, e.g. plumb(table, "${numeric[0]}")`,
   );
-}
-
-/**
- * The 1-based data row of the value at a 0-based position, read only for
- * the QQ points drawn: with every row used it is the position + 1, and the
- * column's row index is never built.
- */
-export function _rowLabel(col: NumericColumn, rowCount: number): (position: number) => number {
-  return col.values.length === rowCount ? (j) => j + 1 : (j) => col.rowIndex[j] + 1;
 }

@@ -13,7 +13,7 @@ import { type Adjustment, adjustPValues, checkAdjustment } from "../stats/multip
 import { refuseCensored } from "./_censored_guard.ts";
 import { analyse, ANALYSE_MIN_N } from "./analysis.ts";
 import { suggestReexpression } from "./reexpress_view.ts";
-import { _rowLabel } from "./source.ts";
+import { rowLabelOf } from "./_loaded.ts";
 
 /** Options for {@linkcode survey}. */
 export interface SurveyOptions {
@@ -113,7 +113,7 @@ export function screenColumns(t: Table, options: SurveyOptions): SurveyResult {
         column: name,
         missingDropped: col.provenance.missingDropped,
         textDropped: col.provenance.textDropped,
-      }, { rowLabel: _rowLabel(col, t.rowCount) });
+      }, { rowLabel: rowLabelOf(col, t.rowCount) });
       const suggestion = a.reading.verdict === "no-clear-departure"
         ? "none needed"
         : suggestReexpression(v);
