@@ -10,9 +10,9 @@
  * @module
  */
 import type { Table } from "../data/table.ts";
-import type { ReexpressionSearch } from "../reexpress/candidates.ts";
+import type { ReexpressionRanking, ReexpressionSearch } from "../reexpress/candidates.ts";
 import type { Reexpression } from "../reexpress/reexpression.ts";
-import { searchReexpressions } from "../reexpress/search.ts";
+import { rankReexpressions, testRanking } from "../reexpress/search.ts";
 import { type Chart, chart } from "../render/chart_bundle.ts";
 import { histogramSpec } from "../render/histogram_spec.ts";
 import { detrendedSpec, qqSpec } from "../render/qq_spec.ts";
@@ -96,6 +96,7 @@ export class Plumb implements Displayable {
   #step: Step | null | undefined;
   #loaded: Loaded | undefined;
   #analysis: Analysis | undefined;
+  #ranking: ReexpressionRanking | undefined;
   #search: ReexpressionSearch | undefined;
   #candidates: CandidatesView | undefined;
   #lambda: Chart | undefined;
@@ -143,7 +144,7 @@ export class Plumb implements Displayable {
   get choice(): ReexpressionChoice | null {
     if (this.#parent === undefined || this.#request === undefined) return null;
     const step = this.#resolved(), request = this.#request;
-    const reason = request === "best" ? this.#parent.#searched().reason : step?.note;
+    const reason = request === "best" ? this.#parent.#ranked().reason : step?.note;
     return Object.freeze({
       request,
       reexpression: step?.reexpression ?? null,
@@ -161,7 +162,7 @@ export class Plumb implements Displayable {
     const parent = this.#parent!;
     const request = this.#request!;
     this.#step = request === "best"
-      ? chosenStep(parent.#searched())
+      ? chosenStep(parent.#ranked())
       : resolveStep(request, parent.#load().values);
     return this.#step;
   }
@@ -191,8 +192,14 @@ export class Plumb implements Displayable {
     return this.#loaded;
   }
 
+  /** The candidates ranked (cheap: one sort, one pass each); enough for a choice. */
+  #ranked(): ReexpressionRanking {
+    return (this.#ranking ??= rankReexpressions(this.#load().values));
+  }
+
+  /** The ranked candidates re-tested, for the candidates panel. */
   #searched(): ReexpressionSearch {
-    return (this.#search ??= searchReexpressions(this.#load().values));
+    return (this.#search ??= testRanking(this.#load().values, this.#ranked()));
   }
 
   /** The full analysis as plain data (computed once). */
@@ -376,7 +383,7 @@ export class Plumb implements Displayable {
   /** The re-expression behind the stakes' re-expressed figures. */
   #stakesModel(opts: StakesOptions): StakesOptions["reexpression"] {
     if (this.#parent === undefined) {
-      return opts.reexpression ?? this.#searched().chosen.reexpression;
+      return opts.reexpression ?? this.#ranked().chosen.reexpression;
     }
     return stakesStep(this.steps, this.label);
   }

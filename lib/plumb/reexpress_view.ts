@@ -7,8 +7,8 @@
  */
 import { backTransformMean } from "../reexpress/back_transform.ts";
 import { applyReexpression } from "../reexpress/reexpression.ts";
-import type { ReexpressionSearch } from "../reexpress/candidates.ts";
-import { searchReexpressions } from "../reexpress/search.ts";
+import type { ReexpressionRanking, ReexpressionSearch } from "../reexpress/candidates.ts";
+import { rankReexpressions } from "../reexpress/search.ts";
 import { chartBundle } from "../render/chart_bundle.ts";
 import { comparisonSpec } from "../render/comparison_spec.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
@@ -192,14 +192,14 @@ export function candidatesView(
 }
 
 /** The chosen candidate as a step, or `null` when it is "as measured". */
-export function chosenStep(s: ReexpressionSearch): Step | null {
+export function chosenStep(s: ReexpressionRanking): Step | null {
   if (s.chosen.reexpression.kind === "identity") return null;
   return stepOf(s.chosen.reexpression, s.reason);
 }
 
 /** The chosen candidate's formula in `x` for a survey row (`"none better than x"` when none helps). */
 export function suggestReexpression(values: Float64Array): string {
-  const s = searchReexpressions(values);
+  const s = rankReexpressions(values); // the choice needs no re-testing
   if (s.chosen.reexpression.kind === "identity") return "none better than x";
   return stepOf(s.chosen.reexpression).formula;
 }

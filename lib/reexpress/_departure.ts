@@ -4,6 +4,7 @@
  *
  * @module
  */
+import { sortFloat64 } from "../numeric/sort.ts";
 import { normalScores } from "../stats/plotting_positions.ts";
 import { shapiroFranciaNull } from "../stats/shapiro_francia.ts";
 
@@ -19,27 +20,38 @@ import { shapiroFranciaNull } from "../stats/shapiro_francia.ts";
  * @param scores Blom scores for n = x.length, when the caller has them
  */
 export function _departure(x: ArrayLike<number>, scores?: Float64Array): number {
-  const n = x.length;
-  const s = Float64Array.from(x).sort();
+  return _departureSorted(sortFloat64(Float64Array.from(x)), scores);
+}
+
+/**
+ * {@linkcode _departure} of a sample already sorted ascending (not
+ * modified): the same value, without a copy or a sort.
+ *
+ * @param s the values, ascending
+ * @param scores Blom scores for n = s.length, when the caller has them
+ */
+export function _departureSorted(s: Float64Array, scores?: Float64Array): number {
+  const n = s.length;
   const m = scores ?? normalScores(n);
   // 1 − r² does not change under x → 2ᵏ·x: rescale so that the largest
   // magnitude is near 1, so that neither the sums nor the squares overflow or
   // underflow for values near ±1e308 or subnormal ones.
+  let a = 1;
+  let b = 1;
   const big = Math.max(Math.abs(s[0]), Math.abs(s[n - 1]));
   if (big > 0 && Number.isFinite(big)) {
     const k = -Math.floor(Math.log2(big));
-    const a = 2 ** Math.trunc(k / 2);
-    const b = 2 ** (k - Math.trunc(k / 2));
-    for (let i = 0; i < n; i++) s[i] = s[i] * a * b;
+    a = 2 ** Math.trunc(k / 2);
+    b = 2 ** (k - Math.trunc(k / 2));
   }
   let mean = 0;
-  for (let i = 0; i < n; i++) mean += s[i];
+  for (let i = 0; i < n; i++) mean += s[i] * a * b;
   mean /= n;
   let sxy = 0;
   let sxx = 0;
   let syy = 0;
   for (let i = 0; i < n; i++) {
-    const d = s[i] - mean;
+    const d = s[i] * a * b - mean;
     sxy += d * m[i]; // the scores sum to zero, so they need no centring
     sxx += d * d;
     syy += m[i] * m[i];

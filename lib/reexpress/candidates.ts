@@ -20,8 +20,8 @@ export interface CandidateTest {
   readonly note: string | null;
 }
 
-/** One re-expression tried, re-tested and placed: plain, frozen data. */
-export interface ReexpressionCandidate {
+/** One re-expression tried and placed by its departure: plain, frozen data. */
+export interface RankedCandidate {
   /** 1 for the chosen candidate, then 2, 3, … */
   readonly rank: number;
   /** What was applied. */
@@ -32,14 +32,43 @@ export interface ReexpressionCandidate {
   readonly closeToBest: boolean;
   /** Place in the simplicity order (0 = as measured, 6 = fitted Yeo–Johnson). */
   readonly simplicity: number;
+  /** Where the candidate came from (a shift rule, a ladder choice, a fitted λ). */
+  readonly notes: readonly string[];
+}
+
+/**
+ * The candidates ranked by departure alone, before any test is re-run on
+ * them: everything a choice needs (see `rankReexpressions`).
+ */
+export interface ReexpressionRanking {
+  /** Number of values. */
+  readonly n: number;
+  /** Every candidate tried, best first. */
+  readonly candidates: readonly RankedCandidate[];
+  /** The first candidate: the one to carry forward. */
+  readonly chosen: RankedCandidate;
+  /** Why the chosen one was chosen, in words. */
+  readonly reason: string;
+  /** The ranking rule, in words. */
+  readonly rule: string;
+  /** The chance margin used: median 1 − W′ of normal samples of this size. */
+  readonly margin: number;
+  /** The Box–Cox fit (positive data only), or `null`. */
+  readonly boxCox: LambdaFit | null;
+  /** The Yeo–Johnson fit (data with zeros or negatives only), or `null`. */
+  readonly yeoJohnson: LambdaFit | null;
+  /** Re-expressions not tried, and why. */
+  readonly skipped: readonly string[];
+}
+
+/** One re-expression tried, re-tested and placed: plain, frozen data. */
+export interface ReexpressionCandidate extends RankedCandidate {
   /** Moment skewness g1 of the re-expressed values (`null` for n < 4). */
   readonly skewness: number | null;
   /** Moment excess kurtosis g2 of the re-expressed values (`null` for n < 4). */
   readonly excessKurtosis: number | null;
   /** Every normality test, re-run on the re-expressed values. */
   readonly tests: readonly CandidateTest[];
-  /** Where the candidate came from (a shift rule, a ladder choice, a fitted λ). */
-  readonly notes: readonly string[];
 }
 
 /** The outcome of {@linkcode searchReexpressions}: plain, frozen data. */
@@ -100,13 +129,13 @@ export function _fmt(v: number): string {
 
 /** Why the chosen candidate was chosen, in words. */
 export function _reason(
-  chosen: ReexpressionCandidate,
-  best: ReexpressionCandidate,
-  all: readonly ReexpressionCandidate[],
+  chosen: RankedCandidate,
+  best: RankedCandidate,
+  all: readonly RankedCandidate[],
   margin: number,
   n: number,
 ): string {
-  const dep = (c: ReexpressionCandidate) => `${c.reexpression.label}: ${_fmt(c.departure)}`;
+  const dep = (c: RankedCandidate) => `${c.reexpression.label}: ${_fmt(c.departure)}`;
   const chance = `${_fmt(margin)}, what normal samples of ${n} typically show`;
   const simpler = all.filter((c) => c.simplicity < chosen.simplicity && !c.closeToBest);
   const isAsIs = chosen.reexpression.kind === "identity";

@@ -4,6 +4,7 @@
  * @module
  */
 import { PlumbError } from "../errors.ts";
+import { sortFloat64 } from "../numeric/sort.ts";
 import { formatCompact } from "../results/format.ts";
 import { boxCox, boxCoxInverse } from "./box_cox.ts";
 import { logInverse, logTransform } from "./log.ts";
@@ -122,6 +123,33 @@ export function applyReexpression(x: ArrayLike<number>, r: Reexpression): Float6
     case "yeo-johnson":
       return yeoJohnson(x, r.lambda!);
   }
+}
+
+/**
+ * Apply a re-expression to values sorted ascending and return the results
+ * ascending, so that candidates share one sort of the data: every
+ * re-expression here is monotone, so the results are already in order, or
+ * in reverse order for one that reverses it (the reciprocal). Should
+ * rounding ever break the order, they are sorted again. Values that are not
+ * finite (an overflowing power) are left where they fall; check before use.
+ *
+ * @param sorted the data, ascending, in original units
+ * @param r the re-expression
+ * @example
+ * ```ts
+ * import { applyToSorted, reexpression } from "./reexpression.ts";
+ * const y = applyToSorted(new Float64Array([1, 2, 4]), reexpression("reciprocal"));
+ * if (y.join() !== "0.25,0.5,1") throw new Error(y.join());
+ * ```
+ */
+export function applyToSorted(sorted: Float64Array, r: Reexpression): Float64Array {
+  const y = applyReexpression(sorted, r);
+  const n = y.length;
+  if (n > 1 && y[0] > y[n - 1]) y.reverse();
+  for (let i = 1; i < n; i++) {
+    if (y[i] < y[i - 1]) return sortFloat64(y);
+  }
+  return y;
 }
 
 /**
