@@ -1,15 +1,22 @@
 /**
- * Every side-by-side comparison in one run, printed as a Markdown table of
- * ratios (plumbline time / reference time; below 1 means plumbline is
- * faster), with the library versions. The reference is Python's numpy,
- * scipy, statsmodels and pandas from /usr/bin/python3, timed on the same
- * data in the same run (the data are written to a temporary file and read
- * by numpy, so both sides see the same doubles). Every time is a median of
- * repeated batches ({@linkcode timeOurs}, {@linkcode timePython}).
+ * Every side-by-side comparison in one run, as a Markdown table of ratios
+ * (plumbline time / reference time; below 1 means plumbline is faster), with
+ * the library versions. The reference is Python's numpy, scipy, statsmodels
+ * and pandas from /usr/bin/python3, timed on the same data in the same run
+ * (the data are written to a temporary file and read by numpy, so both sides
+ * see the same doubles). Each time is a median of repeated batches
+ * ({@linkcode timeOurs}, {@linkcode timePython}); the whole set of cases is
+ * run `--runs` times (default 3), and the table gives the median ratio and
+ * its range over the runs, with the load average (/proc/loadavg) before and
+ * after each run: the machine may be shared, so quote the ranges.
  *
  * What is compared, case by case, is printed under the table.
  *
- * Run: deno run -A bench/side_by_side_all.ts [case-name-filter]
+ * Run: deno run -A bench/side_by_side_all.ts [--runs K] [--readme README.md] [case-name-filter]
+ *
+ * With `--readme FILE`, the table and the load line replace the lines
+ * between `<!-- performance-table -->` and `<!-- /performance-table -->`
+ * in FILE, so the README's figures come from one run of this script.
  *
  * @module
  */
@@ -49,6 +56,13 @@ def screen(x):
                     lilliefors(c, dist='norm', pvalmethod='approx'),
                     np.histogram(c, bins='fd')))
     return out
+`;
+
+/** The same screen, plus each column's maximum-likelihood Box–Cox λ (scipy). */
+const SURVEY_LAMBDA_PY_SETUP = SURVEY_PY_SETUP +
+  `
+def screen_lambda(x):
+    return screen(x), [s.boxcox_normmax(c, method='mle') for c in x.reshape(${SURVEY_COLS}, -1)]
 `;
 
 function surveyTable(x: Float64Array) {
@@ -104,6 +118,16 @@ const CASES: SideBySideCase[] = [
     pythonSetup: SURVEY_PY_SETUP,
     python: "screen(x)",
   },
+  {
+    name: `survey, lognormal, ${SURVEY_ROWS} rows × ${SURVEY_COLS} columns`,
+    data: lognormal(SURVEY_COLS * SURVEY_ROWS),
+    ours: (x) => {
+      if (surveyCache?.x !== x) surveyCache = { x, table: surveyTable(x) };
+      return survey(surveyCache.table).result();
+    },
+    pythonSetup: SURVEY_LAMBDA_PY_SETUP,
+    python: "screen_lambda(x)",
+  },
 ];
 
 const NOTES = [
@@ -119,6 +143,11 @@ const NOTES = [
   "not timed) vs, per column: `shapiro` on a random subsample of 5000, `anderson`, `normaltest`, " +
   "`skew` and `kurtosis` (bias=False), `jarque_bera` (scipy), statsmodels' " +
   "`lilliefors(pvalmethod='approx')` and `numpy.histogram(bins='fd')`.",
+  "survey, lognormal: the same on lognormal columns, where every column departs, so plumbline " +
+  "also ranks the re-expressions of each (with its Box–Cox λ and interval) to suggest one; the " +
+  "reference adds `scipy.stats.boxcox_normmax(c, method='mle')` for each column.",
+  "Shapiro–Wilk ÷ radix sort: `shapiroWilk(x)` at n = 5000 against one `sortFloat64` of a " +
+  "copy of the same array (the sort is the floor of any order-statistic test).",
   "CSV load: `loadTable(file)`, alone and followed by `table.numeric(name)` for every column " +
   "(each a fresh `Float64Array` copy), vs `pandas.read_csv(file)`; the same file, 1e6 rows × 10 " +
   "columns of 4-decimal numbers.",
@@ -169,33 +198,105 @@ async function csvLoad(repeats = 5): Promise<[number, number, number]> {
   }
 }
 
-if (import.meta.main) {
-  const filter = Deno.args[0] ?? "";
-  console.log(await versions());
-  console.log(`load average before: ${(await Deno.readTextFile("/proc/loadavg")).trim()}`);
-  console.log("\n| case | plumbline | reference | ratio |\n| --- | ---: | ---: | ---: |");
-  const row = (name: string, ours: number, ref: number) =>
-    console.log(`| ${name} | ${fmtTime(ours)} | ${fmtTime(ref)} | ${(ours / ref).toFixed(2)} |`);
+/** One line of the table: its name and, per run, our time, the reference's and their ratio. */
+interface _Row {
+  readonly name: string;
+  readonly ours: number[];
+  readonly ref: number[];
+}
+
+const _median = (xs: readonly number[]) => {
+  const s = [...xs].sort((a, b) => a - b);
+  return s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
+};
+
+async function _loadavg(): Promise<string> {
+  return (await Deno.readTextFile("/proc/loadavg")).split(" ").slice(0, 3).join(" ");
+}
+
+/** Run every case once; add each time to its row. */
+async function _runOnce(filter: string, rows: Map<string, _Row>): Promise<void> {
+  const add = (name: string, ours: number, ref: number) => {
+    const row = rows.get(name) ?? { name, ours: [], ref: [] };
+    row.ours.push(ours);
+    row.ref.push(ref);
+    rows.set(name, row);
+  };
   for (const c of CASES.filter((k) => k.name.includes(filter))) {
     const x = c.data();
     const budget = x.length >= 1e6 ? 3 : 1;
-    row(c.name, timeOurs(() => c.ours(x), budget), await timePython(c, x, budget));
+    add(c.name, timeOurs(() => c.ours(x), budget), await timePython(c, x, budget));
   }
   if ("CSV load".includes(filter)) {
     const [alone, ours, ref] = await csvLoad();
-    row("CSV load, 1e6 rows × 10 columns: `loadTable`", alone, ref);
-    row("CSV load, 1e6 rows × 10 columns: `loadTable` + every `numeric()` copy", ours, ref);
+    add("CSV load, 1e6 rows × 10 columns: `loadTable`", alone, ref);
+    add("CSV load, 1e6 rows × 10 columns: `loadTable` + every `numeric()` copy", ours, ref);
   }
-  if ("Shapiro–Wilk vs sort".includes(filter) || filter === "") {
+  if ("Shapiro–Wilk ÷ radix sort, n = 5000".includes(filter) || filter === "") {
     const x = normal(5000)();
     const sw = timeOurs(() => shapiroWilk(x), 1);
     const sort = timeOurs(() => sortFloat64(x.slice()), 1);
-    console.log(
-      `\nShapiro–Wilk at n = 5000: ${fmtTime(sw)}; one radix sort of a copy of the same array: ` +
-        `${fmtTime(sort)}; ratio ${(sw / sort).toFixed(2)} (target ≤ 1.5)`,
+    add("Shapiro–Wilk ÷ radix sort, n = 5000 (reference: one `sortFloat64`)", sw, sort);
+  }
+}
+
+/** The table: median times, the median ratio and its range over the runs. */
+function _table(rows: Iterable<_Row>, runs: number): string {
+  const lines = [
+    `| case | plumbline | reference | ratio (median) | ratio range, ${runs} run${
+      runs === 1 ? "" : "s"
+    } |`,
+    "| --- | ---: | ---: | ---: | ---: |",
+  ];
+  for (const r of rows) {
+    const ratios = r.ours.map((o, i) => o / r.ref[i]);
+    lines.push(
+      `| ${r.name} | ${fmtTime(_median(r.ours))} | ${fmtTime(_median(r.ref))} | ` +
+        `${_median(ratios).toFixed(2)} | ${Math.min(...ratios).toFixed(2)}–${
+          Math.max(...ratios).toFixed(2)
+        } |`,
     );
   }
-  console.log(`\nload average after: ${(await Deno.readTextFile("/proc/loadavg")).trim()}`);
+  return lines.join("\n");
+}
+
+/** Replace the lines between the performance-table markers of a Markdown file. */
+async function _writeReadme(file: string, block: string): Promise<void> {
+  const text = await Deno.readTextFile(file);
+  const open = "<!-- performance-table -->";
+  const close = "<!-- /performance-table -->";
+  const a = text.indexOf(open);
+  const b = text.indexOf(close);
+  if (a < 0 || b < a) throw new Error(`${file} has no ${open} … ${close} block`);
+  await Deno.writeTextFile(file, `${text.slice(0, a + open.length)}\n${block}\n${text.slice(b)}`);
+}
+
+if (import.meta.main) {
+  const args = [...Deno.args];
+  const take = (flag: string) => {
+    const i = args.indexOf(flag);
+    return i < 0 ? undefined : args.splice(i, 2)[1];
+  };
+  const runs = Number(take("--runs") ?? 3);
+  const readme = take("--readme");
+  const filter = args[0] ?? "";
+  const header = await versions();
+  console.log(header);
+  const rows = new Map<string, _Row>();
+  const loads: string[] = [];
+  for (let run = 1; run <= runs; run++) {
+    const before = await _loadavg();
+    await _runOnce(filter, rows);
+    loads.push(`run ${run}: ${before} → ${await _loadavg()}`);
+    console.log(`run ${run} of ${runs} done (load average ${loads[loads.length - 1]})`);
+  }
+  const table = _table(rows.values(), runs);
+  const load = `Load average (1, 5, 15 min) before → after each run: ${loads.join("; ")}.`;
+  console.log(`\n${table}\n\n${load}`);
   console.log("\nWhat is compared:\n");
   for (const note of NOTES) console.log(`- ${note}`);
+  if (readme) {
+    await _writeReadme(readme, `${header}.\n\n${table}\n\n${load}`);
+    console.log(`\nWrote the table into ${readme}`);
+  }
 }
