@@ -7,6 +7,7 @@
  */
 import type { MergedLabel, Table } from "../data/table.ts";
 import { PlumbError } from "../errors.ts";
+import { optionNames } from "../results/options.ts";
 import type { Analysis } from "../results/analysis.ts";
 import { _meanSd } from "../stats/moments.ts";
 import type { Reexpression } from "../reexpress/reexpression.ts";
@@ -25,6 +26,9 @@ export interface GroupOptions {
    */
   readonly adjust?: Adjustment;
 }
+
+/** Every option name of {@linkcode GroupOptions}. */
+export const GROUP_OPTION_NAMES: readonly string[] = optionNames<GroupOptions>({ adjust: true });
 
 /** What a per-group chain holds: the table, the variable and its steps, the grouping. */
 export interface GroupState {

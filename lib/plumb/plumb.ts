@@ -31,33 +31,15 @@ import { type CandidatesView, candidatesView, chosenStep } from "./reexpress_vie
 import * as fitting from "./residual_link.ts";
 import type { LinearModelFit } from "../stats/linear_model.ts";
 import { type Sentence, sentenceOf, type SentenceOptions, writeSentence } from "./sentence.ts";
+import * as checked from "./_chain_options.ts";
+import type { PlumbOptions } from "./_chain_options.ts";
 import { pickColumn, type PlumbSource, singleColumn, toTable } from "./source.ts";
 import { checkRequest, type ReexpressRequest, resolveStep, type Step } from "./steps.ts";
 import { stepLabel, stepsData } from "./steps.ts";
 import { stakesOptions, stakesStep, type StakesView, stakesView } from "./stakes_view.ts";
 import { type TestsTable, testsView } from "./tests_view.ts";
 
-/** Options for {@linkcode plumb}. */
-export interface PlumbOptions {
-  /**
-   * Leave out text cells of the column (counted in every output) instead of
-   * failing with a `"non-numeric"` error.
-   * @default false
-   */
-  readonly dropText?: boolean;
-  /**
-   * QQ envelope options (level, `"pointwise"` or `"simultaneous"`), for the
-   * card, `.qq()`, `.detrended()` and every group of `.by()`.
-   * @default {}
-   */
-  readonly qq?: QqOptions;
-  /**
-   * Name of the single column when the source is a plain array of numbers
-   * (`plumb(values, "fill_ml")` names it too).
-   * @default "value"
-   */
-  readonly name?: string;
-}
+export type { PlumbOptions } from "./_chain_options.ts";
 
 /** What a `.reexpress()` request became: the re-expression applied, or none, and why. */
 export interface ReexpressionChoice {
@@ -229,7 +211,8 @@ export class Plumb implements Displayable {
   }
 
   /** The same variable (with its re-expressions) screened within each group of a column. */
-  by(column: string, options: GroupOptions = {}): PlumbGroups {
+  by(column: string, options: GroupOptions | null = {}): PlumbGroups {
+    options = checked.groupOptions(options);
     const { table, column: variable, options: own } = this.#root;
     if (this.#model) fitting.refuseAfterResiduals(".by()");
     pickColumn(table, column);
@@ -292,12 +275,14 @@ export class Plumb implements Displayable {
   }
 
   /** The QQ plot with its envelope, as a displayable chart. */
-  qq(options: QqOptions = {}): Chart {
+  qq(options: QqOptions | null = {}): Chart {
+    options = checked.qqOptions(options, ".qq()");
     return this.#chart("qq", options, qqSpec);
   }
 
   /** The detrended QQ plot (deviation from the line, with the envelope). */
-  detrended(options: QqOptions = {}): Chart {
+  detrended(options: QqOptions | null = {}): Chart {
+    options = checked.qqOptions(options, ".detrended()");
     return this.#chart("detrended", options, detrendedSpec);
   }
 
@@ -322,7 +307,8 @@ export class Plumb implements Displayable {
   }
 
   /** The histogram with the fitted normal curve. */
-  histogram(options: HistogramOptions = {}): Chart {
+  histogram(options: HistogramOptions | null = {}): Chart {
+    options = checked.histogramOptions(options);
     const own = Object.keys(options).length === 0;
     if (own && this.#charts.histogram) return this.#charts.histogram;
     const c = chart(() =>
@@ -346,7 +332,8 @@ export class Plumb implements Displayable {
   }
 
   /** The write-up paragraph. */
-  sentence(options: SentenceOptions = {}): Sentence {
+  sentence(options: SentenceOptions | null = {}): Sentence {
+    options = checked.sentenceOptions(options);
     const make = () => sentenceOf(() => writeSentence(this.analysis(), options));
     if (Object.keys(options).length > 0) return make();
     return (this.#sentence ??= make());
@@ -416,7 +403,12 @@ export class Plumb implements Displayable {
  * if (p.analysis().n !== 10 || p.label !== "fill_ml") throw new Error("chain");
  * ```
  */
-export function plumb(source: PlumbSource, column?: string, options: PlumbOptions = {}): Plumb {
+export function plumb(
+  source: PlumbSource,
+  column?: string,
+  options: PlumbOptions | null = {},
+): Plumb {
+  options = checked.plumbArguments(column, options);
   const single = singleColumn(source);
   const name = single && column !== undefined ? column : options.name ?? "value";
   const table = toTable(source, name);

@@ -8,6 +8,7 @@ import { escapeHtml, escapeMarkdown, plainText } from "../render/escape.ts";
 import { formatCount, formatNumber } from "../results/format.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
 import type { Analysis } from "../results/analysis.ts";
+import { optionNames } from "../results/options.ts";
 import { VERDICT_WORDS } from "../results/reading.ts";
 
 /**
@@ -109,6 +110,12 @@ function _findings(a: Analysis): string[] {
   }
   return out;
 }
+
+/** Every option name of {@linkcode SentenceOptions}. */
+export const SENTENCE_OPTION_NAMES: readonly string[] = optionNames<SentenceOptions>({
+  adjusted: true,
+  cautions: true,
+});
 
 /**
  * The pasteable paragraph for one analysis.

@@ -5,6 +5,7 @@
  * @module
  */
 import { PlumbError } from "../errors.ts";
+import { checkOptions, nearestName } from "../results/options.ts";
 import { logShift } from "../reexpress/log.ts";
 import { applyReexpression, type Reexpression, reexpression } from "../reexpress/reexpression.ts";
 
@@ -59,6 +60,9 @@ export function stepOf(r: Reexpression, note?: string): Step {
   });
 }
 
+/** The re-expressions requested by name. */
+const _NAMED: readonly string[] = ["log", "log10", "sqrt", "reciprocal", "best"];
+
 /**
  * Check a request's form before any data are read, so that a mistyped
  * request fails where it is written: a known name, `{ boxCox: λ }` or
@@ -80,7 +84,7 @@ export function stepOf(r: Reexpression, note?: string): Step {
  * ```
  */
 export function checkRequest(request: ReexpressRequest): void {
-  if (["log", "log10", "sqrt", "reciprocal", "best"].includes(request as string)) return;
+  if (_NAMED.includes(request as string)) return;
   if (typeof request === "object" && request !== null) {
     const r = request as Record<string, unknown>;
     const keys = Object.keys(r);
@@ -94,6 +98,7 @@ export function checkRequest(request: ReexpressRequest): void {
       );
     }
     if (keys.length === 1 && keys[0] === "log" && typeof r.log === "object" && r.log !== null) {
+      checkOptions(r.log, ["shift", "base"], "the log re-expression");
       const { shift, base } = r.log as { shift?: unknown; base?: unknown };
       const shiftOk = shift === undefined || (typeof shift === "number" && Number.isFinite(shift));
       const baseOk = base === undefined || base === "e" || base === 10;
@@ -105,12 +110,20 @@ export function checkRequest(request: ReexpressRequest): void {
       );
     }
   }
+  const given = typeof request === "string"
+    ? request
+    : typeof request === "object" && request !== null && Object.keys(request).length === 1
+    ? Object.keys(request)[0]
+    : null;
+  const near = given === null ? null : nearestName(given, [..._NAMED, "boxCox", "yeoJohnson"]);
+  const choices = `"log", "log10", "sqrt", "reciprocal", "best", ` +
+    "{ boxCox: λ }, { yeoJohnson: λ } or { log: { shift, base } }";
   throw new PlumbError(
     "bad-option",
-    `Unknown re-expression ${
-      JSON.stringify(request)
-    }: use "log", "log10", "sqrt", "reciprocal", "best", ` +
-      "{ boxCox: λ }, { yeoJohnson: λ } or { log: { shift, base } }",
+    `Unknown re-expression ${JSON.stringify(request)}: ` +
+      (near === null
+        ? `use ${choices}`
+        : `did you mean ${JSON.stringify(near)}? (the choices are ${choices})`),
   );
 }
 

@@ -5,7 +5,6 @@
  * @module
  */
 import type { Table } from "../data/table.ts";
-import { PlumbError } from "../errors.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
 import { formatCount, formatP } from "../results/format.ts";
 import { qqSparkline } from "../render/sparkline.ts";
@@ -22,7 +21,14 @@ import {
   summaryValues,
   tableBundle,
 } from "./_rows.ts";
-import { screenColumns, type SurveyOptions, type SurveyResult } from "./survey_screen.ts";
+import {
+  screenColumns,
+  SURVEY_OPTION_NAMES,
+  surveyColumns,
+  type SurveyOptions,
+  type SurveyResult,
+} from "./survey_screen.ts";
+import { checkOptions } from "../results/options.ts";
 import { type PlumbSource, toTable } from "./source.ts";
 
 /**
@@ -43,11 +49,7 @@ export class Survey implements Displayable {
   /** @internal Use {@linkcode survey}. */
   constructor(table: Table, options: SurveyOptions) {
     checkAdjustment(options.adjust);
-    for (const c of options.columns ?? []) {
-      if (!table.has(c)) {
-        throw new PlumbError("unknown-column", `No column named ${JSON.stringify(c)} to survey`);
-      }
-    }
+    surveyColumns(table, options.columns);
     this.#table = table;
     this.#options = options;
     Object.freeze(this);
@@ -93,6 +95,11 @@ export class Survey implements Displayable {
     ];
     const sub = subsampleNote(r.rows.flatMap((x) => (x.analysis ? [x.analysis] : [])));
     if (sub) notes.push(sub);
+    if (r.repeated.length) {
+      notes.push(
+        `Named more than once in columns, screened once: ${r.repeated.join(", ")}.`,
+      );
+    }
     if (r.textColumns.length) {
       notes.push(
         `Text columns, not screened (use them to group with .by()): ${r.textColumns.join(", ")}.`,
@@ -177,6 +184,7 @@ export class Survey implements Displayable {
  * if (s.result().rows.length !== 2) throw new Error("rows");
  * ```
  */
-export function survey(source: PlumbSource, options: SurveyOptions = {}): Survey {
+export function survey(source: PlumbSource, options: SurveyOptions | null = {}): Survey {
+  options = checkOptions(options, SURVEY_OPTION_NAMES, "survey");
   return new Survey(toTable(source), options);
 }

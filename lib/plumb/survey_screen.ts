@@ -9,19 +9,22 @@ import { _numericColumnShared } from "../data/numeric_column.ts";
 import type { Table } from "../data/table.ts";
 import { PlumbError } from "../errors.ts";
 import type { Analysis } from "../results/analysis.ts";
+import { optionNames } from "../results/options.ts";
 import { type Adjustment, adjustPValues, checkAdjustment } from "../stats/multiplicity.ts";
 import { refuseCensored } from "./_censored_guard.ts";
 import { analyse, ANALYSE_MIN_N } from "./analysis.ts";
 import { suggestReexpression } from "./reexpress_view.ts";
 import { rowLabelOf } from "./_loaded.ts";
+import { pickColumn } from "./source.ts";
 
 /** Options for {@linkcode survey}. */
 export interface SurveyOptions {
   /**
-   * The columns to screen.
+   * The columns to screen (one name may be given as a string). A name given
+   * twice is screened once (`repeated` in the result says so).
    * @default every numeric column
    */
-  readonly columns?: readonly string[];
+  readonly columns?: readonly string[] | string;
   /**
    * p-value adjustment across the columns screened.
    * @default "holm"
@@ -34,6 +37,13 @@ export interface SurveyOptions {
    */
   readonly dropText?: boolean;
 }
+
+/** Every option name of {@linkcode SurveyOptions}. */
+export const SURVEY_OPTION_NAMES: readonly string[] = optionNames<SurveyOptions>({
+  columns: true,
+  adjust: true,
+  dropText: true,
+});
 
 /** One column's row. */
 export interface SurveyRow {
@@ -63,6 +73,40 @@ export interface SurveyResult {
   readonly rows: readonly SurveyRow[];
   /** Text columns, not screened (they can group: `.by(column)`). */
   readonly textColumns: readonly string[];
+  /** Names given more than once in `columns`, each screened once. */
+  readonly repeated: readonly string[];
+}
+
+/**
+ * The columns a survey screens: every numeric column, or those named (a
+ * string is one name), each once, checked against the table.
+ *
+ * @param t the table
+ * @param columns the `columns` option
+ * @returns the names in order of first mention, and those given more than once
+ * @throws {PlumbError} `"bad-option"` for a list that is not of names,
+ *   `"unknown-column"` for a name the table does not have
+ */
+export function surveyColumns(
+  t: Table,
+  columns: SurveyOptions["columns"],
+): { readonly names: readonly string[]; readonly repeated: readonly string[] } {
+  if (columns === undefined) return { names: t.numericNames(), repeated: [] };
+  const given: unknown = typeof columns === "string" ? [columns] : columns;
+  if (!Array.isArray(given) || given.some((c) => typeof c !== "string")) {
+    throw new PlumbError(
+      "bad-option",
+      `Cannot read the columns option of survey: give column names, as in { columns: ["fill_ml", "torque_nm"] }`,
+    );
+  }
+  const names: string[] = [];
+  const repeated: string[] = [];
+  for (const c of given as string[]) {
+    pickColumn(t, c);
+    if (!names.includes(c)) names.push(c);
+    else if (!repeated.includes(c)) repeated.push(c);
+  }
+  return { names, repeated };
 }
 
 const _RANK = { "clear-departure": 0, "mild-departure": 1, "no-clear-departure": 2 } as const;
@@ -77,7 +121,7 @@ const _RANK = { "clear-departure": 0, "mild-departure": 1, "no-clear-departure":
  */
 export function screenColumns(t: Table, options: SurveyOptions): SurveyResult {
   const adjust = checkAdjustment(options.adjust);
-  const names = options.columns ? [...options.columns] : t.numericNames();
+  const { names, repeated } = surveyColumns(t, options.columns);
   const rows: SurveyRow[] = [];
   for (const name of names) {
     const info = t.info(name);
@@ -156,5 +200,6 @@ export function screenColumns(t: Table, options: SurveyOptions): SurveyResult {
     adjust,
     rows: Object.freeze(rows.map((r) => Object.freeze(r))),
     textColumns: Object.freeze(t.textNames()),
+    repeated: Object.freeze([...repeated]),
   });
 }

@@ -69,16 +69,39 @@ export function checkOptions<T extends object>(
 }
 
 /**
+ * The option names of an options type, from an object that must list every
+ * one of them (a name left out or misspelt does not type-check), so that the
+ * list {@linkcode checkOptions} is given cannot drift from the interface.
+ *
+ * @param every each option name of `T`, mapped to `true`
+ * @returns the names, frozen
+ * @example
+ * ```ts
+ * import { optionNames } from "./options.ts";
+ * interface Opts { readonly level?: number; readonly line?: boolean }
+ * const names = optionNames<Opts>({ level: true, line: true });
+ * if (names.join() !== "level,line") throw new Error("names");
+ * ```
+ */
+export function optionNames<T extends object>(
+  every: { readonly [K in keyof Required<T>]: true },
+): readonly string[] {
+  return Object.freeze(Object.keys(every));
+}
+
+/**
  * The known name nearest to `name`: the smallest optimal-string-alignment
  * distance (insertions, deletions, substitutions and swaps of neighbours,
  * ignoring case), when it is at most a third of the name's length (and at
- * least 2); else `null`.
+ * least 2); failing that, the one known name that contains `name` as a word
+ * part (`bins` in `maxBins`); else `null`.
  *
  * @example
  * ```ts
  * import { nearestName } from "./options.ts";
  * if (nearestName("envelop", ["envelope", "line"]) !== "envelope") throw new Error("near");
- * if (nearestName("bins", ["binWidth", "curve"]) !== null) throw new Error("far");
+ * if (nearestName("bins", ["rule", "maxBins"]) !== "maxBins") throw new Error("part");
+ * if (nearestName("colour", ["rule", "maxBins"]) !== null) throw new Error("far");
  * ```
  */
 export function nearestName(name: string, known: readonly string[]): string | null {
@@ -92,7 +115,9 @@ export function nearestName(name: string, known: readonly string[]): string | nu
       bestDistance = d;
     }
   }
-  return bestDistance <= Math.max(2, Math.floor(name.length / 3)) ? best : null;
+  if (bestDistance <= Math.max(2, Math.floor(name.length / 3))) return best;
+  const containing = a.length >= 3 ? known.filter((k) => k.toLowerCase().includes(a)) : [];
+  return containing.length === 1 ? containing[0] : null;
 }
 
 /** Optimal string alignment distance (restricted Damerau–Levenshtein). */

@@ -26,6 +26,7 @@
  *
  * @module
  */
+import { checkOptions, optionNames } from "../results/options.ts";
 import { ldexp, rescaleExponent } from "../numeric/ldexp.ts";
 import { selectRanks } from "../numeric/select.ts";
 import { checkNotConstant, checkSize, checkSpreadFinite, finiteCopy } from "./_input.ts";
@@ -72,6 +73,16 @@ export interface HistogramOptions {
    */
   readonly curvePoints?: number;
 }
+
+/** Every option name of {@linkcode HistogramOptions}, for the check of an options object. */
+export const HISTOGRAM_OPTION_NAMES: readonly string[] = optionNames<HistogramOptions>({
+  rule: true,
+  width: true,
+  bins: true,
+  step: true,
+  maxBins: true,
+  curvePoints: true,
+});
 
 /** A histogram and its fitted normal curve, as frozen plain data. */
 export interface HistogramData {
@@ -139,7 +150,11 @@ function _iqrBySelection(data: Float64Array): number {
  * }
  * ```
  */
-export function histogramData(x: ArrayLike<number>, options: HistogramOptions = {}): HistogramData {
+export function histogramData(
+  x: ArrayLike<number>,
+  options: HistogramOptions | null = {},
+): HistogramData {
+  options = checkOptions(options, HISTOGRAM_OPTION_NAMES, "histogramData");
   const what = "a histogram";
   checkSize(x.length, 2, Infinity, what);
   const data = finiteCopy(x, what);

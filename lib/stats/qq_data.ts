@@ -18,6 +18,7 @@
  * @module
  */
 import { PlumbError } from "../errors.ts";
+import { checkOptions, optionNames } from "../results/options.ts";
 import { type Selected, selectFromSorted, selectRanks } from "../numeric/select.ts";
 import { thinRanks } from "../numeric/thin_ranks.ts";
 import { checkNotConstant, checkSize, checkSpreadFinite, finiteCopy } from "./_input.ts";
@@ -60,6 +61,16 @@ export interface QqOptions {
    */
   readonly rows?: ArrayLike<number>;
 }
+
+/** Every option name of {@linkcode QqOptions}, for the check of an options object. */
+export const QQ_OPTION_NAMES: readonly string[] = optionNames<QqOptions>({
+  level: true,
+  envelope: true,
+  offset: true,
+  maxPoints: true,
+  tailPoints: true,
+  rows: true,
+});
 
 /** The QQ plot of one sample, as frozen plain data; arrays are aligned by point. */
 export interface QqData {
@@ -148,7 +159,8 @@ function _positiveInt(v: number, name: string, min: number): number {
  * if (!(q.lower[3] < q.value[3] && q.value[3] < q.upper[3])) throw new Error("envelope");
  * ```
  */
-export function qqData(x: ArrayLike<number>, options: QqOptions = {}): QqData {
+export function qqData(x: ArrayLike<number>, options: QqOptions | null = {}): QqData {
+  options = checkOptions(options, QQ_OPTION_NAMES, "qqData");
   const what = "a QQ plot";
   checkSize(x.length, 3, Infinity, what);
   const data = finiteCopy(x, what);
