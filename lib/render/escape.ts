@@ -90,3 +90,22 @@ export function escapeMarkdown(s: string): string {
     .replace(/^(\s*)([#+\-])/, "$1\\$2")
     .replace(/^(\s*\d+)([.)])(?=\s|$)/, "$1\\$2");
 }
+
+/**
+ * A tooltip title as Vega-Lite needs it: it writes tooltip titles into an
+ * expression string, escaping quotes but nothing else, so a name ending in
+ * `\` or holding a line end (`\n`, `\r`, U+2028, U+2029: a wrapped
+ * spreadsheet header) broke the expression. Escaped, they read back as the
+ * characters they stand for.
+ */
+export function _tooltipTitle(title: string): string {
+  return title.replace(/[\\\n\r\u2028\u2029]/g, (c) => _EXPRESSION_ESCAPES[c]);
+}
+
+const _EXPRESSION_ESCAPES: Readonly<Record<string, string>> = {
+  "\\": "\\\\",
+  "\n": "\\n",
+  "\r": "\\r",
+  "\u2028": "\\u2028",
+  "\u2029": "\\u2029",
+};

@@ -13,6 +13,7 @@ import type { HistogramData } from "../stats/histogram_data.ts";
 import { formatCentre, formatCount, formatNumber, roundSig } from "../results/format.ts";
 import { VEGALITE_SCHEMA } from "./qq_spec.ts";
 import { CHART_CONFIG, PALETTE, PANEL } from "./theme.ts";
+import { _valueUnits } from "./value_units.ts";
 
 /** Options for {@linkcode histogramSpec}. */
 export interface HistogramSpecOptions {
@@ -63,13 +64,24 @@ export function _histogramDescription(h: HistogramData, name: string): string {
  */
 export function histogramSpec(h: HistogramData, options: HistogramSpecOptions = {}): TopLevelSpec {
   const name = options.name ?? "value";
+  // Plotted in display units (see value_units.ts); text in the data's units.
+  const u = _valueUnits(Math.max(Math.abs(h.edges[0]), Math.abs(h.edges[h.edges.length - 1])));
   const bins = h.counts.map((c, j) => ({
-    a: roundSig(h.edges[j], 8),
-    b: roundSig(h.edges[j + 1], 8),
+    a: roundSig(u.of(h.edges[j]), 8),
+    b: roundSig(u.of(h.edges[j + 1]), 8),
     c,
   }));
-  const curve = h.curveX.map((x, j) => ({ x: roundSig(x, 6), y: roundSig(h.curveY[j], 5) }));
-  const x = { field: "a", type: "quantitative", title: name, scale: { zero: false, nice: false } };
+  const curve = h.curveX.map((x, j) => ({
+    x: roundSig(u.of(x), 6),
+    y: roundSig(h.curveY[j], 5),
+  }));
+  const valueTitle = u.title(name);
+  const x = {
+    field: "a",
+    type: "quantitative",
+    title: valueTitle,
+    scale: { zero: false, nice: false },
+  };
   return {
     $schema: VEGALITE_SCHEMA,
     description: _histogramDescription(h, name),
@@ -103,8 +115,8 @@ export function histogramSpec(h: HistogramData, options: HistogramSpecOptions = 
           y: { field: "c", type: "quantitative", title: "count" },
           y2: { datum: 0 },
           tooltip: [
-            { field: "a", type: "quantitative", title: "from", format: ".6~g" },
-            { field: "b", type: "quantitative", title: "to", format: ".6~g" },
+            { field: "a", type: "quantitative", title: u.title("from"), format: ".6~g" },
+            { field: "b", type: "quantitative", title: u.title("to"), format: ".6~g" },
             { field: "c", type: "quantitative", title: "count" },
           ],
         },
@@ -113,7 +125,7 @@ export function histogramSpec(h: HistogramData, options: HistogramSpecOptions = 
         data: { values: curve },
         mark: { type: "line", color: PALETTE.line, strokeWidth: 2, tooltip: false, aria: false },
         encoding: {
-          x: { field: "x", type: "quantitative", title: name },
+          x: { field: "x", type: "quantitative", title: valueTitle },
           y: { field: "y", type: "quantitative", title: "count" },
         },
       },

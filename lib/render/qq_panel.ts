@@ -7,6 +7,7 @@
 import { thinRanks } from "../numeric/thin_ranks.ts";
 import type { QqData } from "../stats/qq_data.ts";
 import { _qqLayers, _qqRecords } from "./qq_spec.ts";
+import { _qqInUnits } from "./value_units.ts";
 
 /**
  * Indices into a QQ data's arrays that keep at most `max` points: both ends
@@ -29,13 +30,15 @@ export interface _PanelOptions {
 
 /** One QQ panel (own data, own title) for concatenated charts. */
 // deno-lint-ignore no-explicit-any
-export function _qqPanel(q: QqData, o: _PanelOptions): any {
+export function _qqPanel(given: QqData, o: _PanelOptions): any {
+  // Plotted in display units (see value_units.ts).
+  const { q, units } = _qqInUnits(given);
   const pick = _pickIndices(q.shown, o.maxPoints);
   return {
     title: { text: o.title, subtitle: o.subtitle },
     width: o.width,
     height: o.height,
     data: { values: _qqRecords(q, false, pick) },
-    layer: _qqLayers(q, o.name, false, o.name),
+    layer: _qqLayers(q, units.title(o.name), false, units.title(o.name)),
   };
 }

@@ -9,15 +9,17 @@
  *
  * Data reach the spec under fixed field names (`z`, `v`, `lo`, `hi`, `rk`,
  * `row`, `out`); the variable's own name appears only in titles and
- * tooltip labels, which Vega treats as text (tooltip titles with backslashes doubled, see
- * `_tooltipTitle`), so any characters are safe.
+ * tooltip labels, which Vega treats as text (tooltip titles escaped by `_tooltipTitle`,
+ * see `escape.ts`), so any characters are safe.
  *
  * @module
  */
 import type { TopLevelSpec } from "../_deps/vega_lite.ts";
 import type { QqData } from "../stats/qq_data.ts";
 import { formatCentre, formatCount, formatNumber, roundSig } from "../results/format.ts";
+import { _tooltipTitle } from "./escape.ts";
 import { CHART_CONFIG, PALETTE, PANEL } from "./theme.ts";
+import { _qqInUnits } from "./value_units.ts";
 
 /** Vega-Lite 5 schema URL. */
 export const VEGALITE_SCHEMA = "https://vega.github.io/schema/vega-lite/v5.json";
@@ -171,15 +173,6 @@ export function _qqLayers(
   ];
 }
 
-/**
- * A tooltip title as Vega-Lite needs it: it writes tooltip titles into an
- * expression string, escaping quotes but not backslashes, so a name ending
- * in `\` broke the expression. Doubled backslashes read back as single ones.
- */
-export function _tooltipTitle(title: string): string {
-  return title.replace(/\\/g, "\\\\");
-}
-
 /** The subtitle lines shared by both QQ forms. */
 export function _qqSubtitle(q: QqData, detrended: boolean, slope?: number): string[] {
   const shown = q.shown === q.n
@@ -232,7 +225,9 @@ export function _qqDescription(
 
 function _spec(q: QqData, options: QqSpecOptions, detrended: boolean): TopLevelSpec {
   const name = options.name ?? "value";
-  const valueTitle = detrended ? `${name} − line` : name;
+  // Text in the data's units; the plotted values in display units.
+  const { q: shown, units } = _qqInUnits(q);
+  const valueTitle = units.title(detrended ? `${name} − line` : name);
   return {
     $schema: VEGALITE_SCHEMA,
     description: _qqDescription(q, name, detrended, options.slope),
@@ -240,8 +235,14 @@ function _spec(q: QqData, options: QqSpecOptions, detrended: boolean): TopLevelS
     config: CHART_CONFIG,
     width: options.width ?? PANEL.width,
     height: options.height ?? PANEL.height,
-    data: { values: _qqRecords(q, detrended) },
-    layer: _qqLayers(q, name, detrended, valueTitle, options.slope),
+    data: { values: _qqRecords(shown, detrended) },
+    layer: _qqLayers(
+      shown,
+      units.title(name),
+      detrended,
+      valueTitle,
+      options.slope === undefined ? undefined : units.of(options.slope),
+    ),
   } as TopLevelSpec;
 }
 

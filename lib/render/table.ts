@@ -117,7 +117,7 @@ export function tableText(t: TableModel): string {
     const gap = " ".repeat(widths[i] - [...s].length);
     return t.columns[i].align === "right" ? gap + s : s + gap;
   };
-  const fmt = (r: string[]) => r.map(pad).join("  ").replace(/\s+$/, "");
+  const fmt = (r: string[]) => r.map(pad).join("  ").trimEnd();
   const out: string[] = [];
   if (t.caption) out.push(plainText(t.caption));
   out.push(fmt(rows[0]), widths.map((w) => "-".repeat(w)).join("  "));
