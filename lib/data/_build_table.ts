@@ -103,6 +103,8 @@ export function _buildTable(columns: readonly _RawColumn[], meta: _TableMeta): T
     numeric: (name: string, options?: NumericColumnOptions) => numericColumn(table, name, options),
     numericCells: (name: string) => numericCells(table, name),
     text: (name: string) => textColumn(table, name),
+    // Every column of a table reads the same rows, so the first knows their lines.
+    lineOf: (row: number) => (columns.length === 0 ? null : columns[0].lineOf(row)),
     toJSON: () => summary,
     // Shown by notebook front ends: the columns with their counts and first text cells.
     [DISPLAY]: () => tableSummaryBundle(summary),

@@ -251,6 +251,11 @@ export interface Table extends TableSummary {
   numericCells(name: string): NumericCells;
   /** Every cell of a column as text with a missing mask, aligned with rows. */
   text(name: string): TextColumn;
+  /**
+   * The 1-based line of the source (CSV line, worksheet row) where a 0-based
+   * data row starts, or `null` for sources without lines (in-memory data).
+   */
+  lineOf(row: number): number | null;
   /** The table's description (source, rows, columns with provenance) as plain data. */
   toJSON(): TableSummary;
 }

@@ -207,6 +207,45 @@ export function refuseTooFew(label: string, n: number, missing: number, text: nu
 }
 
 /**
+ * Refuse values that are all equal, naming what is screened, how many values
+ * there are and the value (the statistics' own message would name the first
+ * summary that needs a spread, not the column).
+ *
+ * @param label what is screened
+ * @param values the values left
+ * @throws {PlumbError} `"constant"` when every value is the same
+ */
+export function refuseConstant(label: string, values: Float64Array): void {
+  const first = values[0];
+  for (let i = 1; i < values.length; i++) if (values[i] !== first) return;
+  throw new PlumbError(
+    "constant",
+    `Cannot screen ${label}: all ${values.length} values are ${first}, and values with no ` +
+      `spread have no shape to test; check the column, its units or the rows chosen`,
+    { value: first, n: values.length },
+  );
+}
+
+/**
+ * Refuse values too few or all equal to screen (see {@linkcode refuseTooFew}
+ * and {@linkcode refuseConstant}).
+ *
+ * @param label what is screened
+ * @param values the values left
+ * @param missing missing cells left out
+ * @param text non-numeric cells left out
+ */
+export function checkScreenable(
+  label: string,
+  values: Float64Array,
+  missing: number,
+  text: number,
+): void {
+  if (values.length < ANALYSE_MIN_N) refuseTooFew(label, values.length, missing, text);
+  refuseConstant(label, values);
+}
+
+/**
  * The card of an analysis: its QQ plot and histogram rendered, then the
  * card's bundle (`lib/render/card.ts`).
  *

@@ -14,6 +14,7 @@ import type { Reexpression } from "../reexpress/reexpression.ts";
 import type { QqOptions } from "../stats/qq_data.ts";
 import { type Adjustment, adjustPValues, checkAdjustment } from "../stats/multiplicity.ts";
 import { refuseCensored } from "./_censored_guard.ts";
+import { _applyStep } from "./_apply_step.ts";
 import { analyse, ANALYSE_MIN_N } from "./analysis.ts";
 import { type Step, stepLabel } from "./steps.ts";
 
@@ -195,7 +196,12 @@ export function screenGroups(state: GroupState): GroupResult {
   for (const { group: key, values, rows: idx, missingDropped, textDropped } of split.groups) {
     const counts = { missingDropped, textDropped };
     let v: Float64Array = values;
-    for (const s of steps) v = s.apply(v);
+    const at = {
+      column,
+      rowLabel: (p: number) => idx[p] + 1,
+      lineOf: (r: number) => state.table.lineOf(r),
+    };
+    for (const s of steps) v = _applyStep(s, v, at);
     if (v.length >= 2) {
       const { mean } = _meanSd(v);
       for (const t of v) residuals.push(t - mean);

@@ -23,7 +23,7 @@ import { stakes, type StakesOptions } from "../stakes/stakes.ts";
 import { histogramData, type HistogramOptions } from "../stats/histogram_data.ts";
 import { qqData, type QqOptions } from "../stats/qq_data.ts";
 import { allRowLabels, loadColumn, type Loaded, loadResiduals } from "./_loaded.ts";
-import { analyse, ANALYSE_MIN_N, cardOf, refuseTooFew, withEnvelope } from "./analysis.ts";
+import { analyse, cardOf, checkScreenable, withEnvelope } from "./analysis.ts";
 import type { GroupOptions } from "./group_screen.ts";
 import { PlumbGroups } from "./groups.ts";
 import { lambdaExplorer } from "./lambda_view.ts";
@@ -32,6 +32,7 @@ import * as fitting from "./residual_link.ts";
 import type { LinearModelFit } from "../stats/linear_model.ts";
 import { type Sentence, sentenceOf, type SentenceOptions, writeSentence } from "./sentence.ts";
 import * as checked from "./_chain_options.ts";
+import { _applyStep } from "./_apply_step.ts";
 import type { PlumbOptions } from "./_chain_options.ts";
 import { pickColumn, type PlumbSource, singleColumn, toTable } from "./source.ts";
 import { checkRequest, type ReexpressRequest, resolveStep, type Step } from "./steps.ts";
@@ -169,7 +170,9 @@ export class Plumb implements Displayable {
     } else {
       const from = this.#parent.#load();
       const step = this.#resolved();
-      this.#loaded = step === null ? from : { ...from, values: step.apply(from.values) };
+      const { table, column } = this.#root;
+      const at = { column, rowLabel: from.rowLabel, lineOf: (r: number) => table.lineOf(r) };
+      this.#loaded = step === null ? from : { ...from, values: _applyStep(step, from.values, at) };
     }
     return this.#loaded;
   }
@@ -188,7 +191,7 @@ export class Plumb implements Displayable {
   analysis(): Analysis {
     if (this.#analysis) return this.#analysis;
     const { values, rowLabel, missing, text } = this.#load();
-    if (values.length < ANALYSE_MIN_N) refuseTooFew(this.label, values.length, missing, text);
+    checkScreenable(this.label, values, missing, text);
     const model = this.#model ? this.#fitted() : undefined;
     this.#analysis = analyse(values, {
       label: this.label,

@@ -5,6 +5,7 @@
  *
  * @module
  */
+import { PlumbError } from "../errors.ts";
 import { backTransformMean } from "../reexpress/back_transform.ts";
 import { applyReexpression } from "../reexpress/reexpression.ts";
 import type { ReexpressionRanking, ReexpressionSearch } from "../reexpress/candidates.ts";
@@ -126,16 +127,28 @@ export function candidatesView(
       const x = values();
       const top = s.candidates.slice(0, 6);
       const spec = comparisonSpec(
-        top.map((c) => {
+        top.flatMap((c) => {
           const sw = c.tests.find((t) => t.test === "Shapiro–Wilk")?.result;
-          return {
+          // The search ranks on rescaled values; on the data's own scale a strong
+          // power can collapse values that differ by a few parts in 1e16 to one
+          // double (Box–Cox of values near 1e−300): no panel for that candidate.
+          let qq;
+          try {
+            qq = qqData(applyReexpression(x, c.reexpression));
+          } catch (e) {
+            if (
+              e instanceof PlumbError && (e.code === "constant" || e.code === "non-finite")
+            ) return [];
+            throw e;
+          }
+          return [{
             // In x: the chart's title names the variable, and short panel titles keep the grid aligned.
             label: stepOf(c.reexpression).formula,
-            qq: qqData(applyReexpression(x, c.reexpression)),
+            qq,
             W: sw?.statistic ?? 1 - c.departure,
             p: sw?.pValue ?? NaN,
             note: c.rank === 1 ? "chosen" : undefined,
-          };
+          }];
         }),
         { name: name() },
       );

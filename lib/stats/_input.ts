@@ -100,15 +100,16 @@ export function checkSize(n: number, min: number, max: number, what: string): vo
 /**
  * Throw `PlumbError("constant")` when the sorted sample has zero range.
  *
- * @param sorted the sample in ascending order
+ * @param sorted the sample in ascending order (or only its two ends)
+ * @param n the sample's size, when `sorted` holds only its ends
  */
-export function checkNotConstant(sorted: Float64Array, what: string): void {
+export function checkNotConstant(sorted: Float64Array, what: string, n = sorted.length): void {
   if (sorted.length > 0 && sorted[0] === sorted[sorted.length - 1]) {
     throw new PlumbError(
       "constant",
-      `Cannot run ${what} on ${sorted.length} identical values (all ${sorted[0]}): ` +
+      `Cannot run ${what} on ${n} identical values (all ${sorted[0]}): ` +
         `a sample with no spread has no shape to test; check the column or its units`,
-      { value: sorted[0] },
+      { value: sorted[0], n },
     );
   }
 }

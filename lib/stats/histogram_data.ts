@@ -165,7 +165,7 @@ export function histogramData(
     if (data[i] < min) min = data[i];
     if (data[i] > max) max = data[i];
   }
-  checkNotConstant(Float64Array.of(min, max), what);
+  checkNotConstant(Float64Array.of(min, max), what, n);
   checkBinRequest(options);
   const step = options.step !== undefined
     ? options.step
@@ -216,7 +216,7 @@ export function _histogramDataSorted(
   const n = sorted.length;
   const min = sorted[0];
   const max = sorted[n - 1];
-  checkNotConstant(Float64Array.of(min, max), what);
+  checkNotConstant(Float64Array.of(min, max), what, n);
   checkBinRequest(options);
   const step = options.step !== undefined ? options.step : _measurementStepSorted(sorted).step;
   if (rescaleExponent(Math.max(-min, max)) !== 0) {

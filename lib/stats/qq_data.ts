@@ -121,7 +121,7 @@ function _moments(x: Float64Array): { mean: number; sd: number; min: number; max
     if (v < min) min = v;
     if (v > max) max = v;
   }
-  checkNotConstant(Float64Array.of(min, max), "a QQ plot");
+  checkNotConstant(Float64Array.of(min, max), "a QQ plot", n);
   // The moments' own summary rescales extreme magnitudes, so that the sum
   // and the squares neither overflow (values near ±1e308) nor underflow
   // (subnormal values).
@@ -165,7 +165,7 @@ export function qqData(x: ArrayLike<number>, options: QqOptions | null = {}): Qq
   checkSize(x.length, 3, Infinity, what);
   const data = finiteCopy(x, what);
   const { mean, sd, min, max } = _moments(data);
-  checkNotConstant(Float64Array.of(min, max), what);
+  checkNotConstant(Float64Array.of(min, max), what, data.length);
   return _qqBuild(data.length, mean, sd, options, (ranks) => selectRanks(data, ranks));
 }
 
