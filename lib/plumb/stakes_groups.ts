@@ -70,8 +70,26 @@ export interface GroupStakesView extends Displayable {
   save(path: string): Promise<SavedFile>;
 }
 
-/** The most groups drawn; the table and exports hold them all. */
-export const STAKES_GROUPS_DRAWN = 12;
+/** The most groups drawn, each with its paragraph, in the display; the exports hold them all. */
+export const STAKES_GROUPS_DRAWN = 8;
+/** The most groups in the displayed table; `table()` and the exports hold them all. */
+export const STAKES_GROUPS_SHOWN = 40;
+
+const _SCORE = { matters: 3, unclear: 2, negligible: 1 } as const;
+
+/**
+ * The groups a display shows when there are more than `max`: those where the
+ * difference matters first, then unclear, then negligible, then those not
+ * computed (ties: the earlier group); kept in their natural order.
+ */
+function _pick(groups: readonly GroupStakesRow[], max: number): GroupStakesRow[] {
+  if (groups.length <= max) return [...groups];
+  const score = (g: GroupStakesRow) => (g.stakes ? _SCORE[g.stakes.judgement.overall] : 0);
+  const order = groups.map((_, i) => i).sort((a, b) =>
+    score(groups[b]) - score(groups[a]) || a - b
+  );
+  return order.slice(0, max).sort((a, b) => a - b).map((i) => groups[i]);
+}
 
 function _compute(state: GroupState, options: StakesOptions): GroupStakes {
   const split = splitGroups(state);
@@ -106,20 +124,16 @@ const _pair = (p: readonly [number | null, number | null]) => _span(p[0], p[1]);
 const _span = (a: number | null, b: number | null) =>
   `${a === null ? "open" : stakesNumber(a)} to ${b === null ? "open" : stakesNumber(b)}`;
 
-function _table(r: GroupStakes, limits: boolean): TableModel {
-  const rows = r.groups.map((g) => {
+function _table(
+  r: GroupStakes,
+  limits: boolean,
+  groups: readonly GroupStakesRow[] = r.groups,
+): TableModel {
+  const rows = groups.map((g) => {
     const s = g.stakes;
     if (s === undefined) {
-      return [
-        g.group,
-        String(g.n),
-        `not computed: ${g.skipped}`,
-        "",
-        "",
-        ...(limits ? ["", ""] : []),
-        "",
-        "",
-      ];
+      const blank = Array.from({ length: limits ? 6 : 4 }, () => "");
+      return [g.group, String(g.n), `not computed: ${g.skipped}`, ...blank];
     }
     const re = s.range.reexpressed === null
       ? "none"
@@ -151,6 +165,14 @@ function _table(r: GroupStakes, limits: boolean): TableModel {
   if (r.missingDropped > 0) notes.push(`${count(r.missingDropped, "missing cell")} left out.`);
   if (r.textDropped > 0) {
     notes.push(`${count(r.textDropped, "non-numeric cell")} left out on request.`);
+  }
+  if (groups.length < r.groups.length) {
+    const left = r.groups.length - groups.length;
+    notes.unshift(
+      `${groups.length} of ${r.groups.length} groups shown, those where the difference matters ` +
+        `first; ${count(left, "group")} left out here. Every group is in table(), toCSV(), ` +
+        'toJSON() and save("….csv").',
+    );
   }
   notes.push(`${STAKES_CAUTION}.`);
   return {
@@ -191,34 +213,32 @@ export function groupStakesView(state: GroupState, options: StakesOptions): Grou
   const limits = options.lower !== undefined || options.upper !== undefined;
   const get = () => (result ??= _compute(state, options));
   const table = () => (model ??= _table(get(), limits));
-  const drawn = () =>
-    get().groups.filter((g) => g.stakes).slice(0, STAKES_GROUPS_DRAWN) as {
-      group: string;
-      stakes: Stakes;
-    }[];
+  type Drawn = GroupStakesRow & { readonly stakes: Stakes };
+  const drawn = () => _pick(get().groups.filter((g) => g.stakes), STAKES_GROUPS_DRAWN) as Drawn[];
   const getSpec =
     () => (spec ??= stakesGroupsSpec(drawn(), { name: state.column, by: state.groupBy }));
   const title = () => `What the departure changes for ${state.column}, by ${state.groupBy}`;
-  const paragraphs = () => {
-    const r = get();
-    const texts = r.groups.flatMap((g) =>
-      g.stakes ? [stakesSentence(g.stakes, `${r.groupBy} = ${g.group}`, { caution: false })] : []
+  const written = (groups: readonly GroupStakesRow[]) =>
+    groups.flatMap((g) =>
+      g.stakes
+        ? [stakesSentence(g.stakes, `${state.groupBy} = ${g.group}`, { caution: false })]
+        : []
     );
-    return Object.freeze([...texts, `${STAKES_CAUTION}.`]);
-  };
+  const paragraphs = () => Object.freeze([...written(get().groups), `${STAKES_CAUTION}.`]);
   const leftOut = () => {
-    const shown = get().groups.filter((g) => g.stakes).length;
-    return shown > STAKES_GROUPS_DRAWN
+    const computed = get().groups.filter((g) => g.stakes).length;
+    return computed > STAKES_GROUPS_DRAWN
       ? [
-        `The chart shows the first ${STAKES_GROUPS_DRAWN} of ${shown} groups; the table, ` +
-        "toCSV() and toJSON() hold them all.",
+        `The chart and the paragraphs below cover ${STAKES_GROUPS_DRAWN} of ${computed} groups, ` +
+        "those where the difference matters first; paragraphs() holds every group's.",
       ]
       : [];
   };
   const show = () =>
     bundle ??= (async () => {
-      const t = table();
-      const texts = [...leftOut(), ...paragraphs()];
+      const r = get();
+      const t = _table(r, limits, _pick(r.groups, STAKES_GROUPS_SHOWN));
+      const texts = [...leftOut(), ...written(drawn()), `${STAKES_CAUTION}.`];
       const chart = drawn().length > 0 ? await chartBundle(getSpec()) : undefined;
       return Object.freeze({
         "text/html":

@@ -91,3 +91,33 @@ Deno.test("stakes by group: table, paragraphs with the caution once, CSV, displa
     await Deno.remove(dir, { recursive: true });
   }
 });
+
+Deno.test("stakes by group: many groups stay within 300 KB, saying what is left out", async () => {
+  const r = seededRandom(5);
+  const g: string[] = [];
+  const v: number[] = [];
+  for (let i = 0; i < 300; i++) {
+    // Every tenth group is strongly skewed, so that the difference matters there.
+    const skewed = i % 10 === 3;
+    for (let j = 0; j < 8; j++) {
+      g.push(`G${i}`);
+      v.push(skewed ? Math.exp(2 * r.normal()) : 10 + r.normal());
+    }
+  }
+  const view = plumb({ g, v }, "v").by("g").stakes({ reexpression: "none" });
+  const b = await view[DISPLAY]();
+  const bytes = Object.values(b).reduce(
+    (a, t) => a + new TextEncoder().encode(typeof t === "string" ? t : JSON.stringify(t)).length,
+    0,
+  );
+  ok(bytes <= 300_000, `${bytes} bytes`);
+  match(b["text/plain"], /40 of 300 groups shown, those where the difference matters first/);
+  match(b["text/plain"], /cover 8 of 300 groups/);
+  equal(view.table().rows.length, 300, "table() holds every group");
+  equal(view.paragraphs().length, 301);
+  equal(view.toCSV().split("\n").filter((l) => l.startsWith("G299,")).length > 0, true);
+  // The groups shown first are those where the difference matters.
+  const matters = view.result().groups.filter((x) => x.stakes?.judgement.overall === "matters");
+  ok(matters.length > 0 && matters.length <= 40);
+  for (const m of matters) ok(b["text/plain"].includes(`\n${m.group} `), m.group);
+});
