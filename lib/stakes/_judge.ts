@@ -61,7 +61,7 @@ interface _Mean {
   readonly level: number;
   readonly t: readonly [number, number];
   readonly bootstrap: readonly [number | null, number | null];
-  readonly bootstrapDetail: { readonly resamples: number };
+  readonly bootstrapDetail: { readonly resamples: number; readonly acceleration: number };
   readonly tDetail: { readonly tQuantile: number };
 }
 
@@ -156,7 +156,19 @@ function _cap(s: string): string {
   return s.charAt(0).toUpperCase() + s.slice(1);
 }
 
-function _mean(m: _Mean): QuantityJudgement {
+/**
+ * How far the sample skewness g1 strays from 0 in normal samples of size n:
+ * 2.576 standard deviations, with Var(g1) = 6(n − 2)/((n + 1)(n + 3))
+ * (Pearson's exact variance under normality; D'Agostino, Belanger &
+ * D'Agostino 1990, The American Statistician 44:316–321, eq. 2). A shift of
+ * the bootstrap interval driven by skewness inside this band is what normal
+ * samples of this size do about 99% of the time.
+ */
+function _normalSkewBand(n: number): number {
+  return 2.576 * Math.sqrt((6 * (n - 2)) / ((n + 1) * (n + 3)));
+}
+
+function _mean(m: _Mean, n: number): QuantityJudgement {
   const [b0, b1] = m.bootstrap;
   if (b0 === null || b1 === null) {
     return _q("unclear", ["The bootstrap interval could not be formed for these data"]);
@@ -173,6 +185,15 @@ function _mean(m: _Mean): QuantityJudgement {
   const shift = (b0 + b1) / 2 - (m.t[0] + m.t[1]) / 2;
   const bar = Math.max(0.1 * half, 3 * mcse);
   const share = `${_g((Math.abs(shift) / half) * 100)}% of the t interval's half-width`;
+  // The BCa acceleration of the mean is g1/(6√n) (Efron 1987, §4), so g1 comes back from it.
+  const g1 = 6 * Math.sqrt(n) * m.bootstrapDetail.acceleration;
+  if (Math.abs(shift) > bar && Math.abs(g1) <= _normalSkewBand(n)) {
+    return _q("unclear", [
+      `The bootstrap interval is centred ${share} ${shift > 0 ? "above" : "below"} the t ` +
+      `interval's centre, but a skewness of ${_g(g1)} is common in normal samples of ${n} ` +
+      "values: too few values to tell whether the shape moves the mean's uncertainty",
+    ]);
+  }
   if (Math.abs(shift) > bar) {
     const dir = shift > 0 ? "above" : "below";
     return _q("matters", [
@@ -204,7 +225,7 @@ export function _judge(
     range: r,
     outside: outside === null ? null : _outside(outside),
     capability: capability === null ? null : _capability(capability, r),
-    mean: _mean(mean),
+    mean: _mean(mean, n),
   };
   const all = Object.values(parts).filter((p) => p !== null).map((p) => p!.verdict);
   const overall: StakesVerdict = all.includes("matters")
