@@ -159,8 +159,10 @@ function _cap(s: string): string {
 /**
  * How far the sample skewness g1 strays from 0 in normal samples of size n:
  * 2.576 standard deviations, with Var(g1) = 6(n − 2)/((n + 1)(n + 3))
- * (Pearson's exact variance under normality; D'Agostino, Belanger &
- * D'Agostino 1990, The American Statistician 44:316–321, eq. 2). A shift of
+ * (the exact variance under normality behind the skewness test of
+ * D'Agostino, Belanger & D'Agostino 1990, The American Statistician
+ * 44:316–321; cited from memory, and the same formula plumbline's
+ * D'Agostino–Pearson test uses). A shift of
  * the bootstrap interval driven by skewness inside this band is what normal
  * samples of this size do about 99% of the time.
  */
