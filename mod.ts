@@ -78,6 +78,12 @@ export type { SurveyOptions, SurveyResult, SurveyRow } from "./lib/plumb/survey_
 // Results as plain data, and how they display
 export type { Analysis, SampleOrigin, Subsample, TestOutcome } from "./lib/results/analysis.ts";
 export {
+  type Censoring,
+  type CensoringLimit,
+  type CensoringRos,
+  censoringWords,
+} from "./lib/results/censoring.ts";
+export {
   type Reading,
   type ReadingFacts,
   type Verdict,
@@ -196,6 +202,7 @@ export {
   type LimitPosition,
 } from "./lib/stats/censored_positions.ts";
 export { censoredShapiroFrancia, type CensoredTestResult } from "./lib/stats/censored_normality.ts";
+export { type CensoredQqData, censoredQqData } from "./lib/stats/censored_qq.ts";
 export {
   censoredBoxCoxFit,
   type CensoredLambdaFit,

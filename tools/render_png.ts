@@ -20,6 +20,9 @@ import { lambdaExplorerSpec } from "../lib/render/lambda_explorer_spec.ts";
 import { detrendedSpec, qqSpec } from "../lib/render/qq_spec.ts";
 import { histogramData } from "../lib/stats/histogram_data.ts";
 import { qqData } from "../lib/stats/qq_data.ts";
+import { censoredNormalFit } from "../lib/stats/censored_fit.ts";
+import { censoredQqData } from "../lib/stats/censored_qq.ts";
+import { censoredSample } from "../lib/stats/censored_sample.ts";
 import { seededRandom } from "../lib/numeric/random.ts";
 import { Browser } from "./notebooks/_cdp.ts";
 
@@ -48,8 +51,18 @@ function specs(): Record<string, TopLevelSpec> {
   const fills = [0, 1, 2].map((k) =>
     normals(80 + 30 * k, 20 + k).map((z) => 500 + 0.4 * k + (0.6 + 0.2 * k) * z)
   );
+  // Residual chlorine, the lowest reported as "<0.05" or "<0.08" (two lab limits).
+  const chlorine = normals(120, 31).map((z) => 0.12 + 0.05 * z);
+  const limit = chlorine.map((_, i) => (i % 3 === 0 ? 0.08 : 0.05));
+  const cl = censoredSample(
+    chlorine.map((v, i) => Math.max(v, limit[i])),
+    chlorine.map((v, i) => (v < limit[i] ? -1 : 0)),
+  );
+  const clq = censoredQqData(cl, censoredNormalFit(cl));
   return {
     qq: qqSpec(q, { name: "dissolved oxygen (mg/L)" }),
+    qq_censored: qqSpec(clq, { name: "residual chlorine (mg/L)" }),
+    detrended_censored: detrendedSpec(clq, { name: "residual chlorine (mg/L)" }),
     detrended: detrendedSpec(q, { name: "dissolved oxygen (mg/L)" }),
     histogram: histogramSpec(histogramData(oxygen), { name: "dissolved oxygen (mg/L)" }),
     comparison: comparisonSpec([

@@ -6,7 +6,6 @@
  */
 import { _numericColumnShared } from "../data/numeric_column.ts";
 import type { NumericColumn, Table } from "../data/table.ts";
-import { refuseCensored } from "./_censored_guard.ts";
 import { residualsLoaded, type ResidualValues } from "./residual_link.ts";
 
 /** The values a chain analyses, with their rows and what was left out. */
@@ -21,6 +20,8 @@ export interface Loaded {
   readonly missing: number;
   /** Text cells left out on request. */
   readonly text: number;
+  /** Each value's side when any is censored (0 measured, −1 below, 1 above its limit). */
+  readonly censor?: Int8Array;
 }
 
 /**
@@ -33,18 +34,19 @@ export function rowLabelOf(col: NumericColumn, rowCount: number): (position: num
 }
 
 /**
- * A column's values for a chain; throws `"non-numeric"` (unless text is
- * dropped) and `"censored"` as `table.numeric` and the censored guard do.
+ * A column's values for a chain, censored values as their limits with their
+ * sides; throws `"non-numeric"` (unless text is dropped) as `table.numeric`
+ * does.
  */
 export function loadColumn(table: Table, column: string, dropText: boolean): Loaded {
   const col = _numericColumnShared(table, column, { dropText });
-  refuseCensored(col, column);
   return {
     values: col.values,
     rows: () => col.rowIndex, // built on first read, by the column
     rowLabel: rowLabelOf(col, table.rowCount),
     missing: col.provenance.missingDropped,
     text: col.provenance.textDropped,
+    censor: col.censor,
   };
 }
 

@@ -9,13 +9,13 @@ import type { MergedLabel, Table } from "../data/table.ts";
 import { PlumbError } from "../errors.ts";
 import { optionNames } from "../results/options.ts";
 import type { Analysis } from "../results/analysis.ts";
-import { _meanSd } from "../stats/moments.ts";
 import type { Reexpression } from "../reexpress/reexpression.ts";
 import type { QqOptions } from "../stats/qq_data.ts";
 import { type Adjustment, adjustPValues, checkAdjustment } from "../stats/multiplicity.ts";
-import { refuseCensored } from "./_censored_guard.ts";
 import { _applyStep } from "./_apply_step.ts";
-import { analyse, ANALYSE_MIN_N } from "./analysis.ts";
+import { ANALYSE_MIN_N } from "./analysis.ts";
+import { analyseSides } from "./censored_analysis.ts";
+import { groupCentre, stepGroup } from "./_group_values.ts";
 import { type Step, stepLabel } from "./steps.ts";
 
 /** Options for `.by(column)`. */
@@ -117,6 +117,8 @@ export interface GroupSample {
   readonly values: Float64Array;
   /** Their 0-based row indices in the table. */
   readonly rows: readonly number[];
+  /** Each value's censoring side (0 measured, −1 below, 1 above its limit), when any is censored. */
+  readonly censor?: Int8Array;
   /** The group's missing cells, left out. */
   readonly missingDropped: number;
   /** The group's text cells, left out on request. */
@@ -140,15 +142,14 @@ export interface GroupSplit {
 /**
  * Split the variable by the grouping column: the values of each group (in
  * original units), with what was left out. Raises `"non-numeric"` (naming
- * rows) unless text cells are dropped on request, and `"censored"` for
- * censored cells.
+ * rows) unless text cells are dropped on request; a group with censored
+ * values carries their sides in `censor`.
  *
  * @param state the table, the column and its steps, the grouping column and options
  */
 export function splitGroups(state: GroupState): GroupSplit {
   const { table, column, groupBy, options } = state;
   const used = table.numeric(column, { dropText: options.dropText ?? false });
-  refuseCensored(used, stepLabel(column, state.steps()));
   const cells = table.numericCells(column);
   const g = table.text(groupBy);
   // Per group: the rows holding a number, and the cells left out.
@@ -168,12 +169,16 @@ export function splitGroups(state: GroupState): GroupSplit {
   }
   const groups = [...byGroup.keys()].sort(_compare).map((key) => {
     const { rows, missing, text } = byGroup.get(key)!;
+    const sides = cells.censor;
     return Object.freeze({
       group: key,
       values: Float64Array.from(rows, (i) => cells.values[i]),
       rows,
       missingDropped: missing,
       textDropped: text,
+      ...(sides && rows.some((i) => sides[i] !== 0)
+        ? { censor: Int8Array.from(rows, (i) => sides[i]) }
+        : {}),
     });
   });
   return Object.freeze({
@@ -192,19 +197,25 @@ export function screenGroups(state: GroupState): GroupResult {
   const split = splitGroups(state);
   const label = stepLabel(column, steps);
   const residuals: number[] = [];
+  const residualSides: number[] = [];
   const rows: GroupRow[] = [];
-  for (const { group: key, values, rows: idx, missingDropped, textDropped } of split.groups) {
+  for (
+    const { group: key, values, rows: idx, missingDropped, textDropped, censor } of split.groups
+  ) {
     const counts = { missingDropped, textDropped };
-    let v: Float64Array = values;
     const at = {
       column,
       rowLabel: (p: number) => idx[p] + 1,
       lineOf: (r: number) => state.table.lineOf(r),
     };
-    for (const s of steps) v = _applyStep(s, v, at);
-    if (v.length >= 2) {
-      const { mean } = _meanSd(v);
-      for (const t of v) residuals.push(t - mean);
+    const stepped = stepGroup(values, censor ?? null, steps, (s, x) => _applyStep(s, x, at));
+    const { values: v, censor: c } = stepped;
+    const centre = groupCentre(v, c);
+    if (centre !== null) {
+      v.forEach((t, i) => {
+        residuals.push(t - centre);
+        residualSides.push(c ? c[i] : 0);
+      });
     }
     if (v.length < ANALYSE_MIN_N) {
       rows.push({
@@ -218,19 +229,19 @@ export function screenGroups(state: GroupState): GroupResult {
       continue;
     }
     const rowsOf = Int32Array.from(idx, (i) => i + 1);
+    const transform = steps.length ? label : undefined;
     try {
-      const a = analyse(v, {
-        label: `${label} — ${groupBy} = ${key}`,
-        column,
-        group: key,
-        transform: steps.length ? label : undefined,
-        ...counts,
-        rows: rowsOf,
-      }, { qq: options.qq });
+      const origin = { label: `${label} — ${groupBy} = ${key}`, column, group: key, transform };
+      const a = analyseSides(v, c, { ...origin, ...counts, rows: rowsOf }, { qq: options.qq });
       rows.push({ group: key, n: v.length, ...counts, analysis: a });
     } catch (e) {
       if (e instanceof PlumbError && e.code === "constant") {
         rows.push({ group: key, n: v.length, ...counts, skipped: "every value is the same" });
+      } else if (
+        c && e instanceof PlumbError && ["too-few", "overlapping-limits"].includes(e.code)
+      ) {
+        // Too few measured values, or too many censored, for the censored methods.
+        rows.push({ group: key, n: v.length, ...counts, skipped: e.message });
       } else throw e;
     }
   }
@@ -242,16 +253,19 @@ export function screenGroups(state: GroupState): GroupResult {
   );
   let res: Analysis | undefined;
   if (residuals.length >= ANALYSE_MIN_N) {
+    const origin = {
+      label: `${label} residuals within ${groupBy}`,
+      column,
+      transform: steps.length ? label : undefined,
+      missingDropped: split.missingDropped,
+      textDropped: split.textDropped,
+    };
     try {
-      res = analyse(Float64Array.from(residuals), {
-        label: `${label} residuals within ${groupBy}`,
-        column,
-        transform: steps.length ? label : undefined,
-        missingDropped: split.missingDropped,
-        textDropped: split.textDropped,
-      }, { qq: options.qq });
+      const sides = Int8Array.from(residualSides);
+      res = analyseSides(Float64Array.from(residuals), sides, origin, { qq: options.qq });
     } catch (e) {
-      if (!(e instanceof PlumbError && e.code === "constant")) throw e;
+      const known = ["constant", "too-few", "overlapping-limits"];
+      if (!(e instanceof PlumbError && known.includes(e.code))) throw e;
     }
   }
   return Object.freeze({

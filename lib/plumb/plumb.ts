@@ -21,9 +21,10 @@ import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.t
 import type { Reading } from "../results/reading.ts";
 import { stakes, type StakesOptions } from "../stakes/stakes.ts";
 import { histogramData, type HistogramOptions } from "../stats/histogram_data.ts";
-import { qqData, type QqOptions } from "../stats/qq_data.ts";
-import { allRowLabels, loadColumn, type Loaded, loadResiduals } from "./_loaded.ts";
-import { analyse, cardOf, checkScreenable, withEnvelope } from "./analysis.ts";
+import type { QqOptions } from "../stats/qq_data.ts";
+import { loadColumn, type Loaded, loadResiduals } from "./_loaded.ts";
+import { cardOf, checkScreenable, withEnvelope } from "./analysis.ts";
+import * as chain from "./_chain_values.ts";
 import type { GroupOptions } from "./group_screen.ts";
 import { PlumbGroups } from "./groups.ts";
 import { lambdaExplorer } from "./lambda_view.ts";
@@ -135,9 +136,14 @@ export class Plumb implements Displayable {
     });
   }
 
-  /** The values analysed (after any re-expression); a fresh copy. */
+  /** The values analysed (after any re-expression); a fresh copy; a censored value is its limit. */
   values(): Float64Array {
     return this.#load().values.slice();
+  }
+
+  /** Each value's side when any is censored (0 measured, −1 below, 1 above its limit), or `null`. */
+  censor(): Int8Array | null {
+    return this.#load().censor?.slice() ?? null;
   }
 
   #resolved(): Step | null {
@@ -163,23 +169,29 @@ export class Plumb implements Displayable {
   #load(): Loaded {
     if (this.#loaded) return this.#loaded;
     if (this.#model) {
+      this.#parent!.#measured(chain.REFUSALS.model);
       this.#loaded = loadResiduals(this.#parent!.#load(), this.#fitted());
     } else if (this.#parent === undefined) {
       const { table, column, options } = this.#root;
       this.#loaded = loadColumn(table, column, options.dropText ?? false);
     } else {
       const from = this.#parent.#load();
-      const step = this.#resolved();
       const { table, column } = this.#root;
       const at = { column, rowLabel: from.rowLabel, lineOf: (r: number) => table.lineOf(r) };
-      this.#loaded = step === null ? from : { ...from, values: _applyStep(step, from.values, at) };
+      const apply = (s: Step, x: Float64Array) => _applyStep(s, x, at);
+      this.#loaded = chain.stepValues(from, this.#resolved(), apply);
     }
     return this.#loaded;
   }
 
   /** The candidates ranked (cheap: one sort, one pass each); enough for a choice. */
   #ranked(): ReexpressionRanking {
-    return (this.#ranking ??= rankReexpressions(this.#load().values));
+    return (this.#ranking ??= rankReexpressions(this.#measured(chain.REFUSALS.search)));
+  }
+
+  /** The values, for a step that needs every one measured (refused when any is censored). */
+  #measured(refusal: chain.CensoredRefusal): Float64Array {
+    return chain.refuseCensored(this.#load(), this.label, this.#root.column, refusal);
   }
 
   /** The ranked candidates re-tested, for the candidates panel. */
@@ -190,20 +202,18 @@ export class Plumb implements Displayable {
   /** The full analysis as plain data (computed once). */
   analysis(): Analysis {
     if (this.#analysis) return this.#analysis;
-    const { values, rowLabel, missing, text } = this.#load();
+    const loaded = this.#load();
+    const { values, missing, text } = loaded;
     checkScreenable(this.label, values, missing, text);
     const model = this.#model ? this.#fitted() : undefined;
-    this.#analysis = analyse(values, {
+    this.#analysis = chain.analyseValues(loaded, {
       label: this.label,
       column: this.#root.column,
       transform: this.steps.length ? stepLabel(this.#root.column, this.steps) : undefined,
-      missingDropped: missing,
-      textDropped: text,
       notes: model?.notes,
     }, {
       qq: this.#root.options.qq,
       envelope: model && this.#envelope(this.#root.options.qq?.level),
-      rowLabel,
     });
     return this.#analysis;
   }
@@ -296,13 +306,13 @@ export class Plumb implements Displayable {
   ): Chart {
     const own = Object.keys(options).length === 0;
     if (own && this.#charts[kind]) return this.#charts[kind]!;
-    const spec = (q: Analysis["qq"]) =>
-      draw(q, { name: this.label, slope: this.analysis().reading.facts.sigma.slope });
+    const slope =
+      () => (this.#load().censor ? undefined : this.analysis().reading.facts.sigma.slope);
+    const spec = (q: Analysis["qq"]) => draw(q, { name: this.label, slope: slope() });
     const c = chart(() => {
       if (own) return spec(this.analysis().qq);
-      const loaded = this.#load();
-      const merged = { ...this.#root.options.qq, ...options, rows: allRowLabels(loaded) };
-      const q = qqData(loaded.values, merged); // a residual chain keeps its simulated envelope
+      const merged = { ...this.#root.options.qq, ...options };
+      const q = chain.qqOfValues(this.#load(), merged, this.label); // a residual chain keeps its simulated envelope
       return spec(this.#model ? withEnvelope(q, this.#envelope(merged.level)(q.rank)) : q);
     });
     if (own) this.#charts[kind] = c;
@@ -316,7 +326,9 @@ export class Plumb implements Displayable {
     if (own && this.#charts.histogram) return this.#charts.histogram;
     const c = chart(() =>
       histogramSpec(
-        own ? this.analysis().histogram : histogramData(this.#load().values, options),
+        own
+          ? this.analysis().histogram
+          : histogramData(chain.measuredValues(this.#load()), options),
         { name: this.label },
       )
     );
@@ -331,7 +343,8 @@ export class Plumb implements Displayable {
 
   /** The λ explorer for Box–Cox (or Yeo–Johnson when values are not all positive). */
   lambda(): Chart {
-    return (this.#lambda ??= lambdaExplorer(() => this.#load().values, () => this.label));
+    const values = () => this.#measured(chain.REFUSALS.lambda);
+    return (this.#lambda ??= lambdaExplorer(values, () => this.label));
   }
 
   /** The write-up paragraph. */
@@ -357,8 +370,10 @@ export class Plumb implements Displayable {
     const own = Object.keys(opts).length === 0;
     if (own && this.#stakes) return this.#stakes;
     const view = stakesView(
-      () =>
-        stakes(this.#origin().#load().values, { ...opts, reexpression: this.#stakesModel(opts) }),
+      () => {
+        const values = this.#origin().#measured(chain.REFUSALS.stakes);
+        return stakes(values, { ...opts, reexpression: this.#stakesModel(opts) });
+      },
       () => this.#root.column,
     );
     if (own) this.#stakes = view;

@@ -10,6 +10,7 @@ import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.t
 import type { Analysis } from "../results/analysis.ts";
 import { optionNames } from "../results/options.ts";
 import { VERDICT_WORDS } from "../results/reading.ts";
+import { censoringWords } from "../results/censoring.ts";
 
 /**
  * A p-value for prose: `p < 0.001` below 0.001, otherwise three decimals.
@@ -151,7 +152,21 @@ export function writeSentence(a: Analysis, options: SentenceOptions = {}): strin
       dropped.length ? ` (${dropped.join(" and ")} left out)` : ""
     }.`,
   );
-  let test = `Shapiro–Wilk W = ${formatNumber(primary.statistic, 4)}, ${proseP(primary.pValue)}`;
+  const c = a.censoring;
+  if (c) {
+    const words = censoringWords(c, n);
+    parts.push(
+      `${words[0].toUpperCase()}${words.slice(1)}: mean ${formatNumber(c.mean, 4)} (standard ` +
+        `error ${formatNumber(c.seMean, 3)}) and sd ${formatNumber(c.sd, 4)} by maximum ` +
+        `likelihood under censoring (regression on order statistics: ${
+          formatNumber(c.ros.mean, 4)
+        } and ${formatNumber(c.ros.sd, 4)}); skewness and kurtosis include the censored values ` +
+        `through that regression.`,
+    );
+  }
+  let test = `${primary.test} ${primary.statisticName} = ${formatNumber(primary.statistic, 4)}, ${
+    proseP(primary.pValue)
+  }`;
   if (options.adjusted) {
     const adj = options.adjusted;
     test += ` (${proseP(adj.p).replace("p", `${adj.method}-adjusted p`)} over ${adj.family} tests)`;
@@ -168,9 +183,15 @@ export function writeSentence(a: Analysis, options: SentenceOptions = {}): strin
   for (const note of origin.notes ?? []) parts.push(`${note}.`);
   if (a.subsample) {
     parts.push(
-      `W and p come from a seeded random subsample of ${formatCount(a.subsample.size)} of the ${
-        formatCount(n)
-      } values, the limit of Royston's calibration.`,
+      c
+        ? `W′ and p come from a seeded random subsample of ${
+          formatCount(a.subsample.size)
+        } of the ${
+          formatCount(n)
+        } values that keeps each value's side, the limit of the test's calibration.`
+        : `W and p come from a seeded random subsample of ${formatCount(a.subsample.size)} of the ${
+          formatCount(n)
+        } values, the limit of Royston's calibration.`,
     );
   }
   if (origin.transform) {

@@ -11,8 +11,9 @@ import { PlumbError } from "../errors.ts";
 import type { Analysis } from "../results/analysis.ts";
 import { optionNames } from "../results/options.ts";
 import { type Adjustment, adjustPValues, checkAdjustment } from "../stats/multiplicity.ts";
-import { refuseCensored } from "./_censored_guard.ts";
-import { analyse, ANALYSE_MIN_N } from "./analysis.ts";
+import { ANALYSE_MIN_N } from "./analysis.ts";
+import { analyseSides } from "./censored_analysis.ts";
+import { suggestCensoredReexpression } from "./censored_suggest.ts";
 import { suggestReexpression } from "./reexpress_view.ts";
 import { rowLabelOf } from "./_loaded.ts";
 import { pickColumn } from "./source.ts";
@@ -133,9 +134,8 @@ export function screenColumns(t: Table, options: SurveyOptions): SurveyResult {
     let col;
     try {
       col = _numericColumnShared(t, name, { dropText: options.dropText ?? false });
-      refuseCensored(col, name);
     } catch (e) {
-      if (e instanceof PlumbError && (e.code === "non-numeric" || e.code === "censored")) {
+      if (e instanceof PlumbError && e.code === "non-numeric") {
         rows.push({ column: name, missing, textDropped: 0, skipped: `${e.message}` });
         continue;
       }
@@ -152,14 +152,19 @@ export function screenColumns(t: Table, options: SurveyOptions): SurveyResult {
       continue;
     }
     try {
-      const a = analyse(v, {
+      const origin = {
         label: name,
         column: name,
         missingDropped: col.provenance.missingDropped,
         textDropped: col.provenance.textDropped,
-      }, { rowLabel: rowLabelOf(col, t.rowCount) });
+      };
+      const a = analyseSides(v, col.censor ?? null, origin, {
+        rowLabel: rowLabelOf(col, t.rowCount),
+      });
       const suggestion = a.reading.verdict === "no-clear-departure"
         ? "none needed"
+        : col.censor
+        ? suggestCensoredReexpression(v, col.censor)
         : suggestReexpression(v);
       rows.push({
         column: name,

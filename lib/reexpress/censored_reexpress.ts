@@ -35,25 +35,50 @@ import { applyReexpression, type Reexpression } from "./reexpression.ts";
  * ```
  */
 export function censoredReexpress(sample: CensoredSample, r: Reexpression): CensoredSample {
-  const what = `${r.label} on a censored sample`;
-  let flip = 1;
-  if (r.kind === "reciprocal") {
-    let neg = false;
-    let pos = false;
-    for (const v of sample.values) {
-      if (v < 0) neg = true;
-      if (v > 0) pos = true;
-    }
-    if (neg && pos && sample.observed < sample.n) {
-      throw new PlumbError(
-        "non-positive",
-        `Cannot apply 1/x to censored data of both signs: it does not keep or reverse the ` +
-          `order across 0, so the censoring limits would lose their meaning; use Yeo–Johnson`,
-      );
-    }
-    flip = -1;
-  }
   const y = applyReexpression(sample.values, r);
-  const censor = flip === 1 ? sample.censor : sample.censor.map((s) => -s);
-  return censoredSample(y, censor, { what });
+  const censor = censorSidesAfter(r, sample.values, sample.censor);
+  return censoredSample(y, censor, { what: `${r.label} on a censored sample` });
+}
+
+/**
+ * The censoring sides after a re-expression: the same array for an
+ * increasing transformation, the sides swapped for 1/x (which reverses the
+ * order of values of one sign).
+ *
+ * Errors: `PlumbError("non-positive")` for 1/x on censored data of both
+ * signs (not monotone there, so the sides would be lost).
+ *
+ * @param r the re-expression
+ * @param values the values (and limits) before it
+ * @param censor their sides: 0 measured, −1 below the limit, 1 above it
+ * @example
+ * ```ts
+ * import { censorSidesAfter } from "./censored_reexpress.ts";
+ * import { reexpression } from "./reexpression.ts";
+ * const c = censorSidesAfter(reexpression("reciprocal"), [0.05, 0.2], Int8Array.of(-1, 0));
+ * if (c[0] !== 1 || c[1] !== 0) throw new Error("1/x flips the side");
+ * ```
+ */
+export function censorSidesAfter(
+  r: Reexpression,
+  values: ArrayLike<number>,
+  censor: Int8Array,
+): Int8Array {
+  if (r.kind !== "reciprocal") return censor;
+  let neg = false;
+  let pos = false;
+  let censored = false;
+  for (let i = 0; i < values.length; i++) {
+    if (values[i] < 0) neg = true;
+    if (values[i] > 0) pos = true;
+    if (censor[i] !== 0) censored = true;
+  }
+  if (neg && pos && censored) {
+    throw new PlumbError(
+      "non-positive",
+      `Cannot apply 1/x to censored data of both signs: it does not keep or reverse the ` +
+        `order across 0, so the censoring limits would lose their meaning; use Yeo–Johnson`,
+    );
+  }
+  return censor.map((s) => -s);
 }

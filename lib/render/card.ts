@@ -14,7 +14,7 @@ import { type Verdict, VERDICT_WORDS } from "../results/reading.ts";
 import type { MimeBundle } from "../results/display.ts";
 import { chartBundle } from "./chart_bundle.ts";
 import { escapeHtml, escapeMarkdown, plainText } from "./escape.ts";
-import { formatCentre, formatCount, formatNumber } from "../results/format.ts";
+import { formatCentre, formatCompact, formatCount, formatNumber } from "../results/format.ts";
 import { evidenceLedger, ledgerHtml, ledgerLines } from "./evidence_ledger.ts";
 import { histogramSpec } from "./histogram_spec.ts";
 import { qqSpec } from "./qq_spec.ts";
@@ -44,6 +44,20 @@ export function countsLine(a: Analysis): string {
   if (a.origin.textDropped > 0) {
     parts.push(`${formatCount(a.origin.textDropped)} non-numeric left out`);
   }
+  const c = a.censoring;
+  if (c) {
+    parts.push(
+      `${formatCount(c.left + c.right)} censored (${
+        c.limits.slice(0, 3).map((l) =>
+          `${l.side === "below" ? "<" : ">"}${formatCompact(l.limit)}`
+        )
+          .join(", ")
+      }${c.limits.length > 3 ? ", …" : ""})`,
+      `mean ${formatCentre(c.mean, c.sd, 5)}`,
+      `sd ${formatNumber(c.sd, 4)} (maximum likelihood under censoring)`,
+    );
+    return parts.join(" · ");
+  }
   parts.push(
     `mean ${formatCentre(a.moments.mean, a.moments.sd, 5)}`,
     `sd ${formatNumber(a.moments.sd, 4)}`,
@@ -66,7 +80,12 @@ export async function cardCharts(
 ): Promise<{ qq: string; histogram: string }> {
   const [qq, hist] = await Promise.all([
     chartBundle(
-      qqSpec(a.qq, { name, slope: a.reading.facts.sigma.slope, width: 340, height: 280 }),
+      qqSpec(a.qq, {
+        name,
+        slope: a.censoring ? undefined : a.reading.facts.sigma.slope,
+        width: 340,
+        height: 280,
+      }),
     ),
     chartBundle(histogramSpec(a.histogram, { name, width: 560, height: 90 })),
   ]);

@@ -154,6 +154,7 @@ export function evidenceLedger(a: Analysis): LedgerGroup[] {
   const lean: LedgerRow[] = [_effectRow("skewness", "G1", m.G1, m.seG1)];
   if (k2) lean.push(_scoreRow("D'Agostino skewness score", k2.skewnessZ, k2.skewnessP));
   const middle = _testRow(_test(a.tests, "Lilliefors"), "Lilliefors, largest CDF gap", "D");
+  if (a.censoring) return _censoredLedger(a, ends, lean);
   const sw = _test(a.tests, "Shapiro–Wilk");
   const whole: LedgerRow[] = _testRow(sw, "Shapiro–Wilk", "W", 4).map((r) => ({
     ...r,
@@ -171,6 +172,41 @@ export function evidenceLedger(a: Analysis): LedgerGroup[] {
     { title: "The ends: tails and far values", rows: ends },
     { title: "The lean: skew", rows: lean },
     { title: "The middle: the bulk's shape", rows: middle },
+    { title: "The whole line: overall straightness", rows: whole },
+  ];
+}
+
+/**
+ * The ledger of a censored sample: the tests for complete samples are not
+ * run (one row says so, in the middle group), and the whole-line group holds
+ * the censored-sample test.
+ */
+function _censoredLedger(a: Analysis, ends: LedgerRow[], lean: LedgerRow[]): LedgerGroup[] {
+  const c = a.censoring!;
+  const k = c.left + c.right;
+  const whole = _testRow(
+    { test: a.primary.test, result: a.primary },
+    "Shapiro–Francia for censored values",
+    "W′",
+    4,
+  ).map((r) => ({
+    ...r,
+    evidence: a.subsample
+      ? `${r.evidence} (on ${formatCount(a.subsample.size)} of ${formatCount(a.n)})`
+      : r.evidence,
+  }));
+  return [
+    { title: "The ends: tails and far values", rows: ends.filter((r) => r.value !== "not run") },
+    { title: "The lean: skew", rows: lean },
+    {
+      title: "The middle: the bulk's shape",
+      rows: [{
+        what: "tests for complete samples",
+        value: "not run",
+        evidence: `${formatCount(k)} of ${formatCount(a.n)} values censored`,
+        strength: null,
+      }],
+    },
     { title: "The whole line: overall straightness", rows: whole },
   ];
 }

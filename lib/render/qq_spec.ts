@@ -20,6 +20,7 @@ import { formatCentre, formatCount, formatNumber, roundSig } from "../results/fo
 import { _tooltipTitle } from "./escape.ts";
 import { CHART_CONFIG, PALETTE, PANEL } from "./theme.ts";
 import { _qqInUnits } from "./value_units.ts";
+import { censoredOf, censoredSentence, censoredStates, censoredSubtitle } from "./_qq_censored.ts";
 
 /** Vega-Lite 5 schema URL. */
 export const VEGALITE_SCHEMA = "https://vega.github.io/schema/vega-lite/v5.json";
@@ -68,6 +69,7 @@ export function _qqRecords(
 ): Record<string, number>[] {
   const idx = pick ?? Array.from({ length: q.shown }, (_, k) => k);
   const rows: Record<string, number>[] = new Array(idx.length);
+  const cen = censoredOf(q);
   for (let t = 0; t < idx.length; t++) {
     const k = idx[t];
     const fit = detrended ? q.mean + q.sd * q.z[k] : 0;
@@ -80,6 +82,7 @@ export function _qqRecords(
       row: q.row[k],
       out: q.outside[k],
     };
+    if (cen) rows[t].cen = cen.censor[k];
   }
   return rows;
 }
@@ -121,6 +124,15 @@ export function _qqLayers(
     },
     encoding: { x, y: { field: "v", type: "quantitative", title: valueTitle, scale: yScale } },
   }];
+  const base = [PALETTE.point, PALETTE.outside, PALETTE.outside];
+  const cen = censoredOf(q);
+  const states = cen
+    ? censoredStates(cen, _STATE_EXPR, POINT_STATES, base, [
+      "circle",
+      "triangle-down",
+      "triangle-up",
+    ])
+    : null;
   return [
     {
       mark: { type: "area", color: PALETTE.band, opacity: 0.35, tooltip: false, aria: false },
@@ -137,7 +149,7 @@ export function _qqLayers(
     },
     ...second,
     {
-      transform: [{ calculate: _STATE_EXPR, as: "state" }],
+      transform: [{ calculate: states?.expr ?? _STATE_EXPR, as: "state" }],
       mark: { type: "point", filled: true, size: 24, opacity: 0.9, aria: false },
       encoding: {
         x,
@@ -145,16 +157,16 @@ export function _qqLayers(
         color: {
           field: "state",
           type: "nominal",
-          scale: {
-            domain: [...POINT_STATES],
-            range: [PALETTE.point, PALETTE.outside, PALETTE.outside],
-          },
+          scale: { domain: states?.domain ?? [...POINT_STATES], range: states?.colours ?? base },
           legend: { title: null },
         },
         shape: {
           field: "state",
           type: "nominal",
-          scale: { domain: [...POINT_STATES], range: ["circle", "triangle-down", "triangle-up"] },
+          scale: {
+            domain: states?.domain ?? [...POINT_STATES],
+            range: states?.shapes ?? ["circle", "triangle-down", "triangle-up"],
+          },
           legend: { title: null },
         },
         tooltip: [
@@ -189,6 +201,8 @@ export function _qqSubtitle(q: QqData, detrended: boolean, slope?: number): stri
   if (two) {
     lines.push(`dashed: slope ${formatNumber(slope)} from the ordered values (W's numerator)`);
   }
+  const cen = censoredOf(q);
+  if (cen) lines.push(censoredSubtitle(cen));
   return lines;
 }
 
@@ -220,7 +234,8 @@ export function _qqDescription(
   }. ` +
     `The band is the ${q.envelopeMethod}. ` +
     `${formatCount(below + above)} of the ${formatCount(q.shown)} points shown lie outside it ` +
-    `(${formatCount(below)} below, ${formatCount(above)} above).`;
+    `(${formatCount(below)} below, ${formatCount(above)} above).` +
+    (censoredOf(q) ? censoredSentence(censoredOf(q)!) : "");
 }
 
 function _spec(q: QqData, options: QqSpecOptions, detrended: boolean): TopLevelSpec {

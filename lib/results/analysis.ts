@@ -9,6 +9,7 @@ import type { HistogramData } from "../stats/histogram_data.ts";
 import type { Moments } from "../stats/moments.ts";
 import type { QqData } from "../stats/qq_data.ts";
 import type { TestResult } from "../stats/result.ts";
+import type { Censoring } from "./censoring.ts";
 import type { Reading } from "./reading.ts";
 
 /** One test's outcome: its result, or why it was not run. */
@@ -81,4 +82,10 @@ export interface Analysis {
   readonly histogram: HistogramData;
   /** The shape in words. */
   readonly reading: Reading;
+  /**
+   * Present when any value is censored ("<0.05", ">1000"): the counts by side,
+   * the limits and the maximum-likelihood mean and sd. Then `n` counts the
+   * censored values too, and `primary` is the censored-sample test.
+   */
+  readonly censoring?: Censoring;
 }

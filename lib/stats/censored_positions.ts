@@ -86,14 +86,7 @@ export function censoredPositions(
   sample: CensoredSample,
   options: PlottingOptions = {},
 ): CensoredPositions {
-  const a = options.offset ?? BLOM_OFFSET;
-  if (!(typeof a === "number" && a >= 0 && a < 1)) {
-    throw new PlumbError(
-      "bad-option",
-      `Cannot use plotting-position offset ${a}: use a number in [0, 1), such as 0.375 (Blom)`,
-      { offset: a },
-    );
-  }
+  const a = _checkOffset(options.offset ?? BLOM_OFFSET);
   const { values, censor, leftLimits: lows, rightLimits: highs } = sample;
   const n = values.length;
   _checkOverlap(sample);
@@ -173,6 +166,18 @@ export interface _GroupedPositions {
   readonly rightCounts: readonly number[];
 }
 
+/** The plotting-position offset, checked: a number in [0, 1). */
+export function _checkOffset(a: number): number {
+  if (!(typeof a === "number" && a >= 0 && a < 1)) {
+    throw new PlumbError(
+      "bad-option",
+      `Cannot use plotting-position offset ${a}: use a number in [0, 1), such as 0.375 (Blom)`,
+      { offset: a },
+    );
+  }
+  return a;
+}
+
 /**
  * The positions of the measured values in sorted order, and F at every
  * limit (the censored values' positions follow from F and their counts).
@@ -241,7 +246,7 @@ function _countAtOrBelow(sorted: Float64Array, x: number): number {
 }
 
 /** How many of the sorted values are below x (strictly). */
-function _countBelow(sorted: Float64Array, x: number): number {
+export function _countBelow(sorted: Float64Array, x: number): number {
   let lo = 0;
   let hi = sorted.length;
   while (lo < hi) {

@@ -103,7 +103,14 @@ export function _rosLine(g: _GroupedPositions): { intercept: number; slope: numb
 export function censoredRos(sample: CensoredSample, options: PlottingOptions = {}): CensoredRos {
   _checkOverlap(sample);
   const a = options.offset ?? BLOM_OFFSET;
-  const g = _positionsSorted(sample, a);
+  return _rosFrom(sample, _positionsSorted(sample, a), a);
+}
+
+/**
+ * {@linkcode censoredRos} from the grouped positions the caller already
+ * holds (computed with offset `a`; the limits checked for overlap).
+ */
+export function _rosFrom(sample: CensoredSample, g: _GroupedPositions, a: number): CensoredRos {
   const { intercept, slope } = _rosLine(g);
   if (!Number.isFinite(intercept) || !Number.isFinite(slope)) _overflow();
   const { values, censor, leftLimits, rightLimits } = sample;

@@ -198,7 +198,12 @@ export function _qqDataSorted(
   );
 }
 
-/** The QQ data of n values with this mean and sd, the values at the kept ranks coming from `select`. */
+/**
+ * The QQ data at the kept ranks: `select` gives the value (and its 0-based
+ * position) at each rank, `rowLabel` (when given) the label of a 0-based
+ * position, `scores` the normal score of each rank (Blom's or the offset's
+ * positions when absent); the line is `mean + sd · z`.
+ */
 export function _qqBuild(
   n: number,
   mean: number,
@@ -206,6 +211,7 @@ export function _qqBuild(
   options: QqOptions,
   select: (ranks: readonly number[]) => Selected,
   rowLabel?: (position: number) => number,
+  scores?: (ranks: readonly number[], picked: Selected) => ArrayLike<number>,
 ): QqData {
   const maxPoints = _positiveInt(options.maxPoints ?? 800, "maxPoints", 20);
   const tailPoints = _positiveInt(options.tailPoints ?? 200, "tailPoints", 1);
@@ -219,9 +225,9 @@ export function _qqBuild(
     );
   }
   const ranks = thinRanks(n, maxPoints, tailPoints);
-  const z = normalScores(n, { offset, ranks });
   const env = normalEnvelope(n, { level, kind, ranks });
   const picked = select(ranks);
+  const z = scores ? scores(ranks, picked) : normalScores(n, { offset, ranks });
   const m = ranks.length;
   const value: number[] = new Array(m);
   const lower: number[] = new Array(m);

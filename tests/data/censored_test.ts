@@ -3,8 +3,6 @@ import { loadTable } from "../../lib/data/load_table.ts";
 import { tableFromCsv } from "../../lib/data/csv_text.ts";
 import { limitWordSide, parseCensored } from "../../lib/data/censored_cell.ts";
 import { PlumbError } from "../../lib/errors.ts";
-import { plumb } from "../../lib/plumb/plumb.ts";
-import { survey } from "../../lib/plumb/survey.ts";
 import { assertSameTable } from "./_same_table.ts";
 
 const isPlumbError = (code: string, message?: RegExp) => (e: unknown) => {
@@ -294,24 +292,4 @@ Deno.test("in memory: a { values, censor } column that does not line up is refus
       isPlumbError("bad-option", message),
     );
   }
-});
-
-Deno.test("until censored-sample methods are used, analyses of a censored column refuse clearly", async () => {
-  const t = await loadTable({
-    crp: [1.2, "<0.5", 3.4, 2.2, 1.9, 2.8, "<0.5", 1.1],
-    line: ["A", "B", "A", "B", "A", "B", "A", "B"],
-    fill: [500.1, 499.8, 500.4, 500.0, 499.7, 500.2, 500.3, 499.9],
-  });
-  const refused = isPlumbError(
-    "censored",
-    /^Cannot screen crp: 2 of its 8 values are censored \(2 below a limit; the first at row 2: <0\.5\), and analysing the limits as measured values would bias every result/,
-  );
-  assert.throws(() => plumb(t, "crp").analysis(), refused);
-  assert.throws(() => plumb(t, "crp").values(), refused);
-  assert.throws(() => plumb(t, "crp").by("line").result(), isPlumbError("censored"));
-  const rows = survey(t).result().rows;
-  const crp = rows.find((r) => r.column === "crp")!;
-  assert.equal(crp.analysis, undefined);
-  assert.match(crp.skipped!, /^Cannot screen crp: 2 of its 8 values are censored/);
-  assert.ok(rows.find((r) => r.column === "fill")!.analysis, "the other columns are screened");
 });
