@@ -9,19 +9,33 @@ import { censorSidesAfter } from "../reexpress/censored_reexpress.ts";
 import { censoredNormalFit } from "../stats/censored_fit.ts";
 import { censoredSample } from "../stats/censored_sample.ts";
 import { _meanSd } from "../stats/moments.ts";
+import type { Table } from "../data/table.ts";
+import { _applyStep } from "./_apply_step.ts";
 import type { Step } from "./steps.ts";
 
-/** The values after the chain's steps, the limits with them (1/x swapping the sides). */
+/**
+ * A group's values after the chain's steps, the limits with them (1/x
+ * swapping the sides); a step's domain error names the table rows.
+ */
 export function stepGroup(
-  values: Float64Array,
-  censor: Int8Array | null,
+  group: {
+    readonly values: Float64Array;
+    readonly censor?: Int8Array;
+    readonly rows: readonly number[];
+  },
   steps: readonly Step[],
-  apply: (s: Step, x: Float64Array) => Float64Array = (s, x) => s.apply(x),
+  where: { readonly column: string; readonly table: Table },
 ): { values: Float64Array; censor: Int8Array | null } {
-  let v = values;
-  let c = censor;
+  const { column, table } = where;
+  const at = {
+    column,
+    rowLabel: (p: number) => group.rows[p] + 1,
+    lineOf: (r: number) => table.lineOf(r),
+  };
+  let v = group.values;
+  let c = group.censor ?? null;
   for (const s of steps) {
-    const next = apply(s, v);
+    const next = _applyStep(s, v, at);
     if (c) c = censorSidesAfter(s.reexpression, v, c);
     v = next;
   }

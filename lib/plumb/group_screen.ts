@@ -12,7 +12,6 @@ import type { Analysis } from "../results/analysis.ts";
 import type { Reexpression } from "../reexpress/reexpression.ts";
 import type { QqOptions } from "../stats/qq_data.ts";
 import { type Adjustment, adjustPValues, checkAdjustment } from "../stats/multiplicity.ts";
-import { _applyStep } from "./_apply_step.ts";
 import { ANALYSE_MIN_N } from "./analysis.ts";
 import { analyseSides } from "./censored_analysis.ts";
 import { groupCentre, stepGroup } from "./_group_values.ts";
@@ -199,17 +198,10 @@ export function screenGroups(state: GroupState): GroupResult {
   const residuals: number[] = [];
   const residualSides: number[] = [];
   const rows: GroupRow[] = [];
-  for (
-    const { group: key, values, rows: idx, missingDropped, textDropped, censor } of split.groups
-  ) {
+  for (const group of split.groups) {
+    const { group: key, rows: idx, missingDropped, textDropped } = group;
     const counts = { missingDropped, textDropped };
-    const at = {
-      column,
-      rowLabel: (p: number) => idx[p] + 1,
-      lineOf: (r: number) => state.table.lineOf(r),
-    };
-    const stepped = stepGroup(values, censor ?? null, steps, (s, x) => _applyStep(s, x, at));
-    const { values: v, censor: c } = stepped;
+    const { values: v, censor: c } = stepGroup(group, steps, { column, table: state.table });
     const centre = groupCentre(v, c);
     if (centre !== null) {
       v.forEach((t, i) => {
