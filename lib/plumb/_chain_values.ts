@@ -109,3 +109,20 @@ export function refuseCensored(
     { column, censored: k },
   );
 }
+
+/** The stakes by group refuse a column with censored values (see `REFUSALS.stakes`). */
+export function refuseCensoredGroups(
+  groups: readonly { readonly censor?: Int8Array }[],
+  column: string,
+  groupBy: string,
+): void {
+  const censored = groups.reduce((k, g) => k + (g.censor?.filter((s) => s !== 0).length ?? 0), 0);
+  if (censored === 0) return;
+  const { what, why, instead } = REFUSALS.stakes;
+  throw new PlumbError(
+    "censored",
+    `Cannot ${what} for ${column} by ${groupBy}: ${censored} of its values are censored, and ` +
+      `${why}; ${instead} of each group`,
+    { column, censored },
+  );
+}

@@ -10,7 +10,7 @@
  */
 import type { TopLevelSpec } from "../_deps/vega_lite.ts";
 import { PlumbError } from "../errors.ts";
-import { REFUSALS } from "./_chain_values.ts";
+import { refuseCensoredGroups } from "./_chain_values.ts";
 import { chartBundle } from "../render/chart_bundle.ts";
 import { escapeHtml, escapeMarkdown, plainText } from "../render/escape.ts";
 import { type SavedFile, saveDisplay } from "../render/save.ts";
@@ -94,19 +94,7 @@ function _pick(groups: readonly GroupStakesRow[], max: number): GroupStakesRow[]
 
 function _compute(state: GroupState, options: StakesOptions): GroupStakes {
   const split = splitGroups(state);
-  const censored = split.groups.reduce(
-    (k, g) => k + (g.censor?.filter((s) => s !== 0).length ?? 0),
-    0,
-  );
-  if (censored > 0) {
-    const { what, why, instead } = REFUSALS.stakes;
-    throw new PlumbError(
-      "censored",
-      `Cannot ${what} for ${state.column} by ${state.groupBy}: ${censored} of its values are ` +
-        `censored, and ${why}; ${instead} of each group`,
-      { column: state.column, censored },
-    );
-  }
+  refuseCensoredGroups(split.groups, state.column, state.groupBy);
   const model = state.stakesModel?.();
   const groups = split.groups.map(({ group, values }): GroupStakesRow => {
     const n = values.length;
