@@ -19,6 +19,17 @@ export function assertPlumbError(f: () => unknown, code: string, message: RegExp
   });
 }
 
+/** The PlumbError `f` throws (failing when it throws nothing or something else), to inspect. */
+export function caughtPlumbError(f: () => unknown): PlumbError {
+  try {
+    f();
+  } catch (e) {
+    assert.ok(e instanceof PlumbError, `expected a PlumbError, got ${e}`);
+    return e;
+  }
+  throw new assert.AssertionError({ message: "expected a PlumbError, nothing was thrown" });
+}
+
 /**
  * Samples of 8–40 doubles in [−100, 100] whose range is not negligible next to
  * their magnitude (so that a + b·x keeps the shape to about 1e-7 relative).

@@ -88,10 +88,11 @@ export class Survey implements Displayable {
         { text: "", html: qqSparkline(a.qq, { title: `QQ sparkline of ${row.column}` }) },
       ];
     });
+    const screened = r.rows.filter((x) => x.analysis).length;
     const notes = [
       `Sorted by departure (clear first, then by W). p: Shapiro–Wilk; adjusted p: ${
         ADJUSTMENT_NAMES[r.adjust]
-      } across ${r.rows.filter((x) => x.analysis).length} columns.`,
+      } across ${screened} column${screened === 1 ? "" : "s"}.`,
     ];
     const sub = subsampleNote(r.rows.flatMap((x) => (x.analysis ? [x.analysis] : [])));
     if (sub) notes.push(sub);

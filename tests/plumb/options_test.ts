@@ -7,7 +7,7 @@
  * @module
  */
 import { deepEqual, equal, match, ok } from "node:assert/strict";
-import { PlumbError } from "../../lib/errors.ts";
+import { caughtPlumbError as caught } from "../_shared.ts";
 import { plumb } from "../../lib/plumb/plumb.ts";
 import { survey } from "../../lib/plumb/survey.ts";
 import { histogramData } from "../../lib/stats/histogram_data.ts";
@@ -19,17 +19,6 @@ const data = {
   x: [1.2, 0.8, 1.9, 1.1, 1.4, 2.6, 0.9, 1.3, 1.0, 5.2],
   g: ["a", "a", "a", "a", "a", "b", "b", "b", "b", "b"],
 };
-
-/** The `PlumbError` a call throws (the test fails when it throws nothing or something else). */
-function caught(f: () => unknown): PlumbError {
-  try {
-    f();
-  } catch (e) {
-    ok(e instanceof PlumbError, `a PlumbError, not ${e}`);
-    return e;
-  }
-  throw new Error("expected an error");
-}
 
 Deno.test("options: a misspelt option of every chain call is refused, naming the nearest one", () => {
   // deno-lint-ignore no-explicit-any

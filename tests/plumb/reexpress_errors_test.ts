@@ -8,21 +8,10 @@
  */
 import { deepEqual, equal, match, ok } from "node:assert/strict";
 import { loadTable } from "../../lib/data/load_table.ts";
-import { PlumbError } from "../../lib/errors.ts";
+import { caughtPlumbError as caught } from "../_shared.ts";
 import { plumb } from "../../lib/plumb/plumb.ts";
 import { histogramData } from "../../lib/stats/histogram_data.ts";
 import { qqData } from "../../lib/stats/qq_data.ts";
-
-/** The `PlumbError` a call throws (the test fails when it throws nothing or something else). */
-function caught(f: () => unknown): PlumbError {
-  try {
-    f();
-  } catch (e) {
-    ok(e instanceof PlumbError, `a PlumbError, not ${e}`);
-    return e;
-  }
-  throw new Error("expected an error");
-}
 
 // Invented lab export: a blank line after row 5 shifts the lines below it.
 const csv = "id,x,g\n1,1,a\n2,2,a\n3,-3,a\n4,4,a\n5,5,b\n\n6,0,b\n7,7,b\n8,800,b\n";
