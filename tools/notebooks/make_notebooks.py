@@ -137,6 +137,22 @@ NOTEBOOKS = {
         ("md", "## Not a table\n\nA Set, a generator, raw bytes or a promise is refused with what to give "
          "instead, never loaded as an empty table."),
         ("code", 'try {\n  await loadTable(new Set([500.1, 499.8]));\n} catch (e) {\n  console.log((e as Error).message);\n}'),
+        ("md", "## Misspelt options and repeated columns\n\nAn option the call does not know is refused with "
+         "the nearest one it does know, never silently ignored; a column named twice in `survey` is "
+         "screened once, so the adjustment's family is not inflated."),
+        ("code", 'import { survey } from "../mod.ts";\n'
+                 'try {\n  plumb(fills, "fill_ml", { dropTxt: true });\n} catch (e) {\n  console.log((e as Error).message);\n}\n'
+                 'survey(fills, { columns: ["fill_ml", "fill_ml"] }).table().notes;'),
+        ("md", "## Wrapped headers, extreme magnitudes, and where a re-expression fails\n\nA spreadsheet header "
+         "wrapped onto two lines keeps its line break in the name, and every chart still draws. Values of "
+         "extreme size (here an export that wrote litres as 1e−309-scale numbers) are plotted in units of a "
+         "power of ten named on the axis; the numbers in the text keep their own units."),
+        ("code", 'const wrapped = "Fill volume\\n(mL)";\n'
+                 'plumb({ [wrapped]: [500.1, 499.8, 500.4, 500.0, 499.7, 500.2, 500.3, 499.9, 500.6, 499.5] }, wrapped).qq();'),
+        ("code", 'plumb([1.1, 0.9, 1.4, 1.0, 0.7, 1.2, 1.3, 0.95, 1.6, 0.5].map((v) => v * 1e-309), "fill_scaled").histogram();'),
+        ("md", "A re-expression that cannot apply names the data rows and the file's lines where it fails."),
+        ("code", 'const withZero = await loadTable("sample,stops_min\\nS1,18.4\\nS2,32.1\\nS3,0\\nS4,7.5\\nS5,12.0\\n");\n'
+                 'try {\n  plumb(withZero, "stops_min").reexpress("reciprocal").analysis();\n} catch (e) {\n  console.log((e as Error).message);\n}'),
     ],
     "05_what_it_changes.ipynb": [
         ("md", "# What the departure changes for the next number\n\n" + INVENTED + "\n\n"
