@@ -217,8 +217,15 @@ export function groupStakesView(state: GroupState, options: StakesOptions): Grou
   const table = () => (model ??= _table(get(), limits));
   type Drawn = GroupStakesRow & { readonly stakes: Stakes };
   const drawn = () => _pick(get().groups.filter((g) => g.stakes), STAKES_GROUPS_DRAWN) as Drawn[];
-  const getSpec =
-    () => (spec ??= stakesGroupsSpec(drawn(), { name: state.column, by: state.groupBy }));
+  const getSpec = () => {
+    if (drawn().length > 0) {
+      return (spec ??= stakesGroupsSpec(drawn(), { name: state.column, by: state.groupBy }));
+    }
+    throw new PlumbError(
+      "too-few",
+      `Cannot draw ${title()}: no group has 3 values that are not all equal: save as .csv or .json`,
+    );
+  };
   const title = () => `What the departure changes for ${state.column}, by ${state.groupBy}`;
   const written = (groups: readonly GroupStakesRow[]) =>
     groups.flatMap((g) =>

@@ -2,7 +2,7 @@
  * Display fuzz: arbitrary column names and group labels (markup, quotes,
  * `]]>`, `{{`, backslashes, control characters, emoji, bidirectional marks)
  * loaded from CSV and shown through the chain, the groups, the survey, the
- * sentence and the charts. Every HTML and SVG output must be well-formed XML
+ * sentence, the stakes views and the charts. Every HTML and SVG output must be well-formed XML
  * (checked by Python's xml.etree, which is strict, in one batch), must hold
  * no executable content (no script element, no on… attribute, no
  * javascript: URL), and every Vega-Lite spec must compile and render with no
@@ -210,6 +210,11 @@ Deno.test("display fuzz: hostile names and labels give well-formed, inert HTML a
         add(await _bundle(p.sentence()), "sentence");
         add(await _bundle(p.tests()), "tests");
         add(await _bundle(p.candidates()), "candidates");
+        const stakesView = p.stakes({ upper: 10 });
+        await _cleanSpec(stakesView.spec(), `${id} stakes`);
+        specs++;
+        add(await _bundle(stakesView), "stakes");
+        add(await _bundle(p.by(gName).stakes({ lower: 1 })), "stakes by group");
         for (
           const [what, chart] of [["qq", p.qq()], ["histogram", p.histogram()], [
             "detrended",

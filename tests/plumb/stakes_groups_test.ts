@@ -1,7 +1,7 @@
 // `.by(column).stakes()`: each group's figures are the one-variable figures of
 // that group's values; the chain's re-expression is used in every group;
 // groups too small or constant say why; display, exports and save.
-import { deepEqual, equal, match, ok, throws } from "node:assert/strict";
+import { deepEqual, equal, match, ok, rejects, throws } from "node:assert/strict";
 import { PlumbError } from "../../lib/errors.ts";
 import { seededRandom } from "../../lib/numeric/random.ts";
 import { plumb } from "../../lib/plumb/plumb.ts";
@@ -120,4 +120,21 @@ Deno.test("stakes by group: many groups stay within 300 KB, saying what is left 
   const matters = view.result().groups.filter((x) => x.stakes?.judgement.overall === "matters");
   ok(matters.length > 0 && matters.length <= 40);
   for (const m of matters) ok(b["text/plain"].includes(`\n${m.group} `), m.group);
+});
+
+Deno.test("stakes by group: with no group to draw, a picture is refused and the table still saves", async () => {
+  const view = plumb({ g: ["a", "a", "b", "b"], v: [1, 2, 3, 4] }, "v").by("g").stakes();
+  const dir = await Deno.makeTempDir();
+  try {
+    await rejects(
+      view.save(`${dir}/none.svg`),
+      (e) =>
+        e instanceof PlumbError && e.code === "too-few" &&
+        /save as \.csv or \.json/.test(e.message),
+    );
+    const saved = await view.save(`${dir}/none.md`);
+    match(await Deno.readTextFile(saved.path), /not computed: only 2 values/);
+  } finally {
+    await Deno.remove(dir, { recursive: true });
+  }
 });
