@@ -85,10 +85,8 @@ const _SCORE = { matters: 3, unclear: 2, negligible: 1 } as const;
  */
 function _pick(groups: readonly GroupStakesRow[], max: number): GroupStakesRow[] {
   if (groups.length <= max) return [...groups];
-  const score = (g: GroupStakesRow) => (g.stakes ? _SCORE[g.stakes.judgement.overall] : 0);
-  const order = groups.map((_, i) => i).sort((a, b) =>
-    score(groups[b]) - score(groups[a]) || a - b
-  );
+  const score = groups.map((g) => (g.stakes ? _SCORE[g.stakes.judgement.overall] : 0));
+  const order = groups.map((_, i) => i).sort((a, b) => score[b] - score[a] || a - b);
   return order.slice(0, max).sort((a, b) => a - b).map((i) => groups[i]);
 }
 
