@@ -27,9 +27,10 @@ export const SUMMARY_HEAD: readonly string[] = Object.freeze(["mean", "sd", "G1"
 
 /** The shared cells, formatted. */
 export function summaryCells(a: Analysis): string[] {
+  const { mean, sd } = a.censoring ?? a.moments;
   return [
-    formatNumber(a.moments.mean, 5),
-    formatNumber(a.moments.sd, 4),
+    formatNumber(mean, 5),
+    formatNumber(sd, 4),
     formatNumber(a.moments.G1, 3),
     formatNumber(a.moments.G2, 3),
     formatNumber(a.primary.statistic, 4),
@@ -39,9 +40,10 @@ export function summaryCells(a: Analysis): string[] {
 
 /** The shared values, unrounded (CSV). */
 export function summaryValues(a: Analysis): number[] {
+  const { mean, sd } = a.censoring ?? a.moments;
   return [
-    a.moments.mean,
-    a.moments.sd,
+    mean,
+    sd,
     a.moments.G1,
     a.moments.G2,
     a.primary.statistic,
@@ -60,6 +62,19 @@ export function subsampleNote(analyses: readonly Analysis[]): string | undefined
   return `W and p of ${sub.length === 1 ? "the row" : `the ${sub.length} rows`} with more than ` +
     `${size} values come from a seeded random subsample of ${size} (the limit of Royston's ` +
     `calibration); n and the other columns use every value.`;
+}
+
+/**
+ * The table note for rows with censored values (their mean and sd, W′ and p
+ * come from the censored methods), or `undefined` when no row has any.
+ */
+export function censoredNote(analyses: readonly Analysis[]): string | undefined {
+  const rows = analyses.filter((a) => a.censoring);
+  if (rows.length === 0) return undefined;
+  const names = rows.map((a) => a.origin.group ?? a.origin.column);
+  const shown = names.length <= 6 ? names.join(", ") : `${names.slice(0, 5).join(", ")} and others`;
+  return `Rows with censored values (${shown}): n counts them; mean and sd by maximum likelihood ` +
+    `under censoring; W′ and p from the Shapiro–Francia test for censored samples.`;
 }
 
 /** `k` empty cells. */

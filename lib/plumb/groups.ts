@@ -80,8 +80,11 @@ export class PlumbGroups implements Displayable {
         r.groups.filter((g) => g.analysis).length
       } groups screened.`,
     ];
-    const sub = summary.subsampleNote(r.groups.flatMap((g) => (g.analysis ? [g.analysis] : [])));
+    const screened = r.groups.flatMap((g) => (g.analysis ? [g.analysis] : []));
+    const sub = summary.subsampleNote(screened);
     if (sub) notes.push(sub);
+    const censored = summary.censoredNote(screened);
+    if (censored) notes.push(censored);
     if (r.mergedLabels.length > 0) notes.push(mergedLabelsNote(r.groupBy, r.mergedLabels));
     if (r.noGroup > 0) {
       notes.push(

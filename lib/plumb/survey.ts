@@ -14,6 +14,7 @@ import { VERDICT_SHORT } from "../results/reading.ts";
 import { _csv } from "./_csv.ts";
 import {
   blanks,
+  censoredNote,
   subsampleNote,
   SUMMARY_COLUMNS,
   SUMMARY_HEAD,
@@ -94,8 +95,11 @@ export class Survey implements Displayable {
         ADJUSTMENT_NAMES[r.adjust]
       } across ${screened} column${screened === 1 ? "" : "s"}.`,
     ];
-    const sub = subsampleNote(r.rows.flatMap((x) => (x.analysis ? [x.analysis] : [])));
+    const screened = r.rows.flatMap((x) => (x.analysis ? [x.analysis] : []));
+    const sub = subsampleNote(screened);
     if (sub) notes.push(sub);
+    const censored = censoredNote(screened);
+    if (censored) notes.push(censored);
     if (r.repeated.length) {
       notes.push(
         `Named more than once in columns, screened once: ${r.repeated.join(", ")}.`,

@@ -176,6 +176,14 @@ Deno.test(".by() screens each group with its own censoring; survey screens censo
   assert.equal(gc.analysis, undefined);
   assert.match(gc.skipped!, /1 measured value/);
   assert.ok(g.residuals?.censoring, "the pooled residuals keep the sides");
+  const notes = plumb(t, "chlorine").by("line").table().notes ?? [];
+  assert.ok(
+    notes.includes(
+      "Rows with censored values (A): n counts them; mean and sd by maximum likelihood under " +
+        "censoring; W′ and p from the Shapiro–Francia test for censored samples.",
+    ),
+    notes.join("\n"),
+  );
   assert.throws(
     () => plumb(t, "chlorine").by("line").stakes().toJSON(),
     isPlumbError("censored", /Cannot compute the stakes for chlorine by line/),
