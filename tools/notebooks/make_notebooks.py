@@ -187,6 +187,33 @@ NOTEBOOKS = {
         ("code", "oxygen.sentence();"),
         ("code", "console.log(fill.toCSV());"),
     ],
+    "06_below_detection.ipynb": [
+        ("md", "# Values below the detection limit\n\n" + INVENTED + " The workbook "
+         "`demo/lab_export.xlsx` holds the same invented rows, written by `tools/make_demo_exports.ts`.\n\n"
+         "The lab reports dissolved oxygen below its 4 ppb detection limit as `<4`. Such a value is "
+         "not 4 and not missing: it is known only to lie below 4. Dropping these values, or analysing "
+         "them as 4, biases the mean, the sd and the shape. plumbline keeps them as censored values and "
+         "screens the column with methods made for them."),
+        ("code", 'import { loadTable, plumb } from "../mod.ts";\n'
+                 'const qc = await loadTable("../demo/lab_export.xlsx");\n'
+                 'const oxygen = plumb(qc, "Oxygen (ppb)", { dropText: true });\noxygen;'),
+        ("md", "The card counts the censored values with the measured ones (`n`), gives the mean and sd by "
+         "maximum likelihood under censoring, and tests normality with the Shapiro–Francia test for "
+         "censored samples; the tests for complete samples are listed as not run. On the QQ plot the "
+         "censored values are the grey squares at the limit, spread over the share of the probability "
+         "scale that the Hirsch–Stedinger positions give them; the line is the censored fit."),
+        ("code", "oxygen.analysis().censoring;"),
+        ("md", "## On the log scale\n\nThe limit is re-expressed with the values: `<4` becomes "
+         "`<ln 4`, and every censored value stays censored."),
+        ("code", 'const logged = oxygen.reexpress("log");\nlogged.qq();'),
+        ("code", "logged.sentence();"),
+        ("md", "## By filler line\n\nEach line is screened with its own censored values."),
+        ("code", 'logged.by("line");'),
+        ("md", "## What needs measured values\n\nRanking re-expressions, the λ explorer and the stakes "
+         "view use methods for measured values; on a censored column they stop and say what to do "
+         "instead rather than treat the limits as measurements."),
+        ("code", 'try {\n  oxygen.candidates().toJSON();\n} catch (e) {\n  console.log((e as Error).message);\n}'),
+    ],
 }
 
 
