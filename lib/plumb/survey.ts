@@ -95,10 +95,10 @@ export class Survey implements Displayable {
         ADJUSTMENT_NAMES[r.adjust]
       } across ${screened} column${screened === 1 ? "" : "s"}.`,
     ];
-    const screened = r.rows.flatMap((x) => (x.analysis ? [x.analysis] : []));
-    const sub = subsampleNote(screened);
+    const analyses = r.rows.flatMap((x) => (x.analysis ? [x.analysis] : []));
+    const sub = subsampleNote(analyses);
     if (sub) notes.push(sub);
-    const censored = censoredNote(screened);
+    const censored = censoredNote(analyses);
     if (censored) notes.push(censored);
     if (r.repeated.length) {
       notes.push(
