@@ -213,6 +213,19 @@ export { censoredBackTransformMean } from "./lib/reexpress/censored_back_transfo
 export { normalHazard, normalLogCdf, normalLogSf } from "./lib/numeric/normal_log.ts";
 
 // Larger than memory
+export { PlumbQuery } from "./lib/plumb/query_chain.ts";
+export { QueryGroups } from "./lib/plumb/query_groups.ts";
+export { QuerySurvey } from "./lib/plumb/query_survey.ts";
+export {
+  isQuerySource,
+  QUERY_SOURCE,
+  type QueryColumn,
+  type QueryEngine,
+  type QueryGroup,
+  type QueryRequest,
+  type QueryScreening,
+  type QuerySource,
+} from "./lib/results/query_source.ts";
 export {
   scan,
   type ScanGroup,

@@ -237,12 +237,6 @@ export function screenGroups(state: GroupState): GroupResult {
       } else throw e;
     }
   }
-  const tested = rows.filter((r) => r.analysis);
-  const adj = adjustPValues(tested.map((r) => r.analysis!.primary.pValue), adjust);
-  const adjusted = new Map(tested.map((r, k) => [r.group, adj[k]]));
-  const final = rows.map((r) =>
-    Object.freeze(r.analysis ? { ...r, adjustedP: adjusted.get(r.group) } : r)
-  );
   let res: Analysis | undefined;
   if (residuals.length >= ANALYSE_MIN_N) {
     const origin = {
@@ -260,17 +254,28 @@ export function screenGroups(state: GroupState): GroupResult {
       if (!(e instanceof PlumbError && known.includes(e.code))) throw e;
     }
   }
-  return Object.freeze({
+  return groupResult({
     label,
     groupBy,
     adjust,
-    groups: Object.freeze(final),
+    groups: rows,
     noGroup: split.noGroup,
     missingDropped: split.missingDropped,
     textDropped: split.textDropped,
     residuals: res,
     mergedLabels: split.mergedLabels,
   });
+}
+
+/** Finish a per-group screening from any source: p adjusted across the groups, all frozen. */
+export function groupResult(r: GroupResult): GroupResult {
+  const tested = r.groups.filter((g) => g.analysis);
+  const adj = adjustPValues(tested.map((g) => g.analysis!.primary.pValue), r.adjust);
+  const adjusted = new Map(tested.map((g, k) => [g.group, adj[k]]));
+  const groups = r.groups.map((g) =>
+    Object.freeze(g.analysis ? { ...g, adjustedP: adjusted.get(g.group) } : g)
+  );
+  return Object.freeze({ ...r, groups: Object.freeze(groups) });
 }
 
 /**

@@ -5,6 +5,7 @@
  *
  * @module
  */
+import { PlumbError } from "../errors.ts";
 import { cardBundle, cardCharts } from "../render/card.ts";
 import { chartBundle } from "../render/chart_bundle.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
@@ -39,20 +40,24 @@ import {
  * ```
  */
 export class PlumbGroups implements Displayable {
-  readonly #s: GroupState;
+  readonly #s: GroupState | GroupResult;
   #result: GroupResult | undefined;
   #bundle: Promise<MimeBundle> | undefined;
 
-  /** @internal Use `plumb(...).by(column)`. */
-  constructor(state: GroupState) {
-    checkAdjustment(state.groupOptions.adjust);
+  /**
+   * @internal Use `plumb(...).by(column)`.
+   * @param state what to screen, or a result already screened elsewhere (a query source)
+   */
+  constructor(state: GroupState | GroupResult) {
+    if ("groupOptions" in state) checkAdjustment(state.groupOptions.adjust);
+    else this.#result = state;
     this.#s = state;
     Object.freeze(this);
   }
 
   /** The screening of every group, as plain data (computed once). */
   result(): GroupResult {
-    this.#result ??= screenGroups(this.#s);
+    this.#result ??= screenGroups(this.#s as GroupState);
     return this.#result;
   }
 
@@ -154,6 +159,13 @@ export class PlumbGroups implements Displayable {
    * @param options coverage (default 0.95), lower and upper limits, levels, bootstrap seed
    */
   stakes(options: StakesOptions = {}): GroupStakesView {
+    if (!("groupOptions" in this.#s)) {
+      throw new PlumbError(
+        "bad-option",
+        "Cannot compute the stakes of groups screened through a query: they need every value; " +
+          "load the rows of interest with loadTable, or filter them in the query to fit in memory",
+      );
+    }
     const opts = stakesOptions(options, this.#s.reexpressed ?? false, ".by(...).stakes()");
     return groupStakesView(this.#s, opts);
   }

@@ -18,6 +18,7 @@ import { histogramSpec } from "../render/histogram_spec.ts";
 import { detrendedSpec, qqSpec } from "../render/qq_spec.ts";
 import type { Analysis } from "../results/analysis.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
+import { isQuerySource, QUERY_SOURCE, type QuerySource } from "../results/query_source.ts";
 import type { Reading } from "../results/reading.ts";
 import { stakes, type StakesOptions } from "../stakes/stakes.ts";
 import { histogramData, type HistogramOptions } from "../stats/histogram_data.ts";
@@ -28,6 +29,7 @@ import * as chain from "./_chain_values.ts";
 import type { GroupOptions } from "./group_screen.ts";
 import { PlumbGroups } from "./groups.ts";
 import { lambdaExplorer } from "./lambda_view.ts";
+import { PlumbQuery } from "./query_chain.ts";
 import { type CandidatesView, candidatesView, chosenStep } from "./reexpress_view.ts";
 import * as fitting from "./residual_link.ts";
 import type { LinearModelFit } from "../stats/linear_model.ts";
@@ -408,8 +410,11 @@ export class Plumb implements Displayable {
  * Start a chain over one numeric variable. Nothing is read or computed until
  * the chain is first shown or read.
  *
- * @param source a table from `loadTable`, an array of numbers, or in-memory
- *   data (rows, columns, a data frame)
+ * A query source (`scan(pathOrSql)`) gives a {@linkcode PlumbQuery}: the
+ * same analysis computed by its engine, read with `await`.
+ *
+ * @param source a table from `loadTable`, an array of numbers, in-memory
+ *   data (rows, columns, a data frame), or a query source from `scan`
  * @param column the column to analyse (optional when there is only one); for
  *   a plain array of numbers, the variable's name
  * @param options text-cell handling, envelope options
@@ -421,12 +426,15 @@ export class Plumb implements Displayable {
  * if (p.analysis().n !== 10 || p.label !== "fill_ml") throw new Error("chain");
  * ```
  */
+export function plumb(source: QuerySource, column?: string, options?: PlumbOptions): PlumbQuery;
+export function plumb(source: PlumbSource, column?: string, options?: PlumbOptions | null): Plumb;
 export function plumb(
-  source: PlumbSource,
+  source: PlumbSource | QuerySource,
   column?: string,
   options: PlumbOptions | null = {},
-): Plumb {
+): Plumb | PlumbQuery {
   options = checked.plumbArguments(column, options);
+  if (isQuerySource(source)) return new PlumbQuery(source[QUERY_SOURCE], column, options);
   const single = singleColumn(source);
   const name = single && column !== undefined ? column : options.name ?? "value";
   const table = toTable(source, name);

@@ -43,7 +43,11 @@ export interface ReadingInput {
   readonly qq: QqData;
   /** The values (any order); sorted internally when `sortedSample` is absent. */
   readonly values: ArrayLike<number>;
-  /** The values already sorted, when the caller has them. */
+  /**
+   * The values already sorted, when the caller has them; from a query
+   * source, a sorted seeded sample of them (fewer than `n`, rows unknown),
+   * in which ties, far values, clusters and pile-ups are then judged.
+   */
   readonly sortedSample?: Float64Array;
   /** Row labels aligned with `values` (1-based data rows), to name outliers by row. */
   readonly rows?: ArrayLike<number>;
@@ -114,6 +118,11 @@ export function readShape(input: ReadingInput): Reading {
   const { n, moments: m, primary, qq } = input;
   const rules = READING_RULES;
   const sorted = input.sortedSample ?? sortFloat64(Float64Array.from(input.values));
+  // A query source hands over a seeded sample of its values (fewer than n, no rows):
+  // ties, far values, clusters and pile-ups are then judged and counted in the sample.
+  const ns = sorted.length;
+  const sampled = ns < n;
+  const rowsWhere: typeof _rowsWhere = sampled ? () => [] : _rowsWhere;
   const ev = gatherEvidence(sorted, {
     moments: m,
     primary,
@@ -150,9 +159,9 @@ export function readShape(input: ReadingInput): Reading {
 
   let pileUp: ReadingFacts["pileUp"] = null;
   for (const end of ["minimum", "maximum"] as const) {
-    const count = _runLength(sorted, end === "minimum" ? 0 : n - 1);
-    if (count >= rules.pileUpCount && count >= rules.pileUpShare * n && count < n) {
-      const value = end === "minimum" ? sorted[0] : sorted[n - 1];
+    const count = _runLength(sorted, end === "minimum" ? 0 : ns - 1);
+    if (count >= rules.pileUpCount && count >= rules.pileUpShare * ns && count < ns) {
+      const value = end === "minimum" ? sorted[0] : sorted[ns - 1];
       if (pileUp === null || count > pileUp.count) pileUp = Object.freeze({ end, value, count });
     }
   }
@@ -165,11 +174,12 @@ export function readShape(input: ReadingInput): Reading {
     const v = o.values[k];
     const skip = seen.get(v) ?? 0;
     seen.set(v, skip + 1);
-    const rows = _rowsWhere(input.values, input.rows, (x) => x === v, skip + 1);
-    outlierValues.push(Object.freeze({ value: v, row: rows[skip] ?? rows[0], side: o.sides[k] }));
+    const rows = rowsWhere(input.values, input.rows, (x) => x === v, skip + 1);
+    const row = rows[skip] ?? rows[0] ?? -1;
+    outlierValues.push(Object.freeze({ value: v, row, side: o.sides[k] }));
   }
   const lows = o.sides.filter((s) => s === "low").length;
-  const rest = sorted.subarray(lows, n - (o.count - lows));
+  const rest = sorted.subarray(lows, ns - (o.count - lows));
   const outliersAlone = o.count > 0 && _restLooksNormal(rest, lows < o.count, ev.rounding.coarse);
 
   const c = ev.cluster;
@@ -180,9 +190,9 @@ export function readShape(input: ReadingInput): Reading {
     cluster = Object.freeze({
       side: c.side,
       count: c.count,
-      share: c.count / n,
+      share: c.count / ns,
       gap: c.gap,
-      rows: Object.freeze(_rowsWhere(input.values, input.rows, inCluster, 10)),
+      rows: Object.freeze(rowsWhere(input.values, input.rows, inCluster, 10)),
     });
   }
 
@@ -238,6 +248,7 @@ export function readShape(input: ReadingInput): Reading {
     facts,
     twoPeaks,
     subsample: input.subsample,
+    sampleOnly: sampled,
   });
   return Object.freeze({ verdict: g.verdict, ...words, facts });
 }

@@ -17,10 +17,14 @@ export const cap = (s: string) => s[0].toUpperCase() + s.slice(1);
 export const plural = (k: number, one: string, many: string) => (k === 1 ? one : many);
 export const pct = (share: number) => `${short(Number((100 * share).toPrecision(2)))}%`;
 export const listRows = (rows: readonly number[], total: number) =>
-  `row${plural(total, "", "s")} ${rows.map(formatCount).join(", ")}${
-    total > rows.length ? ", …" : ""
-  }`;
-export const valueAt = (v: ValueAtRow) => `${f3(v.value)} (row ${formatCount(v.row)})`;
+  rows.length === 0 || rows[0] < 0
+    ? "rows not known: the values came through a query"
+    : `row${plural(total, "", "s")} ${rows.map(formatCount).join(", ")}${
+      total > rows.length ? ", …" : ""
+    }`;
+/** A value with its row, or alone when the source gives no rows (−1). */
+export const valueAt = (v: ValueAtRow) =>
+  v.row >= 0 ? `${f3(v.value)} (row ${formatCount(v.row)})` : f3(v.value);
 
 /**
  * The sentences that name a cause and its remedy (cluster, outliers, pile-up),

@@ -24,6 +24,8 @@ export interface WordsInput {
   readonly facts: ReadingFacts;
   readonly twoPeaks: boolean;
   readonly subsample?: Subsample | null;
+  /** Whether the order-statistic tests and the evidence came from a query source's seeded sample. */
+  readonly sampleOnly?: boolean;
 }
 
 /** The reason for the verdict in a few words (no W, no n). */
@@ -158,7 +160,7 @@ function _sigmaPoint(f: ReadingFacts, primary: TestResult, sub: WordsInput["subs
 }
 
 /** The note on what the sample size means for the tests. */
-function _sizeNote(n: number, sub: WordsInput["subsample"]): string {
+function _sizeNote(n: number, sub: WordsInput["subsample"], sampleOnly = false): string {
   const r = READING_RULES;
   let note: string;
   if (n < r.littlePower) {
@@ -175,7 +177,13 @@ function _sizeNote(n: number, sub: WordsInput["subsample"]): string {
       } values even trivial departures give small p-values, so effect sizes decide: ` +
       `skewness counts from |G1| ≥ ${r.skewSome}, kurtosis from |G2| ≥ ${r.tailsSome}`;
   }
-  if (sub) {
+  if (sub && sampleOnly) {
+    note += `. Shapiro–Wilk, Shapiro–Francia, Anderson–Darling and Lilliefors used a seeded ` +
+      `random sample of ${formatCount(sub.size)} of the ${
+        formatCount(n)
+      } values (seed ${sub.seed}), and ties, far values, clusters and pile-ups are counted in it; the moments, ` +
+      `D'Agostino–Pearson, Jarque–Bera, the QQ plot and the histogram use all ${formatCount(n)}`;
+  } else if (sub) {
     note += `. Shapiro–Wilk used a seeded random subsample of ${formatCount(sub.size)} of the ${
       formatCount(n)
     } values (seed ${sub.seed}; its calibration stops at 5,000); the other tests, the moments and the plot use all ${
@@ -208,7 +216,8 @@ export function readingWords(w: WordsInput): {
   const headline = `${cap(reason)} (W = ${formatNumber(primary.statistic, 4)}, n = ${
     formatCount(n)
   })`;
-  const cause = causePoints(f, n);
+  // Counts from a query source's seeded sample are said against the sample's size.
+  const cause = causePoints(f, w.sampleOnly ? w.subsample?.size ?? n : n);
   const points: string[] = [...cause.lead];
   const rounding = roundingPoint(f, n);
   if (rounding !== undefined && f.rounding.coarse) points.push(rounding);
@@ -228,6 +237,6 @@ export function readingWords(w: WordsInput): {
     headline,
     reason,
     points: Object.freeze(points),
-    sizeNote: _sizeNote(n, w.subsample),
+    sizeNote: _sizeNote(n, w.subsample, w.sampleOnly),
   };
 }

@@ -6,6 +6,7 @@
  */
 import type { Table } from "../data/table.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
+import { isQuerySource, QUERY_SOURCE, type QuerySource } from "../results/query_source.ts";
 import { formatCount, formatP } from "../results/format.ts";
 import { qqSparkline } from "../render/sparkline.ts";
 import { tableMarkdown, type TableModel } from "../render/table.ts";
@@ -30,6 +31,7 @@ import {
   type SurveyResult,
 } from "./survey_screen.ts";
 import { checkOptions } from "../results/options.ts";
+import { QuerySurvey } from "./query_survey.ts";
 import { type PlumbSource, toTable } from "./source.ts";
 
 /**
@@ -43,22 +45,29 @@ import { type PlumbSource, toTable } from "./source.ts";
  * ```
  */
 export class Survey implements Displayable {
-  readonly #table: Table;
+  readonly #table: Table | undefined;
   readonly #options: SurveyOptions;
   #result: SurveyResult | undefined;
 
-  /** @internal Use {@linkcode survey}. */
-  constructor(table: Table, options: SurveyOptions) {
+  /**
+   * @internal Use {@linkcode survey}.
+   * @param table the table to screen, or a survey already screened elsewhere (a query source)
+   */
+  constructor(table: Table | SurveyResult, options: SurveyOptions) {
     checkAdjustment(options.adjust);
-    surveyColumns(table, options.columns);
-    this.#table = table;
+    if ("rows" in table && "adjust" in table) {
+      this.#result = table;
+    } else {
+      surveyColumns(table, options.columns);
+      this.#table = table;
+    }
     this.#options = options;
     Object.freeze(this);
   }
 
   /** The survey as plain data (computed once). */
   result(): SurveyResult {
-    this.#result ??= screenColumns(this.#table, this.#options);
+    this.#result ??= screenColumns(this.#table!, this.#options);
     return this.#result;
   }
 
@@ -179,7 +188,10 @@ export class Survey implements Displayable {
 /**
  * Screen every numeric column of a table (or those named).
  *
- * @param source a table from `loadTable`, or in-memory data
+ * A query source (`scan(pathOrSql)`) gives a {@linkcode QuerySurvey}: the
+ * same survey computed by the engine, read with `await`.
+ *
+ * @param source a table from `loadTable`, in-memory data, or a query source from `scan`
  * @param options columns, adjustment, text-cell handling
  *
  * @example
@@ -189,7 +201,13 @@ export class Survey implements Displayable {
  * if (s.result().rows.length !== 2) throw new Error("rows");
  * ```
  */
-export function survey(source: PlumbSource, options: SurveyOptions | null = {}): Survey {
+export function survey(source: QuerySource, options?: SurveyOptions | null): QuerySurvey;
+export function survey(source: PlumbSource, options?: SurveyOptions | null): Survey;
+export function survey(
+  source: PlumbSource | QuerySource,
+  options: SurveyOptions | null = {},
+): Survey | QuerySurvey {
   options = checkOptions(options, SURVEY_OPTION_NAMES, "survey");
+  if (isQuerySource(source)) return new QuerySurvey(source[QUERY_SOURCE], options);
   return new Survey(toTable(source), options);
 }

@@ -192,6 +192,27 @@ export function screenColumns(t: Table, options: SurveyOptions): SurveyResult {
       } else throw e;
     }
   }
+  return surveyResult(t.source, adjust, rows, t.textNames(), repeated);
+}
+
+/**
+ * Finish a survey from its rows: p-values adjusted across the columns
+ * screened, rows sorted by departure (clear first, then by W; columns not
+ * screened last), everything frozen. Shared by every kind of source.
+ *
+ * @param source the source in words
+ * @param adjust the adjustment across the columns
+ * @param rows one row per column, screened or skipped
+ * @param textColumns text columns, not screened
+ * @param repeated column names asked for more than once (screened once)
+ */
+export function surveyResult(
+  source: string,
+  adjust: Adjustment,
+  rows: SurveyRow[],
+  textColumns: readonly string[],
+  repeated: readonly string[],
+): SurveyResult {
   const tested = rows.filter((r) => r.analysis);
   const adj = adjustPValues(tested.map((r) => r.analysis!.primary.pValue), adjust);
   tested.forEach((r, k) => ((r as { adjustedP?: number }).adjustedP = adj[k]));
@@ -201,10 +222,10 @@ export function screenColumns(t: Table, options: SurveyOptions): SurveyResult {
       a.analysis.primary.statistic - b.analysis.primary.statistic;
   });
   return Object.freeze({
-    source: t.source,
+    source,
     adjust,
     rows: Object.freeze(rows.map((r) => Object.freeze(r))),
-    textColumns: Object.freeze(t.textNames()),
+    textColumns: Object.freeze([...textColumns]),
     repeated: Object.freeze([...repeated]),
   });
 }

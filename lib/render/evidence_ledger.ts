@@ -138,7 +138,9 @@ export function evidenceLedger(a: Analysis): LedgerGroup[] {
     value: apart.length === 0 ? "none" : `${apart.length}`,
     evidence: apart.length === 0
       ? (o.count > 0 ? "far values belong to the cluster" : "no value apart")
-      : `farthest ${formatNumber(apart[0].value, 4)} (row ${formatCount(apart[0].row)})`,
+      : `farthest ${formatNumber(apart[0].value, 4)}${
+        // A query source gives no rows (−1).
+        apart[0].row >= 0 ? ` (row ${formatCount(apart[0].row)})` : ""}`,
     strength: apart.length === 0 ? 0 : 1.5,
   });
   ends.push({

@@ -8,7 +8,7 @@
 import { PlumbError } from "../errors.ts";
 import type { _Engine } from "./engine.ts";
 import type { ScanOptions } from "./scan.ts";
-import { type ScanAnalysis, screenColumn } from "./screen.ts";
+import { screenColumn, type Screened } from "./screen.ts";
 import type { ColumnQuery } from "./select.ts";
 import { countsSql, DUCKDB, quickCountsSql, textCellsSql, valueExpr } from "./sql.ts";
 
@@ -23,7 +23,7 @@ export async function _screen(
   name: string,
   o: ScanOptions,
   label: { subject: string; label: string; group?: string },
-): Promise<ScanAnalysis> {
+): Promise<Screened> {
   const subject = label.subject;
   const type = cols.find((c) => c.name === name)!.type;
   const textual = /^VARCHAR$/i.test(type);
@@ -72,7 +72,7 @@ export async function _screen(
     subject,
     keep,
   };
-  const result = await screenColumn(
+  return await screenColumn(
     q,
     { rows, missing: rows - present, text, nonFinite, n, lo, hi },
     { column: name, label: label.label, group: label.group },
@@ -83,7 +83,6 @@ export async function _screen(
       boxCox: o.boxCox ?? true,
     },
   );
-  return result;
 }
 
 export function _pick(cols: { name: string; type: string }[], column: string | undefined): string {

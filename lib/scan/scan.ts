@@ -9,11 +9,12 @@
 import { PlumbError } from "../errors.ts";
 import { holmAdjust } from "../stats/multiplicity.ts";
 import type { QqOptions } from "../stats/qq_data.ts";
-import { _Engine, type EngineOptions } from "./engine.ts";
-import { _progressReporter } from "./progress.ts";
+import { QUERY_SOURCE, type QueryEngine, type QuerySource } from "../results/query_source.ts";
+import type { _Engine, EngineOptions } from "./engine.ts";
 import type { ScanAnalysis } from "./screen.ts";
 import { _pick, _screen } from "./column.ts";
-import { describeSql, groupRelation, groupValuesSql, quoteText } from "./sql.ts";
+import { _describe, _openEngine, scanQueryEngine } from "./query_engine.ts";
+import { groupRelation, groupValuesSql, quoteText } from "./sql.ts";
 
 /** Options for {@linkcode scan}. */
 export interface ScanOptions extends Omit<EngineOptions, "onProgress"> {
@@ -53,10 +54,14 @@ export interface ScanOptions extends Omit<EngineOptions, "onProgress"> {
   readonly progress?: boolean | EngineOptions["onProgress"];
 }
 
+function _relationIsQuery(s: string): boolean {
+  return /^(select|with|from|values)\b/i.test(s) || s.startsWith("(");
+}
+
 /** The FROM-clause text for a path or a query. */
 function _relation(pathOrSql: string): string {
   const s = pathOrSql.trim();
-  if (/^(select|with|from|values)\b/i.test(s) || s.startsWith("(")) return `(${s}) AS src`;
+  if (_relationIsQuery(s)) return `(${s}) AS src`;
   if (/\.parquet$/i.test(s)) return `read_parquet(${quoteText(s)})`;
   if (/\.(csv|tsv|txt)(\.gz)?$/i.test(s)) return `read_csv(${quoteText(s)})`;
   throw new PlumbError(
@@ -77,7 +82,7 @@ function _relation(pathOrSql: string): string {
  * if (a.n !== 20000 || a.sample.size !== 5000) throw new Error("scan");
  * ```
  */
-export class ScanSource {
+export class ScanSource implements QuerySource {
   /** What was asked for: the path or the query. */
   readonly pathOrSql: string;
   readonly #relation: string;
@@ -93,17 +98,19 @@ export class ScanSource {
 
   /** The source's columns and their SQL types. */
   async columns(): Promise<{ readonly name: string; readonly type: string }[]> {
-    const engine = await _Engine.open(this.#options);
-    try {
-      const rows = await engine.rows(
-        describeSql(this.#relation),
-        "reading the columns",
-        this.#what(),
-      );
-      return rows.map((r) => Object.freeze({ name: String(r[0]), type: String(r[1]) }));
-    } finally {
-      engine.close();
-    }
+    const cols = await this[QUERY_SOURCE].columns();
+    return cols.map((c) => Object.freeze({ name: c.name, type: c.type }));
+  }
+
+  /**
+   * What `plumb(source, column)`, `survey(source)` and `.by()` use: the
+   * screening through DuckDB behind the same chain as in memory.
+   */
+  get [QUERY_SOURCE](): QueryEngine {
+    // Captions name a file without its folders, as for a loaded table; DuckDB's messages keep the path.
+    const s = this.pathOrSql.trim();
+    const name = _relationIsQuery(s) ? this.#what() : s.split(/[\\/]/).pop()!;
+    return scanQueryEngine(this.#relation, name, this.#options);
   }
 
   #what(column?: string): string {
@@ -123,10 +130,17 @@ export class ScanSource {
     try {
       const cols = await this.#columns(engine);
       const name = _pick(cols, column);
-      const result = await _screen(engine, this.#relation, cols, name, this.#options, {
-        subject: this.#what(name),
-        label: name,
-      });
+      const { analysis: result } = await _screen(
+        engine,
+        this.#relation,
+        cols,
+        name,
+        this.#options,
+        {
+          subject: this.#what(name),
+          label: name,
+        },
+      );
       engine.finish();
       return result;
     } finally {
@@ -168,7 +182,7 @@ export class ScanSource {
         const shown = value === null ? "(empty)" : value;
         out.push({
           value,
-          analysis: await _screen(
+          analysis: (await _screen(
             engine,
             groupRelation(this.#relation, group, value),
             cols,
@@ -179,7 +193,7 @@ export class ScanSource {
               label: `${name} | ${shown}`,
               group: shown,
             },
-          ),
+          )).analysis,
         });
       }
       engine.finish();
@@ -190,22 +204,11 @@ export class ScanSource {
   }
 
   #open(): Promise<_Engine> {
-    const o = this.#options;
-    const onProgress = o.progress === false
-      ? undefined
-      : typeof o.progress === "function"
-      ? o.progress
-      : _progressReporter();
-    return _Engine.open({ ...o, onProgress });
+    return _openEngine(this.#options);
   }
 
-  async #columns(engine: _Engine): Promise<{ name: string; type: string }[]> {
-    const rows = await engine.rows(
-      describeSql(this.#relation),
-      "reading the columns",
-      this.#what(),
-    );
-    return rows.map((r) => ({ name: String(r[0]), type: String(r[1]) }));
+  #columns(engine: _Engine): Promise<{ name: string; type: string }[]> {
+    return _describe(engine, this.#relation, this.#what());
   }
 }
 

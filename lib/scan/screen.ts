@@ -98,13 +98,19 @@ function _sampleNote(size: number, n: number): string {
     : `every test uses all ${n} values`;
 }
 
+/** A screening and the sorted seeded sample its order-statistic tests used. */
+export interface Screened {
+  readonly analysis: ScanAnalysis;
+  readonly sample: Float64Array;
+}
+
 /** Screen the column described by `q` whose counts are known. */
 export async function screenColumn(
   q: ColumnQuery,
   counts: ColumnCounts,
   label: { column: string; label: string; group?: string },
   options: ScreenOptions,
-): Promise<ScanAnalysis> {
+): Promise<Screened> {
   const { n, lo, hi } = counts;
   let fitSeconds = NaN;
   const sample = await q.engine.doubles(
@@ -209,9 +215,12 @@ export async function screenColumn(
     qq,
     values: sorted,
     sortedSample: sorted,
+    // The engine hands over values without their source rows.
+    rows: new Int32Array(sorted.length).fill(-1),
     subsample,
+    subsampleSorted: subsample ? sorted : undefined,
   });
-  return Object.freeze({
+  const analysis: ScanAnalysis = Object.freeze({
     origin: Object.freeze({
       label: label.label,
       column: label.column,
@@ -242,4 +251,5 @@ export async function screenColumn(
     passes: Object.freeze(q.engine.log()),
     fitSeconds,
   });
+  return { analysis, sample: sorted };
 }

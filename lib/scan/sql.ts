@@ -21,6 +21,9 @@
  * Identifiers are always quoted; numbers are written as exponent literals with 17
  * significant digits, so that a bound sent to SQL is the double computed here.
  *
+ * Kept in one file because porting the screening to another engine means
+ * reading every statement it runs side by side with the dialect above.
+ *
  * @module
  */
 
@@ -123,6 +126,52 @@ export function groupRelation(relation: string, group: string, value: string | n
   const g = `CAST(${quoteIdent(group)} AS VARCHAR)`;
   const where = value === null ? `${g} IS NULL` : `${g} = ${quoteText(value)}`;
   return `(SELECT * FROM ${relation} WHERE ${where}) AS grp`;
+}
+
+/**
+ * The groups of `group` (as text, NULL for empty cells, the empty group
+ * last) with, in each, the finite numbers of the value expression `v` and
+ * their mean, the missing cells of `column`, and its cells that are text or
+ * not finite; at most `limit` groups.
+ */
+export function groupCountsSql(
+  dialect: Dialect,
+  relation: string,
+  column: string,
+  v: string,
+  group: string,
+  limit: number,
+): string {
+  const f = dialect.finite("v");
+  return `SELECT g, CAST(count(*) FILTER (WHERE v IS NOT NULL AND ${f}) AS DOUBLE) AS n, ` +
+    `avg(v) FILTER (WHERE v IS NOT NULL AND ${f}) AS mean, ` +
+    `CAST(count(*) FILTER (WHERE c IS NULL) AS DOUBLE) AS missing, ` +
+    `CAST(count(*) FILTER (WHERE c IS NOT NULL AND (v IS NULL OR NOT ${f})) AS DOUBLE) AS other ` +
+    `FROM (SELECT CAST(${quoteIdent(group)} AS VARCHAR) AS g, ${
+      quoteIdent(column)
+    } AS c, ${v} AS v ` +
+    `FROM ${relation}) AS s GROUP BY g ORDER BY g NULLS LAST LIMIT ${limit}`;
+}
+
+/**
+ * The residuals of the value expression `v` from the given mean of their
+ * group of `group`, as a relation with one DOUBLE column named `column`:
+ * rows of groups not listed, and values that are not finite numbers, are
+ * left out. The means come as a join on VALUES (standard SQL).
+ */
+export function residualRelation(
+  dialect: Dialect,
+  relation: string,
+  column: string,
+  v: string,
+  group: string,
+  means: readonly (readonly [string, number])[],
+): string {
+  const rows = means.map(([g, m]) => `(${quoteText(g)}, ${num(m)})`).join(", ");
+  return `(SELECT s.v - m.mu AS ${quoteIdent(column)} ` +
+    `FROM (SELECT CAST(${quoteIdent(group)} AS VARCHAR) AS g, ${v} AS v FROM ${relation}) AS s ` +
+    `JOIN (VALUES ${rows}) AS m(g, mu) ON s.g = m.g ` +
+    `WHERE s.v IS NOT NULL AND ${dialect.finite("s.v")}) AS res`;
 }
 
 /** A few cells of a text column that are not numbers, for the error message. */

@@ -31,7 +31,7 @@ for (
       let lo = Infinity;
       let hi = -Infinity;
       for (const v of values) [lo, hi] = [Math.min(lo, v), Math.max(hi, v)];
-      const a = await screenColumn(
+      const { analysis: a } = await screenColumn(
         {
           engine,
           dialect: DUCKDB,

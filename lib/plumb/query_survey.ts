@@ -1,0 +1,108 @@
+/**
+ * `survey()` over a query source: every numeric column screened by the
+ * engine, shown and exported like the in-memory survey.
+ *
+ * @module
+ */
+import { PlumbError } from "../errors.ts";
+import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
+import type { QueryEngine } from "../results/query_source.ts";
+import { checkAdjustment } from "../stats/multiplicity.ts";
+import { suggestReexpression } from "./reexpress_view.ts";
+import { Survey } from "./survey.ts";
+import {
+  type SurveyOptions,
+  type SurveyResult,
+  surveyResult,
+  type SurveyRow,
+} from "./survey_screen.ts";
+import { _why } from "./query_groups.ts";
+
+/**
+ * Every numeric column of a query source screened (or those named). Create
+ * it with `survey(scan(...))`.
+ */
+export class QuerySurvey implements Displayable {
+  readonly #engine: QueryEngine;
+  readonly #options: SurveyOptions;
+  #survey: Promise<Survey> | undefined;
+
+  /** @internal Use `survey(source)`. */
+  constructor(engine: QueryEngine, options: SurveyOptions) {
+    checkAdjustment(options.adjust);
+    this.#engine = engine;
+    this.#options = options;
+    Object.freeze(this);
+  }
+
+  /** The survey, ready to show and export like the in-memory one. */
+  survey(): Promise<Survey> {
+    return (this.#survey ??= this.#run());
+  }
+
+  async #run(): Promise<Survey> {
+    const o = this.#options;
+    const cols = await this.#engine.columns();
+    // A string is one column; a name given twice is screened once (`repeated` says so).
+    const given = typeof o.columns === "string" ? [o.columns] : o.columns;
+    const names: string[] = [];
+    const repeated: string[] = [];
+    for (const c of given ?? cols.filter((k) => k.kind === "numeric").map((k) => k.name)) {
+      if (!cols.some((k) => k.name === c)) {
+        throw new PlumbError("unknown-column", `No column named ${JSON.stringify(c)} to survey`);
+      }
+      if (!names.includes(c)) names.push(c);
+      else if (!repeated.includes(c)) repeated.push(c);
+    }
+    const rows: SurveyRow[] = [];
+    const wanted: string[] = [];
+    for (const name of names) {
+      const c = cols.find((k) => k.name === name)!;
+      if (c.kind === "numeric" || (c.kind === "text" && o.dropText)) wanted.push(name);
+      else rows.push({ column: name, missing: 0, textDropped: 0, skipped: `a ${c.type} column` });
+    }
+    const screened = await this.#engine.screen(
+      wanted.map((column) => ({ column, label: column, dropText: o.dropText })),
+    );
+    wanted.forEach((column, i) => {
+      const s = screened[i];
+      if (s instanceof Error) {
+        rows.push({ column, missing: 0, textDropped: 0, skipped: _why(s, 0) });
+        return;
+      }
+      const a = s.analysis;
+      rows.push({
+        column,
+        missing: a.origin.missingDropped,
+        textDropped: a.origin.textDropped,
+        analysis: a,
+        suggestion: a.reading.verdict === "no-clear-departure"
+          ? "none needed"
+          : suggestReexpression(s.sample),
+      });
+    });
+    const text = cols.filter((c) => c.kind === "text").map((c) => c.name);
+    const result = surveyResult(this.#engine.name, checkAdjustment(o.adjust), rows, text, repeated);
+    return new Survey(result, o);
+  }
+
+  /** The survey as plain data. */
+  async result(): Promise<SurveyResult> {
+    return (await this.survey()).result();
+  }
+
+  /** CSV with unrounded numbers. */
+  async toCSV(): Promise<string> {
+    return (await this.survey()).toCSV();
+  }
+
+  /** Markdown table. */
+  async toMarkdown(): Promise<string> {
+    return (await this.survey()).toMarkdown();
+  }
+
+  /** The table, with a sparkline per row. */
+  async [DISPLAY](): Promise<MimeBundle> {
+    return await (await this.survey())[DISPLAY]();
+  }
+}

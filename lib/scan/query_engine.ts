@@ -1,0 +1,189 @@
+/**
+ * The {@linkcode QueryEngine} of a scanned source: what `plumb`, `survey`
+ * and `.by()` ask of it, answered through DuckDB. Private to `lib/scan`.
+ *
+ * @module
+ */
+import { PlumbError } from "../errors.ts";
+import type {
+  QueryColumn,
+  QueryEngine,
+  QueryGroup,
+  QueryRequest,
+  QueryScreening,
+} from "../results/query_source.ts";
+import { _NUMERIC, _screen } from "./column.ts";
+import { _Engine } from "./engine.ts";
+import { _progressReporter } from "./progress.ts";
+import type { ScanOptions } from "./scan.ts";
+import {
+  describeSql,
+  DUCKDB,
+  groupCountsSql,
+  groupRelation,
+  residualRelation,
+  valueExpr,
+} from "./sql.ts";
+
+/** The most groups one `.by()` screens through a scan: each costs one screening. */
+export const MAX_SCAN_GROUPS = 200;
+
+/** Open an engine with the scan's options and its progress display. */
+export function _openEngine(o: ScanOptions): Promise<_Engine> {
+  const onProgress = o.progress === false
+    ? undefined
+    : typeof o.progress === "function"
+    ? o.progress
+    : _progressReporter();
+  return _Engine.open({ ...o, onProgress });
+}
+
+/** The columns of `relation`, with their types. */
+export async function _describe(
+  engine: _Engine,
+  relation: string,
+  subject: string,
+): Promise<{ name: string; type: string }[]> {
+  const rows = await engine.rows(describeSql(relation), "reading the columns", subject);
+  return rows.map((r) => ({ name: String(r[0]), type: String(r[1]) }));
+}
+
+function _kind(type: string): QueryColumn["kind"] {
+  return _NUMERIC.test(type) ? "numeric" : /^VARCHAR$/i.test(type) ? "text" : "other";
+}
+
+/**
+ * The engine `plumb`, `survey` and `.by()` use for a scanned source.
+ *
+ * @param relation the FROM-clause text of the source
+ * @param name the source in words
+ * @param options the scan's options
+ */
+export function scanQueryEngine(relation: string, name: string, options: ScanOptions): QueryEngine {
+  const what = (column?: string) =>
+    column === undefined ? name : `column ${JSON.stringify(column)} of ${name}`;
+  return Object.freeze({
+    name,
+    async columns(): Promise<readonly QueryColumn[]> {
+      const engine = await _Engine.open(options);
+      try {
+        const cols = await _describe(engine, relation, what());
+        return cols.map((c) => Object.freeze({ ...c, kind: _kind(c.type) }));
+      } finally {
+        engine.close();
+      }
+    },
+    async groups(column: string, by: string): Promise<readonly QueryGroup[]> {
+      const engine = await _Engine.open(options);
+      try {
+        const cols = await _describe(engine, relation, what());
+        for (const c of [column, by]) _known(cols, c, name);
+        const type = cols.find((c) => c.name === column)!.type;
+        const v = valueExpr(DUCKDB, column, /^VARCHAR$/i.test(type), 1);
+        const rows = await engine.rows(
+          groupCountsSql(DUCKDB, relation, column, v, by, MAX_SCAN_GROUPS + 2),
+          "counting the groups",
+          what(by),
+        );
+        if (rows.filter((r) => r[0] !== null).length > MAX_SCAN_GROUPS) {
+          throw new PlumbError(
+            "too-many",
+            `Cannot screen ${what(column)} by ${JSON.stringify(by)}: it has more than ` +
+              `${MAX_SCAN_GROUPS} groups, and each group costs one screening; filter or bin ` +
+              `the groups in an SQL query first`,
+            { max: MAX_SCAN_GROUPS },
+          );
+        }
+        return rows.map(([g, n, mean, missing, text]) =>
+          Object.freeze({
+            value: g === null ? null : String(g),
+            n: Number(n),
+            missing: Number(missing),
+            text: Number(text),
+            mean: mean === null ? NaN : Number(mean),
+          })
+        );
+      } finally {
+        engine.close();
+      }
+    },
+    async screen(requests: readonly QueryRequest[]): Promise<(QueryScreening | Error)[]> {
+      const engine = await _openEngine(options);
+      try {
+        const cols = await _describe(engine, relation, what());
+        const out: (QueryScreening | Error)[] = [];
+        for (const r of requests) {
+          try {
+            out.push(await _one(engine, relation, cols, r, options, what));
+          } catch (e) {
+            // Only the methods' refusals stay in place; engine failures and cancellation stop all.
+            if (!(e instanceof PlumbError) || !_REFUSALS.has(e.code)) throw e;
+            out.push(e);
+          }
+        }
+        engine.finish();
+        return out;
+      } finally {
+        engine.close();
+      }
+    },
+  });
+}
+
+const _REFUSALS = new Set(["too-few", "constant", "non-numeric", "bad-option"]);
+
+function _known(cols: readonly { name: string }[], column: string, name: string): void {
+  if (cols.some((c) => c.name === column)) return;
+  throw new PlumbError(
+    "unknown-column",
+    `No column named ${JSON.stringify(column)} in ${name}: it has ${
+      cols.map((c) => JSON.stringify(c.name)).join(", ")
+    }`,
+  );
+}
+
+async function _one(
+  engine: _Engine,
+  relation: string,
+  cols: { name: string; type: string }[],
+  r: QueryRequest,
+  options: ScanOptions,
+  what: (column?: string) => string,
+): Promise<QueryScreening> {
+  _known(cols, r.column, what());
+  const o: ScanOptions = {
+    ...options,
+    dropText: r.dropText ?? options.dropText,
+    qq: r.qq ?? options.qq,
+  };
+  if (r.residuals !== undefined) {
+    const { by, means } = r.residuals;
+    _known(cols, by, what());
+    const type = cols.find((c) => c.name === r.column)!.type;
+    const v = valueExpr(DUCKDB, r.column, /^VARCHAR$/i.test(type), 1);
+    const res = residualRelation(DUCKDB, relation, r.column, v, by, means);
+    return await _screen(engine, res, [{ name: r.column, type: "DOUBLE" }], r.column, o, {
+      subject: `${what(r.column)}, residuals within ${JSON.stringify(by)}`,
+      label: r.label,
+    });
+  }
+  if (r.group !== undefined) {
+    _known(cols, r.group.by, what());
+    return await _screen(
+      engine,
+      groupRelation(relation, r.group.by, r.group.value),
+      cols,
+      r.column,
+      o,
+      {
+        subject: `${what(r.column)}, ${r.group.by} = ${r.group.value}`,
+        label: r.label,
+        group: r.group.value,
+      },
+    );
+  }
+  return await _screen(engine, relation, cols, r.column, o, {
+    subject: what(r.column),
+    label: r.label,
+  });
+}
