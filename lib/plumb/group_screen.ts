@@ -11,10 +11,11 @@ import { optionNames } from "../results/options.ts";
 import type { Analysis } from "../results/analysis.ts";
 import type { Reexpression } from "../reexpress/reexpression.ts";
 import type { QqOptions } from "../stats/qq_data.ts";
-import { type Adjustment, adjustPValues, checkAdjustment } from "../stats/multiplicity.ts";
+import { type Adjustment, checkAdjustment } from "../stats/multiplicity.ts";
 import { ANALYSE_MIN_N } from "./analysis.ts";
 import { analyseSides } from "./censored_analysis.ts";
 import { groupCentre, stepGroup } from "./_group_values.ts";
+import { groupResult } from "./_group_result.ts";
 import { type Step, stepLabel } from "./steps.ts";
 
 /** Options for `.by(column)`. */
@@ -265,17 +266,6 @@ export function screenGroups(state: GroupState): GroupResult {
     residuals: res,
     mergedLabels: split.mergedLabels,
   });
-}
-
-/** Finish a per-group screening from any source: p adjusted across the groups, all frozen. */
-export function groupResult(r: GroupResult): GroupResult {
-  const tested = r.groups.filter((g) => g.analysis);
-  const adj = adjustPValues(tested.map((g) => g.analysis!.primary.pValue), r.adjust);
-  const adjusted = new Map(tested.map((g, k) => [g.group, adj[k]]));
-  const groups = r.groups.map((g) =>
-    Object.freeze(g.analysis ? { ...g, adjustedP: adjusted.get(g.group) } : g)
-  );
-  return Object.freeze({ ...r, groups: Object.freeze(groups) });
 }
 
 /**

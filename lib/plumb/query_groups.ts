@@ -10,7 +10,8 @@ import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.t
 import type { QueryEngine } from "../results/query_source.ts";
 import { checkAdjustment } from "../stats/multiplicity.ts";
 import type { QueryRequest } from "../results/query_source.ts";
-import { type GroupOptions, type GroupResult, groupResult, type GroupRow } from "./group_screen.ts";
+import type { GroupOptions, GroupResult, GroupRow } from "./group_screen.ts";
+import { groupResult } from "./_group_result.ts";
 import { PlumbGroups } from "./groups.ts";
 import type { PlumbOptions } from "./_chain_options.ts";
 
