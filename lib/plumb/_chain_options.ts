@@ -33,10 +33,29 @@ export interface PlumbOptions {
    * @default "value"
    */
   readonly name?: string;
+  /**
+   * A column giving the order in which the rows were measured (numbers or
+   * ISO 8601 date-times): the values, or residuals, are then checked for
+   * serial dependence in that order (`.sequence()` plots them).
+   * @default no order: file order is never assumed to be time order
+   */
+  readonly order?: string;
+  /**
+   * Check serial dependence in the file's row order, when that is the time
+   * order.
+   * @default false
+   */
+  readonly fileOrder?: boolean;
 }
 
 /** Every option name of {@linkcode PlumbOptions}. */
-const PLUMB_OPTION_NAMES = optionNames<PlumbOptions>({ dropText: true, qq: true, name: true });
+const PLUMB_OPTION_NAMES = optionNames<PlumbOptions>({
+  dropText: true,
+  qq: true,
+  name: true,
+  order: true,
+  fileOrder: true,
+});
 
 /**
  * `plumb`'s column name and options, checked: the column must be a string

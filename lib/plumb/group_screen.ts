@@ -1,5 +1,8 @@
 /**
- * The per-group screening behind `.by(column)`, as plain data: the groups in
+ * The per-group screening behind `.by(column)` and `.by([a, b])` (the cells
+ * of several columns; their pooled residuals are those of the cell-means
+ * model: every factor and their interactions, the cells the rows screen — a
+ * main-effects model would count an interaction as a departure), as plain data: the groups in
  * natural order, each analysed (or skipped with the reason), p-values
  * adjusted across them, and the pooled within-group residuals.
  *
@@ -17,6 +20,10 @@ import { analyseSides } from "./censored_analysis.ts";
 import { groupCentre, stepGroup } from "./_group_values.ts";
 import { groupResult } from "./_group_result.ts";
 import { type Step, stepLabel } from "./steps.ts";
+import { splitGroups } from "./group_split.ts";
+import { notesWith, type OrderRequest, serialCheck } from "./serial_check.ts";
+
+export { type GroupSample, type GroupSplit, splitGroups } from "./group_split.ts";
 
 /** Options for `.by(column)`. */
 export interface GroupOptions {
@@ -41,8 +48,13 @@ export interface GroupState {
   readonly steps: () => readonly Step[];
   /** The chain's options: text cells, and the QQ envelope of every group and the residuals. */
   readonly options: { readonly dropText?: boolean; readonly qq?: QqOptions };
-  /** The grouping column. */
+  /** The grouping column, or the grouping columns joined by " × ". */
   readonly groupBy: string;
+  /**
+   * The grouping columns when there are several: their cells are the groups.
+   * @default [groupBy]
+   */
+  readonly groupColumns?: readonly string[];
   /** The options of `.by()`. */
   readonly groupOptions: GroupOptions;
   /**
@@ -53,6 +65,24 @@ export interface GroupState {
   readonly stakesModel?: () => Reexpression | undefined;
   /** Whether the chain carries a `.reexpress()` (known without resolving it). */
   readonly reexpressed?: boolean;
+  /**
+   * The order in which to check each group for serial dependence.
+   * @default none
+   */
+  readonly order?: OrderRequest;
+  /**
+   * The values to group instead of the column's (e.g. a model's residuals),
+   * with their 0-based table rows; no steps, no pooled residuals.
+   * @default the column's values
+   */
+  readonly values?: () => {
+    readonly values: Float64Array;
+    readonly rows: Int32Array;
+    readonly label: string;
+    readonly missing: number;
+    readonly text: number;
+    readonly notes?: readonly string[];
+  };
 }
 
 /** One group's screening, or why it was not screened. */
@@ -77,8 +107,15 @@ export interface GroupRow {
 export interface GroupResult {
   /** The variable, with its re-expressions. */
   readonly label: string;
-  /** The grouping column. */
+  /** The grouping column, or the grouping columns joined by " × ". */
   readonly groupBy: string;
+  /**
+   * The grouping columns.
+   * @default [groupBy]
+   */
+  readonly groupColumns?: readonly string[];
+  /** The order each group was checked in for serial dependence, if one was named. */
+  readonly order?: string;
   /** How p-values were adjusted across the groups. */
   readonly adjust: Adjustment;
   /** One row per group, in natural order (numbers by value, then text). */
@@ -95,13 +132,6 @@ export interface GroupResult {
   readonly mergedLabels: readonly MergedLabel[];
 }
 
-/** Natural order for group labels: numbers by value, then text. */
-function _compare(a: string, b: string): number {
-  const x = Number(a), y = Number(b);
-  if (a.trim() !== "" && b.trim() !== "" && Number.isFinite(x) && Number.isFinite(y)) return x - y;
-  return a < b ? -1 : a > b ? 1 : 0;
-}
-
 /**
  * Screen one variable within each group of a grouping column: one analysis
  * per group with enough values, adjusted p-values across the groups, and the
@@ -109,93 +139,14 @@ function _compare(a: string, b: string): number {
  *
  * @param state the table, the column and its steps, the grouping column and options
  */
-/** The rows of one group: where its numbers are, and the cells left out. */
-export interface GroupSample {
-  /** The group's value. */
-  readonly group: string;
-  /** The group's values in original units (before any re-expression), in row order. */
-  readonly values: Float64Array;
-  /** Their 0-based row indices in the table. */
-  readonly rows: readonly number[];
-  /** Each value's censoring side (0 measured, −1 below, 1 above its limit), when any is censored. */
-  readonly censor?: Int8Array;
-  /** The group's missing cells, left out. */
-  readonly missingDropped: number;
-  /** The group's text cells, left out on request. */
-  readonly textDropped: number;
-}
-
-/** A variable split by a grouping column, groups in natural order. */
-export interface GroupSplit {
-  /** One entry per group, in natural order (numbers by value, then text). */
-  readonly groups: readonly GroupSample[];
-  /** Rows with a value but no group, left out. */
-  readonly noGroup: number;
-  /** Missing cells of the variable, in all rows. */
-  readonly missingDropped: number;
-  /** Text cells of the variable left out on request, in all rows. */
-  readonly textDropped: number;
-  /** Group labels merged because they differ only in spaces. */
-  readonly mergedLabels: readonly MergedLabel[];
-}
-
-/**
- * Split the variable by the grouping column: the values of each group (in
- * original units), with what was left out. Raises `"non-numeric"` (naming
- * rows) unless text cells are dropped on request; a group with censored
- * values carries their sides in `censor`.
- *
- * @param state the table, the column and its steps, the grouping column and options
- */
-export function splitGroups(state: GroupState): GroupSplit {
-  const { table, column, groupBy, options } = state;
-  const used = table.numeric(column, { dropText: options.dropText ?? false });
-  const cells = table.numericCells(column);
-  const g = table.text(groupBy);
-  // Per group: the rows holding a number, and the cells left out.
-  const byGroup = new Map<string, { rows: number[]; missing: number; text: number }>();
-  let noGroup = 0;
-  for (let i = 0; i < table.rowCount; i++) {
-    if (g.missing[i]) {
-      if (!cells.missing[i] && !cells.nonNumeric[i]) noGroup++;
-      continue;
-    }
-    const key = g.values[i];
-    let entry = byGroup.get(key);
-    if (!entry) byGroup.set(key, entry = { rows: [], missing: 0, text: 0 });
-    if (cells.missing[i]) entry.missing++;
-    else if (cells.nonNumeric[i]) entry.text++;
-    else entry.rows.push(i);
-  }
-  const groups = [...byGroup.keys()].sort(_compare).map((key) => {
-    const { rows, missing, text } = byGroup.get(key)!;
-    const sides = cells.censor;
-    return Object.freeze({
-      group: key,
-      values: Float64Array.from(rows, (i) => cells.values[i]),
-      rows,
-      missingDropped: missing,
-      textDropped: text,
-      ...(sides && rows.some((i) => sides[i] !== 0)
-        ? { censor: Int8Array.from(rows, (i) => sides[i]) }
-        : {}),
-    });
-  });
-  return Object.freeze({
-    groups: Object.freeze(groups),
-    noGroup,
-    missingDropped: used.provenance.missingDropped,
-    textDropped: used.provenance.textDropped,
-    mergedLabels: g.merged,
-  });
-}
-
 export function screenGroups(state: GroupState): GroupResult {
   const { column, groupBy, options } = state;
-  const steps = state.steps();
+  const groupColumns = state.groupColumns ?? [groupBy];
+  const given = state.values?.();
+  const steps = given ? [] : state.steps();
   const adjust = checkAdjustment(state.groupOptions.adjust);
-  const split = splitGroups(state);
-  const label = stepLabel(column, steps);
+  const split = splitGroups(given ? { ...state, values: () => given } : state);
+  const label = given ? given.label : stepLabel(column, steps);
   const residuals: number[] = [];
   const residualSides: number[] = [];
   const rows: GroupRow[] = [];
@@ -204,7 +155,7 @@ export function screenGroups(state: GroupState): GroupResult {
     const counts = { missingDropped, textDropped };
     const { values: v, censor: c } = stepGroup(group, steps, { column, table: state.table });
     const centre = groupCentre(v, c);
-    if (centre !== null) {
+    if (centre !== null && !given) {
       v.forEach((t, i) => {
         residuals.push(t - centre);
         residualSides.push(c ? c[i] : 0);
@@ -224,8 +175,18 @@ export function screenGroups(state: GroupState): GroupResult {
     const rowsOf = Int32Array.from(idx, (i) => i + 1);
     const transform = steps.length ? label : undefined;
     try {
-      const origin = { label: `${label} — ${groupBy} = ${key}`, column, group: key, transform };
-      const a = analyseSides(v, c, { ...origin, ...counts, rows: rowsOf }, { qq: options.qq });
+      const serial = state.order &&
+        serialCheck(state.table, state.order, { values: v, rows: Int32Array.from(idx) });
+      const notes = notesWith(given?.notes, serial);
+      const origin = {
+        label: `${label} — ${groupBy} = ${key}`,
+        column,
+        group: key,
+        transform,
+        notes,
+      };
+      const a0 = analyseSides(v, c, { ...origin, ...counts, rows: rowsOf }, { qq: options.qq });
+      const a = serial ? Object.freeze({ ...a0, serial }) : a0;
       rows.push({ group: key, n: v.length, ...counts, analysis: a });
     } catch (e) {
       if (e instanceof PlumbError && e.code === "constant") {
@@ -240,12 +201,18 @@ export function screenGroups(state: GroupState): GroupResult {
   }
   let res: Analysis | undefined;
   if (residuals.length >= ANALYSE_MIN_N) {
+    const cells = groupColumns.length > 1;
     const origin = {
-      label: `${label} residuals within ${groupBy}`,
+      label: `${label} residuals within ${groupBy}${cells ? " cells" : ""}`,
       column,
       transform: steps.length ? label : undefined,
       missingDropped: split.missingDropped,
       textDropped: split.textDropped,
+      notes: cells
+        ? [
+          `Pooled residuals of the cell-means model: each value minus the centre of its ${groupBy} cell (both factors and their interaction)`,
+        ]
+        : undefined,
     };
     try {
       const sides = Int8Array.from(residualSides);
@@ -265,6 +232,8 @@ export function screenGroups(state: GroupState): GroupResult {
     textDropped: split.textDropped,
     residuals: res,
     mergedLabels: split.mergedLabels,
+    groupColumns: Object.freeze([...groupColumns]),
+    order: state.order ? state.order.column ?? "file order" : undefined,
   });
 }
 

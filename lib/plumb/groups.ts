@@ -1,5 +1,6 @@
 /**
- * `.by(column)`: one variable screened within each group, with
+ * `.by(column)` and `.by([a, b])`: one variable screened within each group
+ * (or each cell of several columns), with
  * multiplicity-adjusted p-values, and the pooled within-group residuals —
  * the view that matters when the groups feed an ANOVA or a t-test.
  *
@@ -10,7 +11,7 @@ import { cardBundle, cardCharts } from "../render/card.ts";
 import { chartBundle } from "../render/chart_bundle.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
 import { escapeHtml, escapeMarkdown, plainText } from "../render/escape.ts";
-import { formatCount, formatP } from "../results/format.ts";
+import { formatCount, formatNumber, formatP } from "../results/format.ts";
 import { groupSpec } from "../render/group_spec.ts";
 import { qqSparkline } from "../render/sparkline.ts";
 import { tableHtml, tableMarkdown, type TableModel, tableText } from "../render/table.ts";
@@ -28,6 +29,12 @@ import {
   mergedLabelsNote,
   screenGroups,
 } from "./group_screen.ts";
+
+/** A group's serial dependence in a cell: whether it shows, and r₁. */
+function serialCell(a: NonNullable<GroupResult["groups"][number]["analysis"]>): string {
+  const s = a.serial!.result;
+  return `${s.shows ? "dependent" : "no sign"} (r₁ ${formatNumber(s.lagOne.r1, 2)})`;
+}
 
 /**
  * The per-group chain. Create it with `plumb(table, column).by(group)`.
@@ -68,7 +75,14 @@ export class PlumbGroups implements Displayable {
     const rows = r.groups.map((g) => {
       const a = g.analysis;
       if (!a) {
-        return [g.group, formatCount(g.n), ...summary.blanks(7), `not screened: ${g.skipped}`, ""];
+        return [
+          g.group,
+          formatCount(g.n),
+          ...summary.blanks(7),
+          `not screened: ${g.skipped}`,
+          ...(r.order ? [""] : []),
+          "",
+        ];
       }
       const spark = qqSparkline(a.qq, { title: `QQ sparkline of ${a.origin.label}` });
       return [
@@ -77,6 +91,7 @@ export class PlumbGroups implements Displayable {
         ...summary.summaryCells(a),
         formatP(g.adjustedP!),
         VERDICT_SHORT[a.reading.verdict],
+        ...(r.order ? [serialCell(a)] : []),
         { text: "", html: spark },
       ];
     });
@@ -85,6 +100,13 @@ export class PlumbGroups implements Displayable {
         r.groups.filter((g) => g.analysis).length
       } groups screened.`,
     ];
+    if (r.order) {
+      notes.push(
+        `In ${
+          r.order === "file order" ? "file" : r.order
+        } order: serial dependence of each group (lag-1 autocorrelation and runs about the median, Bonferroni), with r₁.`,
+      );
+    }
     const screened = r.groups.flatMap((g) => (g.analysis ? [g.analysis] : []));
     const sub = summary.subsampleNote(screened);
     if (sub) notes.push(sub);
@@ -118,6 +140,7 @@ export class PlumbGroups implements Displayable {
         ...summary.SUMMARY_COLUMNS,
         { title: `${r.adjust === "none" ? "" : "adj. "}p (${adjName})`, align: "right" },
         { title: "reading" },
+        ...(r.order ? [{ title: `in ${r.order === "file order" ? "file" : r.order} order` }] : []),
         { title: "QQ" },
       ],
       rows,
@@ -223,8 +246,11 @@ export class PlumbGroups implements Displayable {
         resMd = card["text/markdown"] ?? "";
         resText = card["text/plain"];
       }
-      const lead =
-        `For an ANOVA or t-test the assumption concerns the residuals, pooled below; the per-group rows show where a departure comes from.`;
+      const lead = r.residuals
+        ? `For an ANOVA or t-test the assumption concerns the residuals, pooled below; the per-group rows show where a departure comes from.`
+        : `Each row screens the values of one ${
+          (r.groupColumns?.length ?? 1) > 1 ? "cell" : "group"
+        }; the rows show where a departure comes from.`;
       return Object.freeze({
         "text/html":
           `<div style="background:#fff;color:#111;font-family:sans-serif;padding:6px">${

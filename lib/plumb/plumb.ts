@@ -27,6 +27,8 @@ import { loadColumn, type Loaded, loadResiduals } from "./_loaded.ts";
 import { cardOf, checkScreenable, withEnvelope } from "./analysis.ts";
 import * as chain from "./_chain_values.ts";
 import type { GroupOptions } from "./group_screen.ts";
+import { CELL_SEPARATOR, groupColumns } from "./group_split.ts";
+import * as order from "./serial_check.ts";
 import { PlumbGroups } from "./groups.ts";
 import { lambdaExplorer } from "./lambda_view.ts";
 import { PlumbQuery } from "./query_chain.ts";
@@ -39,27 +41,21 @@ import { _applyStep } from "./_apply_step.ts";
 import type { PlumbOptions } from "./_chain_options.ts";
 import { pickColumn, type PlumbSource, singleColumn, toTable } from "./source.ts";
 import { checkRequest, type ReexpressRequest, resolveStep, type Step } from "./steps.ts";
+import type { ReexpressionChoice } from "./steps.ts";
 import { stepLabel, stepsData } from "./steps.ts";
 import { stakesOptions, stakesStep, type StakesView, stakesView } from "./stakes_view.ts";
 import { type TestsTable, testsView } from "./tests_view.ts";
 
 export type { PlumbOptions } from "./_chain_options.ts";
 
-/** What a `.reexpress()` request became: the re-expression applied, or none, and why. */
-export interface ReexpressionChoice {
-  /** What was asked for. */
-  readonly request: ReexpressRequest;
-  /** The re-expression applied; `null` when the data are kept as they are. */
-  readonly reexpression: Reexpression | null;
-  /** Why: the search's reason for `"best"`, the shift rule for a log with a chosen shift. */
-  readonly reason: string;
-}
+export type { ReexpressionChoice } from "./steps.ts";
 
 /** Where a chain's values come from: the same for every chain built from one `plumb()`. */
 interface _Root {
   readonly table: Table;
   readonly column: string;
   readonly options: PlumbOptions;
+  readonly order?: order.OrderRequest;
 }
 
 /**
@@ -91,6 +87,7 @@ export class Plumb implements Displayable {
   #sentence: Sentence | undefined;
   #stakes: StakesView | undefined;
   #card: Promise<MimeBundle> | undefined;
+  #sequence: Chart | undefined;
 
   /** @internal Use {@linkcode plumb}. */
   constructor(root: _Root, parent?: Plumb, request?: ReexpressRequest | fitting.ResidualLink) {
@@ -208,16 +205,17 @@ export class Plumb implements Displayable {
     const { values, missing, text } = loaded;
     checkScreenable(this.label, values, missing, text);
     const model = this.#model ? this.#fitted() : undefined;
-    this.#analysis = chain.analyseValues(loaded, {
+    const serial = order.serialOf(this.#root, loaded, model && fitting.basisOf(model));
+    const a = chain.analyseValues(loaded, {
       label: this.label,
       column: this.#root.column,
       transform: this.steps.length ? stepLabel(this.#root.column, this.steps) : undefined,
-      notes: model?.notes,
+      notes: order.notesWith(model?.notes, serial),
     }, {
       qq: this.#root.options.qq,
       envelope: model && this.#envelope(this.#root.options.qq?.level),
     });
-    return this.#analysis;
+    return (this.#analysis = serial ? Object.freeze({ ...a, serial }) : a);
   }
 
   /** The reading (shape in words). */
@@ -225,18 +223,20 @@ export class Plumb implements Displayable {
     return this.analysis().reading;
   }
 
-  /** The same variable (with its re-expressions) screened within each group of a column. */
-  by(column: string, options: GroupOptions | null = {}): PlumbGroups {
+  /** These values screened within each group of a column, or each cell of several (`.by([a, b])`). */
+  by(columns: string | readonly string[], options: GroupOptions | null = {}): PlumbGroups {
     options = checked.groupOptions(options);
     const { table, column: variable, options: own } = this.#root;
-    if (this.#model) fitting.refuseAfterResiduals(".by()");
-    pickColumn(table, column);
+    const cols = groupColumns(table, columns);
     return new PlumbGroups({
       table,
       column: variable,
       steps: () => this.steps,
       options: { dropText: own.dropText, qq: own.qq },
-      groupBy: column,
+      groupBy: cols.join(CELL_SEPARATOR),
+      groupColumns: cols,
+      order: this.#root.order,
+      values: this.#model && (() => fitting.givenValues(this.#load(), this.label, this.#fitted())),
       groupOptions: options,
       stakesModel: () =>
         this.#parent === undefined ? undefined : this.#stakesModel({}) as Reexpression,
@@ -293,6 +293,12 @@ export class Plumb implements Displayable {
   qq(options: QqOptions | null = {}): Chart {
     options = checked.qqOptions(options, ".qq()");
     return this.#chart("qq", options, qqSpec);
+  }
+
+  /** The values (or residuals) in the order named by `plumb(…, { order })`, with the median. */
+  sequence(): Chart {
+    if (!this.#root.order) order.refuseNoOrder(this.label);
+    return (this.#sequence ??= order.sequenceChart(() => this.analysis().serial!, this.label));
   }
 
   /** The detrended QQ plot (deviation from the line, with the envelope). */
@@ -439,5 +445,5 @@ export function plumb(
   const name = single && column !== undefined ? column : options.name ?? "value";
   const table = toTable(source, name);
   const col = pickColumn(table, single ? undefined : column);
-  return new Plumb({ table, column: col, options });
+  return new Plumb({ table, column: col, options, order: order.checkOrder(table, options) });
 }

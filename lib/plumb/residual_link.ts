@@ -7,7 +7,7 @@
  */
 import type { Table } from "../data/table.ts";
 import { PlumbError } from "../errors.ts";
-import type { LinearModelFit } from "../stats/linear_model.ts";
+import { type LinearModelFit, residualBasis } from "../stats/linear_model.ts";
 import { type ResidualEnvelope, residualEnvelope } from "../stats/residual_envelope.ts";
 import {
   type CheckedRequest,
@@ -75,6 +75,20 @@ export function refuseAfterResiduals(step: string): never {
 }
 
 /**
+ * The fit's orthonormal basis for the lag-1 test of its residuals, or
+ * `undefined` when rows fitted exactly were left out (the basis would not
+ * match the residuals shown; the test then centres them as plain values).
+ *
+ * @param r the residuals
+ */
+export function basisOf(
+  r: ResidualValues,
+): { readonly values: Float64Array; readonly rank: number } | undefined {
+  if (r.fit.exactRows.length > 0) return undefined;
+  return { values: residualBasis(r.fit), rank: r.fit.rank };
+}
+
+/**
  * Refuse to show a model where none was fitted.
  *
  * @param label the chain's label
@@ -99,4 +113,33 @@ export function envelopeOf(
   level = 0.95,
 ): (ranks: readonly number[]) => ResidualEnvelope {
   return (ranks) => residualEnvelope(fit, { ranks, level });
+}
+
+/**
+ * A residual chain's values as `.by()` groups them: the residuals at their
+ * table rows, with the chain's label and the residual notes.
+ *
+ * @param loaded the residual chain's values (rows on demand) and counts
+ * @param label the residual chain's label
+ * @param r the residuals
+ */
+export function givenValues(
+  loaded: {
+    readonly values: Float64Array;
+    readonly rows: () => Int32Array;
+    readonly missing: number;
+    readonly text: number;
+  },
+  label: string,
+  r: ResidualValues,
+): {
+  values: Float64Array;
+  rows: Int32Array;
+  label: string;
+  missing: number;
+  text: number;
+  notes: readonly string[];
+} {
+  const { values, missing, text } = loaded;
+  return { values, rows: loaded.rows(), missing, text, label, notes: r.notes };
 }

@@ -208,3 +208,13 @@ export function stepLabel(name: string, steps: readonly Step[]): string {
 export function stepsData(steps: readonly Step[]): Omit<Step, "apply">[] {
   return steps.map((s) => ({ reexpression: s.reexpression, formula: s.formula, note: s.note }));
 }
+
+/** What a `.reexpress()` request became: the re-expression applied, or none, and why. */
+export interface ReexpressionChoice {
+  /** What was asked for. */
+  readonly request: ReexpressRequest;
+  /** The re-expression applied; `null` when the data are kept as they are. */
+  readonly reexpression: Reexpression | null;
+  /** Why: the search's reason for `"best"`, the shift rule for a log with a chosen shift. */
+  readonly reason: string;
+}

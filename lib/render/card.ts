@@ -18,6 +18,7 @@ import { formatCentre, formatCompact, formatCount, formatNumber } from "../resul
 import { evidenceLedger, ledgerHtml, ledgerLines } from "./evidence_ledger.ts";
 import { histogramSpec } from "./histogram_spec.ts";
 import { qqSpec } from "./qq_spec.ts";
+import { sequenceSpec } from "./sequence_spec.ts";
 
 /** Accent colour per verdict (Okabe–Ito); the verdict is always also written out. */
 export const VERDICT_COLOUR: Readonly<Record<Verdict, string>> = Object.freeze({
@@ -69,7 +70,7 @@ export function countsLine(a: Analysis): string {
  * The card's charts, rendered: the QQ plot with its envelope, marked exits
  * and both reference lines (the sd's, solid; the order-statistic slope's,
  * dashed), and a wide, low histogram strip with bins that follow the
- * measurement step.
+ * measurement step; and the values in order, when an order was named.
  *
  * @param a the analysis
  * @param name the variable's name for the charts' titles
@@ -77,8 +78,8 @@ export function countsLine(a: Analysis): string {
 export async function cardCharts(
   a: Analysis,
   name: string,
-): Promise<{ qq: string; histogram: string }> {
-  const [qq, hist] = await Promise.all([
+): Promise<{ qq: string; histogram: string; sequence?: string }> {
+  const [qq, hist, seq] = await Promise.all([
     chartBundle(
       qqSpec(a.qq, {
         name,
@@ -88,8 +89,13 @@ export async function cardCharts(
       }),
     ),
     chartBundle(histogramSpec(a.histogram, { name, width: 560, height: 90 })),
+    a.serial ? chartBundle(sequenceSpec(a.serial, { name })) : undefined,
   ]);
-  return { qq: qq["text/html"] ?? "", histogram: hist["text/html"] ?? "" };
+  return {
+    qq: qq["text/html"] ?? "",
+    histogram: hist["text/html"] ?? "",
+    sequence: seq?.["text/html"],
+  };
 }
 
 /**
@@ -111,7 +117,10 @@ export async function cardCharts(
  * if (!b["text/html"]?.includes("fill &lt;L&gt;") || !b["text/plain"].startsWith("fill <L>")) throw new Error("card");
  * ```
  */
-export function cardBundle(a: Analysis, charts: { qq: string; histogram: string }): MimeBundle {
+export function cardBundle(
+  a: Analysis,
+  charts: { qq: string; histogram: string; sequence?: string },
+): MimeBundle {
   const r = a.reading;
   const colour = VERDICT_COLOUR[r.verdict];
   const ledger = evidenceLedger(a);
@@ -137,6 +146,7 @@ export function cardBundle(a: Analysis, charts: { qq: string; histogram: string 
     }</ul>`,
     `<p style="margin:4px 0;font-style:italic">${escapeHtml(r.sizeNote)}.</p>`,
     `<div style="margin:6px 0">${charts.histogram}</div>`,
+    charts.sequence ? `<div style="margin:6px 0">${charts.sequence}</div>` : "",
     `<div style="margin-top:6px;font-size:85%;color:#444">${
       CARD_CAUTIONS.map((c) => `<p style="margin:2px 0">${escapeHtml(c)}</p>`).join("")
     }</div>`,

@@ -8,6 +8,7 @@
 import type { HistogramData } from "../stats/histogram_data.ts";
 import type { Moments } from "../stats/moments.ts";
 import type { QqData } from "../stats/qq_data.ts";
+import type { SerialDependence } from "../stats/serial_dependence.ts";
 import type { TestResult } from "../stats/result.ts";
 import type { Censoring } from "./censoring.ts";
 import type { Reading } from "./reading.ts";
@@ -54,6 +55,32 @@ export interface Subsample {
   readonly seed: number;
 }
 
+/** The check of serial dependence in a named order, with the values in that order. */
+export interface SerialCheck {
+  /** The order's column, or `"file order"` when asked for explicitly. */
+  readonly order: string;
+  /** What the order column holds: `"numbers"`, `"date-times"`, or `"file"`. */
+  readonly kind: "numbers" | "date-times" | "file";
+  /** Values left out of the check because their order cell is missing. */
+  readonly unordered: number;
+  /** Rows of the table sharing their order value with another (kept in file order among themselves). */
+  readonly tied: number;
+  /** The lag-1 autocorrelation and runs tests and the decision. */
+  readonly result: SerialDependence;
+  /** The median the runs were counted about. */
+  readonly median: number;
+  /**
+   * The values in order for the plot: every value up to 1000, else 500
+   * equal slices by position with each slice's mean, lowest and highest.
+   */
+  readonly points: {
+    readonly position: readonly number[];
+    readonly value: readonly number[];
+    readonly low: readonly number[];
+    readonly high: readonly number[];
+  };
+}
+
 /** Everything plumbline computes about one sample. */
 export interface Analysis {
   /** Where the values came from. */
@@ -88,4 +115,6 @@ export interface Analysis {
    * censored values too, and `primary` is the censored-sample test.
    */
   readonly censoring?: Censoring;
+  /** Serial dependence in the order the user named, when one was named. */
+  readonly serial?: SerialCheck;
 }
