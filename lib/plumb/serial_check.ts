@@ -203,6 +203,10 @@ export function serialNote(c: SerialCheck): string {
     `${runs.runs} runs about the median where ${formatNumber(runs.expected, 3)} are expected ` +
     `(${proseP(runs.pValue)})`;
   const where = c.order === "file order" ? "file order" : `${c.order} order`;
+  const ties = c.tied > 0
+    ? `; ${c.tied} rows share their ${c.order} value with another and are taken in file order ` +
+      `among themselves, which mixes whatever those rows differ in`
+    : "";
   const left = c.unordered > 0
     ? `; ${c.unordered} value${
       c.unordered === 1 ? "" : "s"
@@ -210,7 +214,7 @@ export function serialNote(c: SerialCheck): string {
     : "";
   if (!r.shows) {
     return `No serial dependence shows in ${where}: ${facts}; both tests together at the ` +
-      `${r.alpha} level (Bonferroni)${left}`;
+      `${r.alpha} level (Bonferroni)${left}${ties}`;
   }
   const inflation = l.r1 > 0.05
     ? `, and the variance of a mean is about ${
@@ -220,7 +224,7 @@ export function serialNote(c: SerialCheck): string {
   return `Serial dependence shows in ${where}: ${facts}. Every normality p-value here assumes ` +
     `independent observations, so with dependence like this they are too small or too large ` +
     `by an unknown amount${inflation}; look at the values in order (.sequence()) before ` +
-    `using them${left}`;
+    `using them${left}${ties}`;
 }
 
 /**
