@@ -1,7 +1,8 @@
 // .by([a, b]): groups by the cells of several columns, pooled residuals of
 // the cell-means model; .by() on a residual chain groups the residuals.
 import assert from "node:assert/strict";
-import { plumb, PlumbError } from "../../mod.ts";
+import { plumb } from "../../mod.ts";
+import { assertPlumbError } from "../_shared.ts";
 import { DISPLAY } from "../../lib/results/display.ts";
 
 // Invented: fill volumes on two lines and two shifts, 8 per cell, with a
@@ -54,18 +55,9 @@ Deno.test(".by([a, b]) screens each cell and pools the cell-means residuals", as
 
 Deno.test(".by() refuses an empty list, an unknown column and a column named twice", () => {
   const p = plumb(cells(), "fill");
-  const code = (f: () => unknown) => {
-    try {
-      f();
-    } catch (e) {
-      assert.ok(e instanceof PlumbError);
-      return e.code;
-    }
-    return "none";
-  };
-  assert.equal(code(() => p.by([])), "bad-option");
-  assert.equal(code(() => p.by(["line", "shfit"])), "unknown-column");
-  assert.equal(code(() => p.by(["line", "line"])), "bad-option");
+  assertPlumbError(() => p.by([]), "bad-option", /name a column, or a list of columns/);
+  assertPlumbError(() => p.by(["line", "shfit"]), "unknown-column", /shfit/);
+  assertPlumbError(() => p.by(["line", "line"]), "bad-option", /name each column once/);
 });
 
 Deno.test(".by() on a residual chain groups the studentised residuals", () => {

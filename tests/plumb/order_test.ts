@@ -3,8 +3,9 @@
 // here a small seeded check through the chain (200 series each, fast), the
 // ordering itself, the residual basis, the plot, the words and the errors.
 import assert from "node:assert/strict";
-import { loadTable, plumb, PlumbError, seededRandom, serialDependence } from "../../mod.ts";
+import { loadTable, plumb, seededRandom, serialDependence } from "../../mod.ts";
 import { DISPLAY } from "../../lib/results/display.ts";
+import { assertPlumbError } from "../_shared.ts";
 
 function ar1(n: number, phi: number, seed: number): number[] {
   const rng = seededRandom(seed);
@@ -83,28 +84,27 @@ Deno.test("a long series is plotted as 500 slices; the spec stays bounded", () =
 
 Deno.test("order errors name the column and what to do", () => {
   const data = { t: [1, 2, 3, 4, 5, 6], y: [3, 1, 4, 1, 5, 9] };
-  const code = (f: () => unknown) => {
-    try {
-      f();
-    } catch (e) {
-      assert.ok(e instanceof PlumbError);
-      return [e.code, e.message];
-    }
-    return ["none", ""];
-  };
-  let [c, m] = code(() => plumb(data, "y", { order: "time" }));
-  assert.equal(c, "unknown-column");
-  assert.match(m, /"time" to order the rows by/);
-  [c] = code(() => plumb(data, "y", { order: "t", fileOrder: true }));
-  assert.equal(c, "bad-option");
-  [c, m] = code(() => plumb(data, "y").sequence());
-  assert.equal(c, "bad-option");
-  assert.match(m, /no order was named, and file order is not assumed to be time order/);
-  [c, m] = code(() =>
-    plumb({ t: ["mon", "tue", "wed", "thu"], y: [1, 2, 4, 3] }, "y", { order: "t" }).analysis()
+  assertPlumbError(
+    () => plumb(data, "y", { order: "time" }),
+    "unknown-column",
+    /"time" to order the rows by/,
   );
-  assert.equal(c, "non-numeric");
-  assert.match(m, /ISO 8601/);
+  assertPlumbError(
+    () => plumb(data, "y", { order: "t", fileOrder: true }),
+    "bad-option",
+    /not both/,
+  );
+  assertPlumbError(
+    () => plumb(data, "y").sequence(),
+    "bad-option",
+    /no order was named, and file order is not assumed to be time order/,
+  );
+  assertPlumbError(
+    () =>
+      plumb({ t: ["mon", "tue", "wed", "thu"], y: [1, 2, 4, 3] }, "y", { order: "t" }).analysis(),
+    "non-numeric",
+    /ISO 8601/,
+  );
 });
 
 Deno.test(".by(line) with an order checks each line in time order: the drifting line stands out", async () => {

@@ -7,6 +7,7 @@ import assert from "node:assert/strict";
 import { loadTable, plumb, PlumbError } from "../../mod.ts";
 import { DISPLAY } from "../../lib/results/display.ts";
 import { assertClose } from "../_assert_close.ts";
+import { assertPlumbError } from "../_shared.ts";
 
 interface Case {
   name: string;
@@ -129,41 +130,32 @@ Deno.test("residual chain errors name the column and what to do", () => {
     flat: new Array(60).fill(3),
   };
   const p = plumb(data, "fill_ml");
-  const code = (f: () => unknown) => {
-    try {
-      f();
-    } catch (e) {
-      assert.ok(e instanceof PlumbError);
-      return [e.code, e.message];
-    }
-    assert.fail("no error");
-  };
-  let [c, m] = code(() => p.residuals({ covariates: ["line"] }).values());
-  assert.equal(c, "non-numeric");
-  assert.match(
-    m,
+  assertPlumbError(
+    () => p.residuals({ covariates: ["line"] }).values(),
+    "non-numeric",
     /^Cannot use line as a covariate: it holds text such as "A"; list it under factors/,
   );
-  [c, m] = code(() => p.residuals({ covariates: ["flat"] }).values());
-  assert.equal(c, "constant");
-  assert.match(m, /flat/);
-  [c, m] = code(() => p.residuals({ covariates: ["tmp_c"] }));
-  assert.equal(c, "unknown-column");
-  assert.match(m, /tmp_c/);
-  [c, m] = code(() => p.residuals({ covarites: ["temp_c"] } as never));
-  assert.equal(c, "bad-option");
-  assert.match(m, /did you mean "covariates"/);
-  [c, m] = code(() => p.residuals({ covariates: ["fill_ml"] }));
-  assert.equal(c, "bad-option");
-  [c] = code(() => p.residuals({ factors: ["line"] }).reexpress("log"));
-  assert.equal(c, "bad-option");
-  [c, m] = code(() => p.model());
-  assert.equal(c, "bad-option");
+  assertPlumbError(() => p.residuals({ covariates: ["flat"] }).values(), "constant", /flat/);
+  assertPlumbError(() => p.residuals({ covariates: ["tmp_c"] }), "unknown-column", /tmp_c/);
+  assertPlumbError(
+    () => p.residuals({ covarites: ["temp_c"] } as never),
+    "bad-option",
+    /did you mean "covariates"/,
+  );
+  assertPlumbError(() => p.residuals({ covariates: ["fill_ml"] }), "bad-option", /fill_ml/);
+  assertPlumbError(
+    () => p.residuals({ factors: ["line"] }).reexpress("log"),
+    "bad-option",
+    /on a chain of residuals/,
+  );
+  assertPlumbError(() => p.model(), "bad-option", /no model was fitted/);
   // too few residual degrees of freedom: 5 rows, 3 parameters
   const small = { y: [1, 2, 4, 3, 5], g: ["a", "b", "c", "a", "b"] };
-  [c, m] = code(() => plumb(small, "y").residuals({ factors: ["g"] }).values());
-  assert.equal(c, "too-few");
-  assert.match(m, /residual degrees of freedom, and at least 3 are needed/);
+  assertPlumbError(
+    () => plumb(small, "y").residuals({ factors: ["g"] }).values(),
+    "too-few",
+    /residual degrees of freedom, and at least 3 are needed/,
+  );
 });
 
 Deno.test("collinear covariates: refused by name, or dropped on request with no NaN", () => {
