@@ -174,7 +174,13 @@ export function analyse(
   });
   const notes = origin.notes ?? [];
   return Object.freeze({
-    origin: Object.freeze({ ...origin, rows: undefined }),
+    // No notes key when there are none, so that analyses compare equal however made.
+    origin: Object.freeze({
+      ...origin,
+      rows: undefined,
+      notes: undefined,
+      ...(notes.length ? { notes } : {}),
+    }),
     n,
     moments: m,
     primary,
