@@ -267,7 +267,7 @@ NOTEBOOKS = {
                  '(await plumb(steady, "fill_ml").sentence()).text;'),
         ("code", "await Deno.remove(dir, { recursive: true });"),
     ],
-    "06_models_and_order.ipynb": [
+    "08_models_and_order.ipynb": [
         ("md", "# Residuals of a model, two grouping columns, and the order of the checks\n\n"
          "*The data are invented*: a seeded simulation of a week of in-process fill checks at the "
          "same fictional bottling plant (`demo/filling_log.csv`, written by "
