@@ -53,7 +53,7 @@ export interface AnalyseOptions {
   /**
    * The row label of the value at a 0-based position, asked only for the QQ
    * points drawn (at most `qq.maxPoints`), so that no label is built for the
-   * other values; used in place of `origin.rows`.
+   * other values and the few the reading names; used in place of `origin.rows`.
    * @default `origin.rows[position]`, or the position itself
    */
   readonly rowLabel?: (position: number) => number;
@@ -168,6 +168,7 @@ export function analyse(
     sortedSample: sorted,
     values,
     rows: origin.rows,
+    rowLabel: options.rowLabel,
     step: options.step,
     subsample,
     subsampleSorted: subSorted,

@@ -51,6 +51,8 @@ export interface ReadingInput {
   readonly sortedSample?: Float64Array;
   /** Row labels aligned with `values` (1-based data rows), to name outliers by row. */
   readonly rows?: ArrayLike<number>;
+  /** The row label of the value at a 0-based position, in place of `rows`. */
+  readonly rowLabel?: (position: number) => number;
   /**
    * The measurement step of the data these values come from (residuals
    * inherit their data's step); `null` for none.
@@ -87,13 +89,13 @@ function _resolution(sorted: Float64Array): number {
 /** Rows of the values that satisfy `pick`, at most `limit`, in data order. */
 function _rowsWhere(
   values: ArrayLike<number>,
-  rows: ArrayLike<number> | undefined,
+  rowOf: (position: number) => number,
   pick: (v: number) => boolean,
   limit: number,
 ): number[] {
   const out: number[] = [];
   for (let i = 0; i < values.length && out.length < limit; i++) {
-    if (pick(values[i])) out.push(rows ? rows[i] : i + 1);
+    if (pick(values[i])) out.push(rowOf(i));
   }
   return out;
 }
@@ -116,6 +118,8 @@ function _rowsWhere(
  */
 export function readShape(input: ReadingInput): Reading {
   const { n, moments: m, primary, qq } = input;
+  const rows = input.rows;
+  const rowOf = input.rowLabel ?? (rows ? (i: number) => rows[i] : (i: number) => i + 1);
   const rules = READING_RULES;
   const sorted = input.sortedSample ?? sortFloat64(Float64Array.from(input.values));
   // A query source hands over a seeded sample of its values (fewer than n, no rows):
@@ -174,7 +178,7 @@ export function readShape(input: ReadingInput): Reading {
     const v = o.values[k];
     const skip = seen.get(v) ?? 0;
     seen.set(v, skip + 1);
-    const rows = rowsWhere(input.values, input.rows, (x) => x === v, skip + 1);
+    const rows = rowsWhere(input.values, rowOf, (x) => x === v, skip + 1);
     const row = rows[skip] ?? rows[0] ?? -1;
     outlierValues.push(Object.freeze({ value: v, row, side: o.sides[k] }));
   }
@@ -192,7 +196,7 @@ export function readShape(input: ReadingInput): Reading {
       count: c.count,
       share: c.count / ns,
       gap: c.gap,
-      rows: Object.freeze(rowsWhere(input.values, input.rows, inCluster, 10)),
+      rows: Object.freeze(rowsWhere(input.values, rowOf, inCluster, 10)),
     });
   }
 

@@ -3,7 +3,7 @@
  * the tests; every result must be exactly what the public functions give on
  * the same values (the same doubles, not merely close).
  */
-import { deepEqual, equal, throws } from "node:assert/strict";
+import { deepEqual, equal, ok, throws } from "node:assert/strict";
 import { PlumbError } from "../../lib/errors.ts";
 import { randomSubsample, seededRandom } from "../../lib/numeric/random.ts";
 import { SPLIT_MIN_N } from "../../lib/numeric/sort.ts";
@@ -190,4 +190,33 @@ Deno.test(".by() gives each group exactly analyse() of its values, and the table
   equal(r.residuals?.n, pooled.length);
   deepEqual(r.residuals?.moments, moments(pooled));
   equal(r.residuals?.primary.statistic, shapiroWilk(pooled).statistic);
+});
+
+Deno.test("plumb() and survey() with missing cells: the analysis names the table's rows", async () => {
+  const { loadTable } = await import("../../lib/data/load_table.ts");
+  const { plumb } = await import("../../lib/plumb/plumb.ts");
+  const { survey } = await import("../../lib/plumb/survey.ts");
+  const rng = seededRandom(8);
+  const fill: (number | null)[] = [];
+  for (let i = 0; i < 400; i++) fill.push(i % 7 === 0 ? null : Math.exp(1.2 * rng.normal()));
+  const table = await loadTable({ fill });
+  const rows: number[] = [];
+  for (let i = 0; i < fill.length; i++) if (fill[i] !== null) rows.push(i);
+  const v = Float64Array.from(rows, (i) => fill[i] as number);
+  const a = analyse(v, {
+    ...ORIGIN,
+    label: "fill",
+    column: "fill",
+    transform: undefined,
+    missingDropped: fill.length - rows.length,
+    rows: Int32Array.from(rows, (i) => i + 1),
+  });
+  const p = plumb(table, "fill").analysis();
+  for (const k of ["moments", "primary", "tests", "qq", "histogram", "reading"] as const) {
+    deepEqual(p[k], a[k], k);
+  }
+  ok(a.reading.facts.outliers.count > 0, "the sample has outliers, named by row");
+  const s = survey(table).result().rows[0].analysis!;
+  deepEqual(s.reading, a.reading);
+  deepEqual(s.qq, a.qq);
 });
