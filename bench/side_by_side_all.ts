@@ -221,6 +221,7 @@ async function _runOnce(filter: string, rows: Map<string, _Row>): Promise<void> 
     row.ours.push(ours);
     row.ref.push(ref);
     rows.set(name, row);
+    console.log(`  ${name}: ${fmtTime(ours)} / ${fmtTime(ref)} = ${(ours / ref).toFixed(2)}`);
   };
   for (const c of CASES.filter((k) => k.name.includes(filter))) {
     const x = c.data();
@@ -268,7 +269,10 @@ async function _writeReadme(file: string, block: string): Promise<void> {
   const a = text.indexOf(open);
   const b = text.indexOf(close);
   if (a < 0 || b < a) throw new Error(`${file} has no ${open} … ${close} block`);
-  await Deno.writeTextFile(file, `${text.slice(0, a + open.length)}\n${block}\n${text.slice(b)}`);
+  await Deno.writeTextFile(
+    file,
+    `${text.slice(0, a + open.length)}\n\n${block}\n\n${text.slice(b)}`,
+  );
 }
 
 if (import.meta.main) {
