@@ -89,7 +89,24 @@ export async function writeReport(table: Table, options: ReportOptions = {}): Pr
         `<h3>${escapeHtml(col)} by ${escapeHtml(options.by)}</h3>${await _html(p.by(options.by))}`,
       );
     }
-    if (row.analysis.reading.verdict !== "no-clear-departure") {
+    const c = row.analysis.censoring;
+    if (c && row.analysis.reading.verdict !== "no-clear-departure") {
+      // The ranked panel needs measured values; the survey's suggestion uses the censored λ.
+      parts.push(
+        `<h3>Re-expressions of ${escapeHtml(col)}</h3><p>${
+          escapeHtml(
+            `${c.left + c.right} values are censored, so the ranked panel (tests for measured ` +
+              `values) is not shown; the ladder power nearest the censored Box–Cox λ is ` +
+              `${row.suggestion ?? "none"}.`,
+          )
+        }</p>`,
+      );
+      if (row.suggestion === "ln(x)") {
+        const logged = p.reexpress("log");
+        parts.push(`<h3>${escapeHtml(logged.label)}</h3>${await _html(logged)}`);
+        sentences.push(logged.sentence().text);
+      }
+    } else if (row.analysis.reading.verdict !== "no-clear-departure") {
       parts.push(`<h3>Re-expressions of ${escapeHtml(col)}</h3>${await _html(p.candidates())}`);
       const best = p.reexpress("best");
       if (best.steps.length > 0) {

@@ -3,6 +3,7 @@ import { loadTable } from "../../lib/data/load_table.ts";
 import { PlumbError } from "../../lib/errors.ts";
 import { seededRandom } from "../../lib/numeric/random.ts";
 import { plumb } from "../../lib/plumb/plumb.ts";
+import { writeReport } from "../../lib/plumb/report.ts";
 import { survey } from "../../lib/plumb/survey.ts";
 import { censoredNormalFit } from "../../lib/stats/censored_fit.ts";
 import { censoredShapiroFrancia } from "../../lib/stats/censored_normality.ts";
@@ -254,4 +255,16 @@ Deno.test("the chain's ML mean and sd match R survival::survreg to 1e-6 relative
     checked++;
   }
   assert.ok(checked >= 5, `${checked} fixture cases checked through the chain`);
+});
+
+Deno.test("the report screens a censored column and says why the ranked panel is not shown", async () => {
+  const rng = seededRandom(41);
+  const x = Array.from({ length: 80 }, () => Math.exp(1 + 0.8 * rng.normal()));
+  const t = await loadTable({ oxygen_ppb: x.map((v) => (v < 1.5 ? "<1.5" : v.toFixed(2))) });
+  const r = await writeReport(t);
+  assert.match(
+    r.html,
+    /values are censored, so the ranked panel \(tests for measured values\) is not shown/,
+  );
+  assert.ok(r.sentences.some((s) => /values censored, reported below a limit/.test(s)));
 });
