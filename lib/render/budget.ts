@@ -7,7 +7,7 @@
  *
  * @module
  */
-import type { MimeBundle } from "./display.ts";
+import type { MimeBundle } from "../results/display.ts";
 import { formatCount } from "./format.ts";
 
 /** The most bytes one display output may hold, all MIME types together. */
