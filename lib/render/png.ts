@@ -215,6 +215,8 @@ export function pngSize(bytes: Uint8Array): PngSize | undefined {
   if (bytes.length < 24) return undefined;
   for (let i = 0; i < 8; i++) if (bytes[i] !== _SIGNATURE[i]) return undefined;
   const v = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
-  if (String.fromCharCode(...bytes.subarray(12, 16)) !== "IHDR") return undefined;
+  if (bytes[12] !== 0x49 || bytes[13] !== 0x48 || bytes[14] !== 0x44 || bytes[15] !== 0x52) {
+    return undefined; // not "IHDR"
+  }
   return { width: v.getUint32(16), height: v.getUint32(20) };
 }

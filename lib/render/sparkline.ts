@@ -45,6 +45,18 @@ export interface SparklineOptions {
   readonly maxPoints?: number;
 }
 
+/** Smallest and largest of two lists (a loop: no argument spread of unbounded length). */
+function _range(a: readonly number[], b: readonly number[]): [number, number] {
+  let lo = Infinity, hi = -Infinity;
+  for (const list of [a, b]) {
+    for (const v of list) {
+      if (v < lo) lo = v;
+      if (v > hi) hi = v;
+    }
+  }
+  return [lo, hi];
+}
+
 const _r = (v: number) => (Math.round(v * 10) / 10).toString();
 
 /**
@@ -70,9 +82,9 @@ export function qqSparkline(d: SparklineData, options: SparklineOptions = {}): s
   else for (let k = 0; k < max; k++) pick.push(Math.round((k * (m - 1)) / (max - 1)));
   const zs = pick.map((i) => d.z[i]);
   const vs = pick.map((i) => d.value[i]);
-  const zMin = Math.min(...zs), zMax = Math.max(...zs);
+  const [zMin, zMax] = _range(zs, []);
   const line = [zMin, zMax].map((z) => d.mean + d.sd * z);
-  const vMin = Math.min(...vs, ...line), vMax = Math.max(...vs, ...line);
+  const [vMin, vMax] = _range(vs, line);
   const sx = (z: number) => 3 + ((z - zMin) / (zMax - zMin || 1)) * (w - 6);
   const sy = (v: number) => h - 3 - ((v - vMin) / (vMax - vMin || 1)) * (h - 6);
   const dots = pick.map((i, k) => {

@@ -91,7 +91,10 @@ export function tableMarkdown(t: TableModel): string {
   out.push(line(t.columns.map((c) => escapeMarkdown(c.title))));
   out.push(line(t.columns.map((c) => (c.align === "right" ? "---:" : ":---"))));
   for (const r of t.rows) out.push(line(r.map((c) => escapeMarkdown(_text(c)))));
-  if (t.notes?.length) out.push("", ...t.notes.map((n) => escapeMarkdown(n)));
+  if (t.notes?.length) {
+    out.push("");
+    for (const n of t.notes) out.push(escapeMarkdown(n));
+  }
   return out.join("\n");
 }
 
@@ -112,7 +115,12 @@ export function tableText(t: TableModel): string {
     t.columns.map((c) => plainText(c.title)),
     ...t.rows.map((r) => r.map((c) => plainText(_text(c)))),
   ];
-  const widths = t.columns.map((_, i) => Math.max(...rows.map((r) => [...(r[i] ?? "")].length)));
+  // A loop, not Math.max(...rows): a spread of 130,000 rows overflows the call stack.
+  const widths = t.columns.map((_, i) => {
+    let w = 0;
+    for (const r of rows) w = Math.max(w, [...(r[i] ?? "")].length);
+    return w;
+  });
   const pad = (s: string, i: number) => {
     const gap = " ".repeat(widths[i] - [...s].length);
     return t.columns[i].align === "right" ? gap + s : s + gap;
