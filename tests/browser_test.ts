@@ -57,7 +57,7 @@ Deno.test({
     browser = await Browser.launch();
     try {
       await t.step(
-        "every committed notebook shows its charts as SVG, loads nothing remote, runs no planted script",
+        "every committed notebook shows its charts as pictures, loads nothing remote, runs no planted script",
         async () => {
           const notebooks = [...Deno.readDirSync(NOTEBOOKS)]
             .filter((e) => e.name.endsWith(".ipynb"))
@@ -122,7 +122,7 @@ Deno.test({
             report.errors.join("\n"),
           );
           const problems = report.problems.join("\n");
-          assert.match(problems, /Output 3 carries a Vega-Lite chart but shows no visible SVG/);
+          assert.match(problems, /Output 3 carries a Vega-Lite chart but shows no visible picture/);
           assert.match(problems, /tried to load from outside the machine: http:\/\/127\.0\.0\.1:9/);
           assert.match(problems, /logged errors: .*planted error/);
           assert.match(problems, /planted in an output ran/);

@@ -1,7 +1,7 @@
 /**
  * The demo notebooks reproduce their committed outputs in a real Jupyter kernel, and the
  * runner that checks them fails on error outputs, failed cells, stale outputs and charts
- * without a static SVG. Skipped (with a message) where Jupyter or the Deno kernel is
+ * without a static picture. Skipped (with a message) where Jupyter or the Deno kernel is
  * missing; PLUMBLINE_REQUIRE_NOTEBOOKS=1 makes that a failure.
  */
 
@@ -176,7 +176,7 @@ Deno.test({
 });
 
 Deno.test({
-  name: "run_notebooks: a Vega-Lite output without a static SVG fails the run",
+  name: "run_notebooks: a Vega-Lite output without a static picture fails the run",
   ignore: skip,
   async fn() {
     const dir = await Deno.makeTempDir({ prefix: "plumbline_nb_" });

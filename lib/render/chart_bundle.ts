@@ -1,7 +1,10 @@
 /**
  * A chart as a display bundle: the Vega-Lite spec for front ends that run
- * Vega, the same chart as static SVG inside `text/html` for those that do
- * not (code hosts, exported HTML), and a plain-text summary.
+ * Vega-Lite (JupyterLab, VS Code), the same chart as a PNG `<img>` inside
+ * `text/html` for every other viewer (the classic Notebook page trusted or
+ * not, exported HTML with or without JavaScript, code hosts), and a
+ * plain-text summary. Why a PNG `<img>` and not inline SVG: see
+ * chart_image.ts.
  *
  * @module
  */
@@ -14,8 +17,9 @@ import {
   type ReadyDisplayable,
   VEGALITE_MIME,
 } from "../results/display.ts";
+import { OUTPUT_BUDGET } from "./budget.ts";
+import { chartImageHtml, drawChart, type DrawnChart } from "./chart_image.ts";
 import { plainText } from "./escape.ts";
-import { accessibleSvg, renderSvg } from "./svg.ts";
 
 /** Options for {@linkcode chartBundle} and {@linkcode chart}. */
 export interface ChartMeta {
@@ -29,6 +33,13 @@ export interface ChartMeta {
    * @default the spec's `description`, or the title
    */
   readonly description?: string;
+  /**
+   * The most bytes the chart's PNG may take; a larger one is drawn at a lower
+   * scale. Views holding several charts share the output's 300 KB this way.
+   * @default 100,000, or less when the spec is large, so that spec and
+   * picture together stay within one output's budget
+   */
+  readonly maxPngBytes?: number;
 }
 
 function _text(t: unknown): string {
@@ -47,10 +58,34 @@ export function _specTitle(spec: TopLevelSpec): string {
   return _text(o.text) + (sub ? ` — ${sub}` : "");
 }
 
+/** A spec's title and description for its picture: from `meta`, else from the spec. */
+export function chartMeta(
+  spec: TopLevelSpec,
+  meta: ChartMeta = {},
+): { title: string; description: string } {
+  const title = meta.title ?? (_specTitle(spec) || "Chart");
+  const description = meta.description ??
+    ((spec as { description?: string }).description ?? title);
+  return { title, description };
+}
+
+/**
+ * The bundle of a chart already drawn: `application/vnd.vegalite.v5+json`,
+ * `text/html` (a `<div>` holding the PNG as an `<img>` with the title and
+ * description as alt text) and `text/plain`.
+ */
+export function drawnChartBundle(spec: TopLevelSpec, drawn: DrawnChart): MimeBundle {
+  return Object.freeze({
+    [VEGALITE_MIME]: spec,
+    "text/html": chartImageHtml(drawn),
+    "text/plain": plainText(`${drawn.title}\n${drawn.description}`),
+  });
+}
+
 /**
  * Build the bundle of a chart: `application/vnd.vegalite.v5+json`,
- * `text/html` (a `<div>` holding vega's static SVG with `<title>` and
- * `<desc>`) and `text/plain`.
+ * `text/html` (a `<div>` holding the chart's PNG as an `<img>` with the title
+ * and description as alt text) and `text/plain`.
  *
  * @param spec a Vega-Lite 5 spec with inline data
  * @param meta title and description (defaults from the spec)
@@ -63,21 +98,17 @@ export function _specTitle(spec: TopLevelSpec): string {
  *   mark: "tick",
  *   encoding: { x: { field: "a", type: "quantitative" } },
  * }, { title: "One tick", description: "A single tick at 1." });
- * if (!b["text/html"]?.includes("<desc")) throw new Error("html");
+ * if (!b["text/html"]?.includes('alt="One tick. A single tick at 1."')) throw new Error("html");
  * ```
  */
 export async function chartBundle(spec: TopLevelSpec, meta: ChartMeta = {}): Promise<MimeBundle> {
-  const title = meta.title ?? (_specTitle(spec) || "Chart");
-  const description = meta.description ??
-    ((spec as { description?: string }).description ?? title);
-  const svg = accessibleSvg(await renderSvg(spec), { title, description });
-  const html = `<div class="plumbline-chart" style="display:inline-block;max-width:100%;` +
-    `overflow-x:auto;background:#ffffff;border-radius:4px">${svg}</div>`;
-  return Object.freeze({
-    [VEGALITE_MIME]: spec,
-    "text/html": html,
-    "text/plain": plainText(`${title}\n${description}`),
-  });
+  // The spec travels beside the picture: what it leaves of the output's budget
+  // (less a margin for the text parts), in PNG bytes (base64 takes 4/3). A
+  // notebook stores the spec as JSON with a space after every separator: 1.25×.
+  const specBytes = new TextEncoder().encode(JSON.stringify(spec)).length;
+  const room = Math.floor(((OUTPUT_BUDGET - 20_000 - 1.25 * specBytes) * 3) / 4);
+  const maxPngBytes = Math.max(10_000, Math.min(meta.maxPngBytes ?? Infinity, room));
+  return drawnChartBundle(spec, await drawChart(spec, { ...chartMeta(spec, meta), maxPngBytes }));
 }
 
 /** A chart that notebooks can display, with its spec. */

@@ -35,7 +35,8 @@ export interface DrawnChart {
  *
  * @param spec a Vega-Lite 5 spec with inline data
  * @param meta the chart's title and description (for `<title>`/`<desc>`, the
- *   PNG's text chunks and the `<img>`'s alt text)
+ *   PNG's text chunks and the `<img>`'s alt text), and the most bytes its PNG
+ *   may take (at most, and by default, {@linkcode MAX_CHART_PNG_BYTES})
  * @example
  * ```ts
  * import { drawChart } from "./chart_image.ts";
@@ -48,12 +49,27 @@ export interface DrawnChart {
  */
 export async function drawChart(
   spec: TopLevelSpec,
-  meta: { readonly title: string; readonly description: string },
+  meta: {
+    readonly title: string;
+    readonly description: string;
+    readonly maxPngBytes?: number;
+  },
 ): Promise<DrawnChart> {
-  const svg = accessibleSvg(await renderSvg(spec), meta);
-  const raster = await rasterize(svg, meta);
-  return Object.freeze({ title: meta.title, description: meta.description, svg, raster });
+  const { title, description } = meta;
+  const max = Math.min(meta.maxPngBytes ?? MAX_CHART_PNG_BYTES, MAX_CHART_PNG_BYTES);
+  const svg = accessibleSvg(await renderSvg(spec), { title, description });
+  // 2× keeps text sharp on high-density screens; a panel whose PNG would pass
+  // its budget is drawn at 1.5×, then 1×, then 0.75×.
+  let raster = await rasterize(svg, { title, description, scale: 2 });
+  for (const scale of [1.5, 1, 0.75]) {
+    if (raster.png.length <= max) break;
+    raster = await rasterize(svg, { title, description, scale });
+  }
+  return Object.freeze({ title, description, svg, raster });
 }
+
+/** The most bytes a chart's PNG should take (larger panels are drawn at a lower scale). */
+export const MAX_CHART_PNG_BYTES = 100_000;
 
 /** The PNG as a `data:` URL. */
 export function pngDataUrl(png: Uint8Array): string {

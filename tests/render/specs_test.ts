@@ -1,6 +1,8 @@
 import assert from "node:assert/strict";
 import { compile } from "vega-lite";
-import { chartBundle } from "../../lib/render/chart_bundle.ts";
+import { chartBundle, chartMeta } from "../../lib/render/chart_bundle.ts";
+import { drawChart } from "../../lib/render/chart_image.ts";
+import { pngSize } from "../../lib/render/png.ts";
 import { VEGALITE_MIME } from "../../lib/results/display.ts";
 import { renderSvg } from "../../lib/render/svg.ts";
 import { KINDS, specsFor } from "./_samples.ts";
@@ -34,18 +36,35 @@ for (const kind of KINDS) {
     assert.ok(svg.endsWith("</svg>"));
   });
 
-  Deno.test(`${kind}: the bundle holds Vega-Lite, HTML with an accessible SVG, and plain text`, async () => {
+  Deno.test(`${kind}: the bundle holds Vega-Lite, HTML with the chart's PNG, and plain text`, async () => {
     const b = await chartBundle(specs[kind]);
     assert.deepEqual(Object.keys(b).sort(), [VEGALITE_MIME, "text/html", "text/plain"].sort());
     const html = b["text/html"]!;
-    assert.match(
-      html,
-      /^<div class="plumbline-chart"[^>]*><svg [^>]*role="img" aria-labelledby="([^"]+)-title \1-desc"><title id="\1-title">/,
+    const m = html.match(
+      /^<div class="plumbline-chart"[^>]*><img src="data:image\/png;base64,([^"]+)" width="(\d+)" height="(\d+)" alt="([^"]+)"/,
     );
-    assert.match(html, /<desc id="[^"]+-desc">[^<]{40,}<\/desc>/);
+    assert.ok(m, html.slice(0, 200));
+    const png = Uint8Array.from(atob(m[1]), (c) => c.charCodeAt(0));
+    const size = pngSize(png)!;
+    // Drawn at 2× (1.5×, 1× or 0.75× for a panel whose PNG would pass its budget), shown at 1×.
+    assert.ok(
+      [2, 1.5, 1, 0.75].some((k) => Math.abs(size.width - Number(m[2]) * k) <= 1),
+      `${size.width}`,
+    );
+    assert.ok(png.length <= 100_000, `${kind}: ${png.length} bytes`);
+    assert.ok(m[4].length >= 40, "the alt text says what the chart shows");
     assert.ok(!b["text/plain"].includes("\u001b"), "no ANSI codes");
     assert.ok(b["text/plain"].startsWith("fill volume (mL)"));
     assert.equal(b[VEGALITE_MIME], specs[kind]);
+  });
+
+  Deno.test(`${kind}: the drawn SVG is accessible (role, title, description)`, async () => {
+    const drawn = await drawChart(specs[kind], chartMeta(specs[kind]));
+    assert.match(
+      drawn.svg,
+      /^<svg [^>]*role="img" aria-labelledby="([^"]+)-title \1-desc"><title id="\1-title">/,
+    );
+    assert.match(drawn.svg, /<desc id="[^"]+-desc">[^<]{40,}<\/desc>/);
   });
 }
 

@@ -2,8 +2,8 @@
  * Checks executed notebooks the way a reader sees them: exports each one to HTML with
  * nbconvert, opens the page in headless Chromium and checks that
  *
- * - every output that carries a Vega-Lite spec shows as a visible SVG with marks in it
- *   (the static fallback a reader sees where no JavaScript runs),
+ * - every output that carries a Vega-Lite spec shows a visible picture: a loaded `<img>`
+ *   or an SVG with marks in it (the static fallback a reader sees where no Vega-Lite runs),
  * - the page logs no console error and throws no exception,
  * - the page requests nothing but file/data/about/blob URLs (anything else is blocked
  *   before it leaves the machine, and reported),
@@ -71,13 +71,13 @@ async function _exportNotebookHtml(
   return `${outDir}/${stem}.html`;
 }
 
-/** One output's SVG as laid out on the page. */
+/** One output's picture (PNG `<img>` or SVG) as laid out on the page. */
 export interface ChartBox {
   /** Index of the output among all outputs of the notebook, in page order. */
   output: number;
   width: number;
   height: number;
-  /** Visible path/rect/circle/line/polygon/ellipse/use/text elements inside it. */
+  /** Visible path/rect/circle/line/polygon/ellipse/use/text elements inside an SVG; 1 for a loaded image. */
   marks: number;
 }
 
@@ -92,7 +92,7 @@ export interface NotebookPageReport {
   external: string[];
   /** Console errors, uncaught exceptions and browser log errors. */
   errors: string[];
-  /** The largest SVG of each output that carries a Vega-Lite spec. */
+  /** The picture with the most marks of each output that carries a Vega-Lite spec. */
   charts: ChartBox[];
   /** True when a script planted in an output ran (`window.__pwned` was set). */
   scriptRan: boolean;
@@ -116,15 +116,15 @@ const _MEASURE = `(() => {
   const marks = "path, rect, circle, line, polygon, polyline, ellipse, use, text";
   const visible = (el) => { const b = el.getBoundingClientRect(); return b.width > 0 || b.height > 0; };
   return [...document.querySelectorAll(".jp-OutputArea-child")].map((child) =>
-    [...child.querySelectorAll("svg")]
-      .filter((svg) => !svg.parentElement.closest("svg"))
-      .map((svg) => {
-        const b = svg.getBoundingClientRect();
-        return {
-          width: b.width,
-          height: b.height,
-          marks: [...svg.querySelectorAll(marks)].filter(visible).length,
-        };
+    [...child.querySelectorAll("svg, img")]
+      .filter((pic) => !pic.parentElement.closest("svg"))
+      .map((pic) => {
+        const b = pic.getBoundingClientRect();
+        // A loaded image counts as one mark; an SVG by its visible marks.
+        const n = pic.tagName.toLowerCase() === "img"
+          ? (pic.complete && pic.naturalWidth > 0 ? 1 : 0)
+          : [...pic.querySelectorAll(marks)].filter(visible).length;
+        return { width: b.width, height: b.height, marks: n };
       })
   );
 })()`;
@@ -187,7 +187,7 @@ export async function checkNotebookPage(
         const best = svgs.toSorted((a, b) => b.marks - a.marks)[0];
         if (best === undefined || best.width <= 0 || best.height <= 0 || best.marks === 0) {
           problems.push(
-            `Output ${index} carries a Vega-Lite chart but shows no visible SVG with marks: ` +
+            `Output ${index} carries a Vega-Lite chart but shows no visible picture: ` +
               `found ${JSON.stringify(svgs)}`,
           );
         }
