@@ -100,5 +100,5 @@ export function chartImageHtml(chart: DrawnChart): string {
   return `<div class="plumbline-chart" style="display:inline-block;max-width:100%;` +
     `overflow-x:auto;background:#ffffff;border-radius:4px;line-height:0">` +
     `<img src="${pngDataUrl(chart.raster.png)}" width="${width}" height="${height}" ` +
-    `alt="${alt}" title="${escapeHtml(chart.title)}" style="max-width:100%;height:auto"></div>`;
+    `alt="${alt}" title="${escapeHtml(chart.title)}" style="max-width:100%;height:auto"/></div>`;
 }

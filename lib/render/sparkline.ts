@@ -1,10 +1,15 @@
 /**
  * A QQ sparkline: a tiny static SVG of ordered values against normal
  * scores with the fitted line, for one row of a screening table. Drawn
- * directly (no Vega) so that a 20-row table stays small and fast.
+ * directly (no Vega) so that a table stays small and fast, and shown as an
+ * `<img>` whose source is the SVG itself (a `data:` URL): Jupyter's sanitiser
+ * removes inline `<svg>` from an untrusted notebook but keeps `<img>`, and
+ * the class `unconfined` keeps the classic page from squeezing it in a table
+ * cell.
  *
  * @module
  */
+import { Buffer } from "node:buffer";
 import { escapeHtml } from "./escape.ts";
 import { PALETTE } from "./theme.ts";
 
@@ -60,7 +65,9 @@ function _range(a: readonly number[], b: readonly number[]): [number, number] {
 const _r = (v: number) => (Math.round(v * 10) / 10).toString();
 
 /**
- * A QQ sparkline as an SVG string, with `<title>`; deterministic.
+ * A QQ sparkline as HTML: an `<img>` of a small SVG (points as round dots on
+ * two paths, the fitted line, a `<title>`), with the title as alt text;
+ * deterministic.
  *
  * @param d the points
  * @param options size and title
@@ -69,10 +76,34 @@ const _r = (v: number) => (Math.round(v * 10) / 10).toString();
  * ```ts
  * import { qqSparkline } from "./sparkline.ts";
  * const s = qqSparkline({ z: [-1, 0, 1], value: [1, 2, 3], mean: 2, sd: 1 });
- * if (!s.startsWith("<svg") || !s.includes("<title>QQ sparkline</title>")) throw new Error(s);
+ * if (!s.startsWith('<img class="unconfined" src="data:image/svg+xml;base64,') || !s.includes('alt="QQ sparkline"')) {
+ *   throw new Error(s);
+ * }
  * ```
  */
 export function qqSparkline(d: SparklineData, options: SparklineOptions = {}): string {
+  const w = options.width ?? 90;
+  const h = options.height ?? 36;
+  const svg = qqSparklineSvg(d, options);
+  const b64 = Buffer.from(svg, "utf8").toString("base64");
+  const title = escapeHtml(options.title ?? "QQ sparkline");
+  return `<img class="unconfined" src="data:image/svg+xml;base64,${b64}" width="${w}" ` +
+    `height="${h}" alt="${title}" title="${title}"/>`;
+}
+
+/**
+ * A QQ sparkline as an SVG document.
+ *
+ * @param d the points
+ * @param options size and title
+ * @example
+ * ```ts
+ * import { qqSparklineSvg } from "./sparkline.ts";
+ * const s = qqSparklineSvg({ z: [-1, 0, 1], value: [1, 2, 3], mean: 2, sd: 1 });
+ * if (!s.startsWith("<svg") || !s.includes("<title>QQ sparkline</title>")) throw new Error(s);
+ * ```
+ */
+export function qqSparklineSvg(d: SparklineData, options: SparklineOptions = {}): string {
   const w = options.width ?? 90;
   const h = options.height ?? 36;
   const max = options.maxPoints ?? 60;
@@ -87,17 +118,22 @@ export function qqSparkline(d: SparklineData, options: SparklineOptions = {}): s
   const [vMin, vMax] = _range(vs, line);
   const sx = (z: number) => 3 + ((z - zMin) / (zMax - zMin || 1)) * (w - 6);
   const sy = (v: number) => h - 3 - ((v - vMin) / (vMax - vMin || 1)) * (h - 6);
-  const dots = pick.map((i, k) => {
-    const out = d.outside?.[i] ?? 0;
-    return `<circle cx="${_r(sx(zs[k]))}" cy="${_r(sy(vs[k]))}" r="1.6" fill="${
-      out ? PALETTE.outside : PALETTE.point
-    }"/>`;
-  }).join("");
+  // Each dot is a zero-length segment drawn with a round cap (3.2 px across).
+  const dots = ["", ""];
+  pick.forEach((i, k) => {
+    dots[d.outside?.[i] ? 1 : 0] += `M${_r(sx(zs[k]))} ${_r(sy(vs[k]))}h0`;
+  });
+  const paths = dots.map((path, k) =>
+    path
+      ? `<path d="${path}" stroke="${k ? PALETTE.outside : PALETTE.point}" ` +
+        `stroke-width="3.2" stroke-linecap="round"/>`
+      : ""
+  ).join("");
   const title = escapeHtml(options.title ?? "QQ sparkline");
   return `<svg xmlns="http://www.w3.org/2000/svg" width="${w}" height="${h}" viewBox="0 0 ${w} ${h}" role="img">` +
     `<title>${title}</title><rect width="${w}" height="${h}" fill="#ffffff"/>` +
     `<line x1="${_r(sx(zMin))}" y1="${_r(sy(line[0]))}" x2="${_r(sx(zMax))}" y2="${
       _r(sy(line[1]))
     }" ` +
-    `stroke="${PALETTE.line}" stroke-width="1"/>${dots}</svg>`;
+    `stroke="${PALETTE.line}" stroke-width="1"/>${paths}</svg>`;
 }

@@ -140,10 +140,15 @@ function _encoding(enc: _Node, w: number, h: number | undefined, f: _Fonts): _No
   return out;
 }
 
-function _walk(node: _Node, inherited: number | undefined, f: _Fonts): _Node {
+/** Room a chart's own title has beyond its plot: the y axis beside it (no neighbour to run into). */
+const _ROOT_EXTRA = 60;
+
+function _walk(node: _Node, inherited: number | undefined, f: _Fonts, root = false): _Node {
   const w = _width(node) ?? inherited;
   const out: _Node = { ...node };
-  if (w !== undefined && "title" in node) out.title = _title(node.title, w, f);
+  if (w !== undefined && "title" in node) {
+    out.title = _title(node.title, root ? w + _ROOT_EXTRA : w, f);
+  }
   const h = typeof node.height === "number" ? node.height : undefined;
   if (w !== undefined && node.encoding) out.encoding = _encoding(node.encoding, w, h, f);
   for (const key of ["layer", "hconcat", "vconcat", "concat"]) {
@@ -158,7 +163,8 @@ function _walk(node: _Node, inherited: number | undefined, f: _Fonts): _Node {
 
 /**
  * A copy of `spec` in which every title, subtitle and axis title is shortened
- * with "…" to the width (axis titles of y: the height) of its view.
+ * with "…" to the width (axis titles of y: the height) of its view; the
+ * chart's own title (not a panel's) may also use the room of its y axis.
  *
  * @param spec a Vega-Lite spec whose views have numeric widths
  * @example
@@ -175,5 +181,5 @@ function _walk(node: _Node, inherited: number | undefined, f: _Fonts): _Node {
  */
 export function withTextLimits(spec: TopLevelSpec): TopLevelSpec {
   const node = spec as _Node;
-  return _walk(node, undefined, _fonts(node.config)) as TopLevelSpec;
+  return _walk(node, undefined, _fonts(node.config), true) as TopLevelSpec;
 }

@@ -141,7 +141,12 @@ Deno.test("survey: a 20-column table, sorted by departure, Holm-adjusted, text c
     /^column,n,missing,text_dropped,mean,sd,G1,G2,W,p,adjusted_p,adjustment,verdict,suggestion,note\n/,
   );
   const b = s[DISPLAY]();
-  equal((b["text/html"]!.match(/<svg/g) ?? []).length, 20, "one sparkline per row");
+  equal(
+    (b["text/html"]!.match(/<img class="unconfined" src="data:image\/svg\+xml;base64,/g) ?? [])
+      .length,
+    20,
+    "one sparkline per row",
+  );
 });
 
 Deno.test("survey: a column with text cells is listed as not screened, with the reason", () => {

@@ -41,7 +41,7 @@ for (const name of HOSTILE) {
       // One element with escaped attributes: the picture; the name only inside alt/title.
       assert.match(
         html,
-        /^<div class="plumbline-chart"[^<>]*><img src="data:image\/png;base64,[A-Za-z0-9+/=]+" width="\d+" height="\d+" alt="[^"<>]*" title="[^"<>]*" style="[^"<>]*"><\/div>$/,
+        /^<div class="plumbline-chart"[^<>]*><img src="data:image\/png;base64,[A-Za-z0-9+/=]+" width="\d+" height="\d+" alt="[^"<>]*" title="[^"<>]*" style="[^"<>]*"\/><\/div>$/,
         `${kind} html is one picture`,
       );
       assert.ok(html.includes(`alt="${escapeHtml(name)}`), `${kind} alt text holds the name`);

@@ -11,7 +11,7 @@
  *   template) opened with JavaScript disabled.
  *
  * A chart output is a display output whose stored data hold a chart: an `<svg>` or a
- * `data:image/png` `<img>` in its HTML, or an `image/png`. Each chart in it must show as a
+ * `data:image/png` or `data:image/svg+xml` `<img>` in its HTML, or an `image/png`. Each chart in it must show as a
  * visible `<img>` (loaded) or `<svg>` (with marks) of the chart's width and height (±1 px),
  * whose on-screen pixels are not blank (a screenshot of its box, read back). Screenshots of
  * whole pages land beside the report.
@@ -90,7 +90,7 @@ export function expectedCharts(notebookJson: string): { outputs: number; charts:
       if (html) {
         for (const m of html.matchAll(/<(svg|img)\b([^>]*)>/g)) {
           const attrs = m[2];
-          if (m[1] === "img" && !/\bsrc="data:image\/png/.test(attrs)) continue;
+          if (m[1] === "img" && !/\bsrc="data:image\/(png|svg\+xml)/.test(attrs)) continue;
           const w = attrs.match(/\bwidth="(\d+(?:\.\d+)?)"/);
           const h = attrs.match(/\bheight="(\d+(?:\.\d+)?)"/);
           if (w && h) {
