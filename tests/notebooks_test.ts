@@ -193,7 +193,7 @@ Deno.test({
       ]);
       const r = await runRunner(["--write", path]);
       assert.equal(r.code, 1, `runner should fail:\n${r.stdout}\n${r.stderr}`);
-      assert.match(r.stderr, /no_svg\.ipynb: cell 0, output 0 carries .*without a text\/html/);
+      assert.match(r.stderr, /no_svg\.ipynb: cell 0, output 0 carries .*without a static picture/);
     } finally {
       await Deno.remove(dir, { recursive: true });
     }

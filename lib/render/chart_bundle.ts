@@ -1,10 +1,22 @@
 /**
- * A chart as a display bundle: the Vega-Lite spec for front ends that run
- * Vega-Lite (JupyterLab, VS Code), the same chart as a PNG `<img>` inside
- * `text/html` for every other viewer (the classic Notebook page trusted or
- * not, exported HTML with or without JavaScript, code hosts), and a
- * plain-text summary. Why a PNG `<img>` and not inline SVG: see
- * chart_image.ts.
+ * Charts as display bundles.
+ *
+ * A chart shown on its own ({@linkcode chart}) displays as the Vega-Lite spec,
+ * the same chart as `image/png`, and a plain-text summary — and no HTML, on
+ * purpose. Each viewer takes the first type it ranks highest: JupyterLab
+ * ranks HTML (50) above Vega-Lite (57) above PNG (90), so with HTML present
+ * it would never run the spec; without it, JupyterLab runs the interactive
+ * chart (the λ explorer's slider works there). The classic Notebook page
+ * renders no Vega-Lite and shows `image/png` whether or not the notebook is
+ * trusted (PNG is one of its "safe" types, while HTML would be sanitised
+ * first); nbconvert's HTML export and code hosts show the PNG too. Kernels
+ * cannot attach image metadata (the Deno kernel sends none), so this PNG is
+ * drawn at 1 device pixel per CSS pixel, to show at the chart's size.
+ *
+ * Views that hold charts among text and tables (the card, the group view,
+ * the candidate panel) are HTML; their charts come from
+ * {@linkcode chartBundle}'s `text/html`: a 2× PNG as an `<img>` (see
+ * chart_image.ts for why not inline SVG).
  *
  * @module
  */
@@ -18,7 +30,7 @@ import {
   VEGALITE_MIME,
 } from "../results/display.ts";
 import { OUTPUT_BUDGET } from "./budget.ts";
-import { chartImageHtml, drawChart, type DrawnChart } from "./chart_image.ts";
+import { chartImageHtml, drawChart, type DrawnChart, pngBase64 } from "./chart_image.ts";
 import { plainText } from "./escape.ts";
 
 /** Options for {@linkcode chartBundle} and {@linkcode chart}. */
@@ -83,9 +95,10 @@ export function drawnChartBundle(spec: TopLevelSpec, drawn: DrawnChart): MimeBun
 }
 
 /**
- * Build the bundle of a chart: `application/vnd.vegalite.v5+json`,
- * `text/html` (a `<div>` holding the chart's PNG as an `<img>` with the title
- * and description as alt text) and `text/plain`.
+ * Build the bundle of a chart for views that hold it among text:
+ * `application/vnd.vegalite.v5+json`, `text/html` (a `<div>` holding the
+ * chart's 2× PNG as an `<img>` with the title and description as alt text)
+ * and `text/plain`.
  *
  * @param spec a Vega-Lite 5 spec with inline data
  * @param meta title and description (defaults from the spec)
@@ -102,13 +115,41 @@ export function drawnChartBundle(spec: TopLevelSpec, drawn: DrawnChart): MimeBun
  * ```
  */
 export async function chartBundle(spec: TopLevelSpec, meta: ChartMeta = {}): Promise<MimeBundle> {
+  return drawnChartBundle(spec, await drawChart(spec, chartMeta(spec, meta)));
+}
+
+/**
+ * The display bundle of a chart shown on its own: `application/vnd.vegalite.v5+json`,
+ * `image/png` (1×, base64) and `text/plain` (see the module documentation for why no HTML).
+ *
+ * @param spec a Vega-Lite 5 spec with inline data
+ * @param meta title and description (defaults from the spec)
+ * @example
+ * ```ts
+ * import { chartDisplayBundle } from "./chart_bundle.ts";
+ * const b = await chartDisplayBundle(
+ *   { data: { values: [{ a: 1 }] }, mark: "tick", encoding: { x: { field: "a", type: "quantitative" } } },
+ *   { title: "One tick", description: "A single tick at 1." },
+ * );
+ * if (!b["image/png"]?.startsWith("iVBORw0KGgo") || "text/html" in b) throw new Error("bundle");
+ * ```
+ */
+export async function chartDisplayBundle(
+  spec: TopLevelSpec,
+  meta: ChartMeta = {},
+): Promise<MimeBundle> {
   // The spec travels beside the picture: what it leaves of the output's budget
-  // (less a margin for the text parts), in PNG bytes (base64 takes 4/3). A
-  // notebook stores the spec as JSON with a space after every separator: 1.25×.
+  // (less a margin for the text), in PNG bytes (base64 takes 4/3). A notebook
+  // stores the spec as JSON with a space after every separator: 1.25×.
   const specBytes = new TextEncoder().encode(JSON.stringify(spec)).length;
   const room = Math.floor(((OUTPUT_BUDGET - 20_000 - 1.25 * specBytes) * 3) / 4);
   const maxPngBytes = Math.max(10_000, Math.min(meta.maxPngBytes ?? Infinity, room));
-  return drawnChartBundle(spec, await drawChart(spec, { ...chartMeta(spec, meta), maxPngBytes }));
+  const drawn = await drawChart(spec, { ...chartMeta(spec, meta), maxPngBytes, scales: [1, 0.75] });
+  return Object.freeze({
+    [VEGALITE_MIME]: spec,
+    "image/png": pngBase64(drawn.raster.png),
+    "text/plain": plainText(`${drawn.title}\n${drawn.description}`),
+  });
 }
 
 /** A chart that notebooks can display, with its spec. */
@@ -141,14 +182,14 @@ export interface Chart extends Displayable {
  * });
  * if (made.join() !== "") throw new Error("nothing is computed before it is needed");
  * const ready = await c.prepare();
- * if (!ready[DISPLAY]()["text/html"] || !c.spec) throw new Error("rendered");
+ * if (!ready[DISPLAY]()["image/png"] || !c.spec) throw new Error("prepared");
  * if (made.join() !== "spec") throw new Error("the spec is made once");
  * ```
  */
 export function chart(spec: TopLevelSpec | (() => TopLevelSpec), meta: ChartMeta = {}): Chart {
   let made: TopLevelSpec | undefined = typeof spec === "function" ? undefined : spec;
   const get = (): TopLevelSpec => (made ??= (spec as () => TopLevelSpec)());
-  const lazy = lazyDisplayable(() => chartBundle(get(), meta));
+  const lazy = lazyDisplayable(() => chartDisplayBundle(get(), meta));
   return Object.freeze({
     get spec() {
       return get();

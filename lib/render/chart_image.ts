@@ -6,9 +6,9 @@
  * Why an `<img>` and not the inline SVG: a notebook a colleague did not run
  * opens untrusted, and Jupyter's sanitiser then removes every `<svg>` (and
  * every style) from HTML outputs but keeps `<img>` with its `src`, `width`,
- * `height` and `alt`; the classic page renders no Vega-Lite. Code hosts and
- * exported pages show the same picture. Front ends that run Vega-Lite keep
- * the interactive spec beside it in the bundle (chart_bundle.ts).
+ * `height` and `alt` (it does not check the scheme of `src`); the classic
+ * page renders no Vega-Lite. Code hosts and exported pages show the same
+ * picture.
  *
  * @module
  */
@@ -35,8 +35,9 @@ export interface DrawnChart {
  *
  * @param spec a Vega-Lite 5 spec with inline data
  * @param meta the chart's title and description (for `<title>`/`<desc>`, the
- *   PNG's text chunks and the `<img>`'s alt text), and the most bytes its PNG
- *   may take (at most, and by default, {@linkcode MAX_CHART_PNG_BYTES})
+ *   PNG's text chunks and the `<img>`'s alt text), the most bytes its PNG may
+ *   take (at most, and by default, {@linkcode MAX_CHART_PNG_BYTES}), and the
+ *   scales to try in turn until the PNG fits (default 2, 1.5, 1, 0.75)
  * @example
  * ```ts
  * import { drawChart } from "./chart_image.ts";
@@ -53,15 +54,17 @@ export async function drawChart(
     readonly title: string;
     readonly description: string;
     readonly maxPngBytes?: number;
+    readonly scales?: readonly number[];
   },
 ): Promise<DrawnChart> {
   const { title, description } = meta;
   const max = Math.min(meta.maxPngBytes ?? MAX_CHART_PNG_BYTES, MAX_CHART_PNG_BYTES);
   const svg = accessibleSvg(await renderSvg(spec), { title, description });
   // 2× keeps text sharp on high-density screens; a panel whose PNG would pass
-  // its budget is drawn at 1.5×, then 1×, then 0.75×.
-  let raster = await rasterize(svg, { title, description, scale: 2 });
-  for (const scale of [1.5, 1, 0.75]) {
+  // its budget is drawn at the next scale down.
+  const [first, ...rest] = meta.scales ?? [2, 1.5, 1, 0.75];
+  let raster = await rasterize(svg, { title, description, scale: first });
+  for (const scale of rest) {
     if (raster.png.length <= max) break;
     raster = await rasterize(svg, { title, description, scale });
   }
@@ -73,9 +76,12 @@ export const MAX_CHART_PNG_BYTES = 100_000;
 
 /** The PNG as a `data:` URL. */
 export function pngDataUrl(png: Uint8Array): string {
-  return `data:image/png;base64,${
-    Buffer.from(png.buffer, png.byteOffset, png.length).toString("base64")
-  }`;
+  return `data:image/png;base64,${pngBase64(png)}`;
+}
+
+/** The PNG's bytes in base64 (as notebooks store `image/png`). */
+export function pngBase64(png: Uint8Array): string {
+  return Buffer.from(png.buffer, png.byteOffset, png.length).toString("base64");
 }
 
 /**

@@ -21,6 +21,8 @@ export interface MimeBundle {
   readonly "text/html"?: string;
   /** Markdown (tables and cards). */
   readonly "text/markdown"?: string;
+  /** A PNG picture, base64 (a chart shown on its own). */
+  readonly "image/png"?: string;
   /** A Vega-Lite 5 spec, for front ends that run Vega. */
   readonly "application/vnd.vegalite.v5+json"?: TopLevelSpec;
 }

@@ -238,7 +238,10 @@ Deno.test("display fuzz: hostile names and labels give well-formed, inert HTML a
           specs++;
           const b = await _bundle(chart);
           assert.equal(b[VEGALITE_MIME], chart.spec, `${id} ${what}: bundle carries the spec`);
-          add(b, what);
+          // On its own a chart shows as Vega-Lite or PNG (no HTML); its text is plain.
+          assert.ok(b["image/png"]?.startsWith("iVBORw0KGgo"), `${id} ${what}: a PNG`);
+          assert.ok(!("text/html" in b), `${id} ${what}: no HTML`);
+          assert.ok(!b["text/plain"].includes("\u001b"), `${id} ${what}: ANSI escape in text`);
         }
         collected.push({ id, html });
       },

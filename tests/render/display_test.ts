@@ -1,5 +1,7 @@
 import assert from "node:assert/strict";
-import { chart, chartBundle } from "../../lib/render/chart_bundle.ts";
+import { chart, chartBundle, chartMeta } from "../../lib/render/chart_bundle.ts";
+import { drawChart } from "../../lib/render/chart_image.ts";
+import { pngSize } from "../../lib/render/png.ts";
 import { DISPLAY, displayable, lazyDisplayable, VEGALITE_MIME } from "../../lib/results/display.ts";
 import { qqSpec } from "../../lib/render/qq_spec.ts";
 import { qqData } from "../../lib/stats/qq_data.ts";
@@ -19,7 +21,12 @@ Deno.test("a chart displays asynchronously, renders once, and can be prepared", 
   assert.equal(first, second, "rendered once and cached");
   const ready = await c.prepare();
   assert.equal(ready[DISPLAY](), ready.bundle, "a prepared chart displays synchronously");
-  assert.deepEqual(Object.keys(first).sort(), [VEGALITE_MIME, "text/html", "text/plain"].sort());
+  // On its own a chart shows as Vega-Lite or PNG, never HTML (JupyterLab would prefer HTML
+  // to the interactive spec); the PNG is 1×, to show at the chart's size.
+  assert.deepEqual(Object.keys(first).sort(), [VEGALITE_MIME, "image/png", "text/plain"].sort());
+  const png = Uint8Array.from(atob(first["image/png"]!), (ch) => ch.charCodeAt(0));
+  const drawn = await drawChart(spec, chartMeta(spec));
+  assert.deepEqual(pngSize(png), { width: drawn.raster.width, height: drawn.raster.height });
   assert.ok(Object.isFrozen(c) && Object.isFrozen(first));
 });
 

@@ -15,8 +15,8 @@ Modes:
 
 In both modes the run fails on any error output, on an execute_reply with status
 "error", on a cell or notebook timeout, and on any output that carries a Vega-Lite spec
-without a static `text/html` fallback holding the chart as a picture (a PNG `<img>` or an
-`<svg>`).
+without a static picture of the chart (`image/png`, or a PNG `<img>` or an `<svg>` in
+`text/html`).
 
 Usage:
   /usr/bin/python3 tools/notebooks/run_notebooks.py --check [NOTEBOOK_OR_DIR ...]
@@ -306,11 +306,16 @@ def _check_vegalite_fallback(path, index, outputs):
         data = output.get("data", {})
         if VEGALITE_MIME in data:
             html = _mime_text(data.get("text/html", ""))
-            if '<img src="data:image/png;base64,' not in html and "<svg" not in html:
+            picture = (
+                "image/png" in data
+                or '<img src="data:image/png;base64,' in html
+                or "<svg" in html
+            )
+            if not picture:
                 raise NotebookFailure(
                     f"{path.name}: cell {index}, output {out_index} carries {VEGALITE_MIME} "
-                    "without a text/html fallback holding the chart as a picture (a PNG <img> "
-                    "or an <svg>): add it so the chart reads where no Vega-Lite runs"
+                    "without a static picture of the chart (image/png, or a PNG <img> or an "
+                    "<svg> in text/html): add one so the chart reads where no Vega-Lite runs"
                 )
 
 
