@@ -18,7 +18,7 @@ const fills = [500.2, 499.8, 500.5, 500.1, 499.6, 500.9, 500.0, 499.9, 500.3, 50
 const chain = plumb(fills, undefined, { name: "fill (mL)" });
 console.log(chain.sentence().text.slice(0, 40));
 const bundle = await chain.qq()[Symbol.for("Jupyter.display")]();
-console.log("chart", bundle["text/html"].length > 1000);
+console.log("chart", bundle["image/png"].startsWith("iVBORw0KGgo"));
 `;
 
 async function emptyFolder(): Promise<string> {

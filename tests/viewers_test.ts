@@ -146,3 +146,54 @@ Deno.test({
     }
   },
 });
+
+Deno.test({
+  name: "viewer checks: every chart of the demo notebooks shows in every viewer",
+  ignore: skip,
+  async fn() {
+    const dir = new URL("../notebooks/", import.meta.url).pathname;
+    const notebooks = [...Deno.readDirSync(dir)]
+      .filter((e) => e.isFile && /^0[1-9].*\.ipynb$/.test(e.name))
+      .map((e) => e.name)
+      .sort();
+    assert.ok(notebooks.length >= 3, `demo notebooks: ${notebooks.join(", ")}`);
+    const out = await Deno.makeTempDir({ prefix: "plumbline_viewers_demo_" });
+    // Served copies: the classic page may save what it opens.
+    const roots = await Promise.all(
+      [0, 1].map(() => Deno.makeTempDir({ prefix: "plumbline_viewers_served_" })),
+    );
+    for (const root of roots) {
+      for (const nb of notebooks) await Deno.copyFile(`${dir}${nb}`, `${root}/${nb}`);
+    }
+    const browser = await Browser.launch();
+    const untrusted = await ClassicServer.start(roots[0]);
+    const trusted = await ClassicServer.start(roots[1], { trusted: true });
+    let outputs = 0;
+    try {
+      for (const nb of notebooks) {
+        for (
+          const report of [
+            await checkClassic(browser, untrusted, nb, out),
+            await checkClassic(browser, trusted, nb, out),
+            await checkExportNoJs(browser, `${dir}${nb}`, out),
+          ]
+        ) {
+          console.log(
+            `${report.viewer}: ${nb}: ${report.visibleOutputs} of ${report.chartOutputs} chart ` +
+              `outputs visible; screenshot ${report.screenshot}`,
+          );
+          assert.deepEqual(report.problems, [], `${report.viewer} ${nb}`);
+          assert.ok(report.chartOutputs > 0, `${nb} has charts`);
+          assert.equal(report.visibleOutputs, report.chartOutputs);
+          if (report.viewer === "classic-untrusted") outputs += report.chartOutputs;
+        }
+      }
+      assert.ok(outputs >= 10, `${outputs} chart outputs in the demo notebooks`);
+    } finally {
+      await untrusted.stop();
+      await trusted.stop();
+      await browser.close();
+      for (const root of roots) await Deno.remove(root, { recursive: true }).catch(() => {});
+    }
+  },
+});
