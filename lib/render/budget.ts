@@ -8,7 +8,7 @@
  * @module
  */
 import type { MimeBundle } from "../results/display.ts";
-import { formatCount } from "./format.ts";
+import { formatCount } from "../results/format.ts";
 
 /** The most bytes one display output may hold, all MIME types together. */
 export const OUTPUT_BUDGET = 300_000;
