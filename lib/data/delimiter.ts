@@ -47,7 +47,7 @@ export function detectDelimiter(text: string): string {
     return { d, header, agree, numeric: 0 };
   }).filter((c) => c.header > 0);
   if (candidates.length === 0) return ",";
-  const top = Math.max(...candidates.map((c) => c.agree));
+  const top = candidates.reduce((m, c) => Math.max(m, c.agree), 0);
   const tied = candidates.filter((c) => c.agree === top);
   if (tied.length > 1) {
     for (const c of tied) c.numeric = _numericCells(lines.slice(1), c.d);

@@ -281,7 +281,7 @@ export function _fitLambda(
   };
   const ciLo = end(-1);
   const ciHi = end(1);
-  notes.push(..._openEndNotes([ciLo, ciHi], level, lo, hi));
+  for (const note of _openEndNotes([ciLo, ciHi], level, lo, hi)) notes.push(note);
   return Object.freeze({
     family: full.family,
     lambda,

@@ -109,7 +109,7 @@ function _fit(
     : atEnd
     ? [end(-1), null]
     : [end(-1), end(1)];
-  notes.push(..._openEndNotes(ci, level, lo, hi));
+  for (const note of _openEndNotes(ci, level, lo, hi)) notes.push(note);
   // The censored fit at λ̂, and its mean mapped back to original units.
   const top = _transformed(full, lambda, family);
   if (top === undefined) {
