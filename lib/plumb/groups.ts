@@ -7,8 +7,10 @@
  * @module
  */
 import { PlumbError } from "../errors.ts";
-import { cardBundle, cardCharts } from "../render/card.ts";
-import { chartBundle } from "../render/chart_bundle.ts";
+import { bundleBytes, OUTPUT_BUDGET } from "../render/budget.ts";
+import { cardSpecs } from "../render/card.ts";
+import { chartBundle, specSvg } from "../render/chart_bundle.ts";
+import { savable, type SavedFile, saveDisplay } from "../render/save.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
 import { escapeHtml, escapeMarkdown, plainText } from "../render/escape.ts";
 import { formatCount, formatNumber, formatP } from "../results/format.ts";
@@ -21,13 +23,17 @@ import type { StakesOptions } from "../stakes/stakes.ts";
 import { stakesOptions } from "./stakes_view.ts";
 import { writeSentence } from "./sentence.ts";
 import { type GroupStakesView, groupStakesView } from "./stakes_groups.ts";
+import { cardOf } from "./analysis.ts";
+import { type GroupSentences, listBundle } from "./group_sentences.ts";
 import { _csv } from "./_csv.ts";
 import * as summary from "./_rows.ts";
 import {
   type GroupResult,
+  type GroupRow,
   type GroupState,
   mergedLabelsNote,
   screenGroups,
+  shownGroups,
 } from "./group_screen.ts";
 
 /** A group's serial dependence in a cell: whether it shows, and r₁. */
@@ -50,6 +56,7 @@ export class PlumbGroups implements Displayable {
   readonly #s: GroupState | GroupResult;
   #result: GroupResult | undefined;
   #bundle: Promise<MimeBundle> | undefined;
+  #residualCard: Promise<{ resHtml: string; resMd: string; resText: string }> | undefined;
 
   /**
    * @internal Use `plumb(...).by(column)`.
@@ -68,11 +75,15 @@ export class PlumbGroups implements Displayable {
     return this.#result;
   }
 
-  /** The per-group table model (also used for CSV and Markdown export). */
+  /** The per-group table model, every group (also used for Markdown export). */
   table(): TableModel {
+    return this.#model(this.result().groups);
+  }
+
+  #model(groups: readonly GroupRow[], leftOut?: string): TableModel {
     const r = this.result();
     const adjName = ADJUSTMENT_NAMES[r.adjust];
-    const rows = r.groups.map((g) => {
+    const rows = groups.map((g) => {
       const a = g.analysis;
       if (!a) {
         return [
@@ -132,6 +143,7 @@ export class PlumbGroups implements Displayable {
         } of ${r.label} left out on request.`,
       );
     }
+    if (leftOut) notes.unshift(leftOut);
     return {
       caption: `${r.label} by ${r.groupBy}`,
       columns: [
@@ -152,26 +164,39 @@ export class PlumbGroups implements Displayable {
    * One write-up paragraph per group screened (with its adjusted p), then
    * one for the pooled residuals; displayable as a list.
    */
-  sentences(): Displayable & { readonly texts: readonly string[]; toJSON(): readonly string[] } {
+  sentences(): GroupSentences {
     const r = this.result();
     const family = r.groups.filter((g) => g.analysis).length;
-    const texts = r.groups.filter((g) => g.analysis).map((g) =>
+    const write = (g: GroupRow) =>
       writeSentence(g.analysis!, {
         adjusted: r.adjust === "none"
           ? undefined
           : { p: g.adjustedP!, method: ADJUSTMENT_NAMES[r.adjust], family },
-      })
-    );
+      });
+    const texts = r.groups.filter((g) => g.analysis).map(write);
     if (r.residuals) texts.push(writeSentence(r.residuals));
     const frozen = Object.freeze(texts);
-    const bundle: MimeBundle = Object.freeze({
-      "text/html": `<ul style="max-width:860px">${
-        frozen.map((t) => `<li style="margin:4px 0">${escapeHtml(t)}</li>`).join("")
-      }</ul>`,
-      "text/markdown": frozen.map((t) => `- ${escapeMarkdown(t)}`).join("\n"),
-      "text/plain": plainText(frozen.map((t) => `• ${t}`).join("\n")),
+    // The display holds the groups the table shows; every paragraph is in
+    // `texts` and in saved files.
+    const shown = shownGroups(this.result(), MAX_GROUP_ROWS);
+    const visible = shown.groups.filter((g) => g.analysis).map(write);
+    if (r.residuals) visible.push(writeSentence(r.residuals));
+    const bundle = listBundle(visible, shown.note);
+    let all: MimeBundle | undefined;
+    const view: GroupSentences = Object.freeze({
+      texts: frozen,
+      toJSON: () => frozen,
+      [DISPLAY]: () => bundle,
+      save: (path: string) =>
+        saveDisplay(
+          path,
+          savable(
+            { [DISPLAY]: () => (all ??= listBundle(frozen)), toJSON: () => frozen },
+            `the write-up of ${r.label} by ${r.groupBy}`,
+          ),
+        ),
     });
-    return Object.freeze({ texts: frozen, toJSON: () => frozen, [DISPLAY]: () => bundle });
+    return view;
   }
 
   /**
@@ -224,44 +249,88 @@ export class PlumbGroups implements Displayable {
     return this.result();
   }
 
-  /** Table of groups, then the pooled residuals' card. */
+  /** The QQ plots of (at most 24 of) the groups shown, as one faceted spec. */
+  #facets(groups: readonly GroupRow[]) {
+    const r = this.result();
+    const screened = groups.filter((g) => g.analysis).slice(0, MAX_FACETS);
+    if (screened.length === 0) return undefined;
+    return groupSpec(screened.map((g) => ({ group: g.group, qq: g.analysis!.qq })), {
+      name: r.label,
+      by: r.groupBy,
+    });
+  }
+
+  /**
+   * Write the view to a file, by extension: `.html` (static page), `.md`,
+   * `.txt`, `.csv` (every group), `.json` (every group, plain data), `.svg` or
+   * `.png` (the QQ plots by group shown, and the pooled residuals' QQ plot).
+   */
+  save(path: string): Promise<SavedFile> {
+    return saveDisplay(
+      path,
+      savable(this, `${this.result().label} by ${this.result().groupBy}`, {
+        charts: async () => {
+          const r = this.result();
+          const specs = [this.#facets(shownGroups(this.result(), MAX_GROUP_ROWS).groups)];
+          if (r.residuals) specs.push(cardSpecs(r.residuals, r.residuals.origin.label).qq);
+          return await Promise.all(specs.filter((x) => x !== undefined).map((x) => specSvg(x!)));
+        },
+      }),
+    );
+  }
+
+  /**
+   * Table of groups (at most 40, the clearest departures, with a note on the
+   * rest), their QQ plots, then the pooled residuals' card.
+   */
   [DISPLAY](): Promise<MimeBundle> {
     this.#bundle ??= (async () => {
-      const r = this.result();
-      const t = this.table();
-      const shown = r.groups.filter((g) => g.analysis).slice(0, 24);
-      const facets = shown.length
-        ? await chartBundle(
-          groupSpec(shown.map((g) => ({ group: g.group, qq: g.analysis!.qq })), {
-            name: r.label,
-            by: r.groupBy,
-          }),
-        )
-        : undefined;
-      let resHtml = "", resMd = "", resText = "";
-      if (r.residuals) {
-        const a = r.residuals;
-        const card = cardBundle(a, await cardCharts(a, a.origin.label));
-        resHtml = card["text/html"] ?? "";
-        resMd = card["text/markdown"] ?? "";
-        resText = card["text/plain"];
+      let max = MAX_GROUP_ROWS;
+      for (;;) {
+        const b = await this.#bundleOf(max);
+        if (bundleBytes(b) <= OUTPUT_BUDGET || max <= 1) return b;
+        max = Math.floor(max / 2);
       }
-      const lead = r.residuals
-        ? `For an ANOVA or t-test the assumption concerns the residuals, pooled below; the per-group rows show where a departure comes from.`
-        : `Each row screens the values of one ${
-          (r.groupColumns?.length ?? 1) > 1 ? "cell" : "group"
-        }; the rows show where a departure comes from.`;
-      return Object.freeze({
-        "text/html":
-          `<div style="background:#fff;color:#111;font-family:sans-serif;padding:6px">${
-            tableHtml(t)
-          }` +
-          `<div style="margin:8px 0">${facets?.["text/html"] ?? ""}</div>` +
-          `<p style="max-width:780px">${escapeHtml(lead)}</p>${resHtml}</div>`,
-        "text/markdown": `${tableMarkdown(t)}\n\n${escapeMarkdown(lead)}\n\n${resMd}`,
-        "text/plain": plainText(`${tableText(t)}\n\n${lead}\n\n${resText}`),
-      });
     })();
     return this.#bundle;
   }
+
+  async #cardOfResiduals(): Promise<{ resHtml: string; resMd: string; resText: string }> {
+    const a = this.result().residuals;
+    const card = a ? await cardOf(a, a.origin.label) : undefined;
+    return {
+      resHtml: card?.["text/html"] ?? "",
+      resMd: card?.["text/markdown"] ?? "",
+      resText: card?.["text/plain"] ?? "",
+    };
+  }
+
+  async #bundleOf(max: number): Promise<MimeBundle> {
+    const r = this.result();
+    const shown = shownGroups(r, max);
+    const t = this.#model(shown.groups, shown.note);
+    const spec = this.#facets(shown.groups);
+    const facets = spec ? await chartBundle(spec) : undefined;
+    const { resHtml, resMd, resText } = await (this.#residualCard ??= this.#cardOfResiduals());
+    const lead = r.residuals
+      ? `For an ANOVA or t-test the assumption concerns the residuals, pooled below; the per-group rows show where a departure comes from.`
+      : `Each row screens the values of one ${
+        (r.groupColumns?.length ?? 1) > 1 ? "cell" : "group"
+      }; the rows show where a departure comes from.`;
+    return Object.freeze({
+      "text/html":
+        `<div style="background:#fff;color:#111;font-family:sans-serif;padding:6px">${
+          tableHtml(t)
+        }` +
+        `<div style="margin:8px 0">${facets?.["text/html"] ?? ""}</div>` +
+        `<p style="max-width:780px">${escapeHtml(lead)}</p>${resHtml}</div>`,
+      "text/markdown": `${tableMarkdown(t)}\n\n${escapeMarkdown(lead)}\n\n${resMd}`,
+      "text/plain": plainText(`${tableText(t)}\n\n${lead}\n\n${resText}`),
+    });
+  }
 }
+
+/** The most groups a display's table shows (the rest are in the exports). */
+const MAX_GROUP_ROWS = 40;
+/** The most QQ plots by group in one chart. */
+const MAX_FACETS = 24;

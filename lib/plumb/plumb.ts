@@ -24,8 +24,9 @@ import { stakes, type StakesOptions } from "../stakes/stakes.ts";
 import { histogramData, type HistogramOptions } from "../stats/histogram_data.ts";
 import type { QqOptions } from "../stats/qq_data.ts";
 import { loadColumn, type Loaded, loadResiduals } from "./_loaded.ts";
-import { cardOf, checkScreenable, withEnvelope } from "./analysis.ts";
+import { cardOf, cardSvgs, checkScreenable, withEnvelope } from "./analysis.ts";
 import * as chain from "./_chain_values.ts";
+import { savable, type SavedFile, saveDisplay } from "../render/save.ts";
 import type { GroupOptions } from "./group_screen.ts";
 import { CELL_SEPARATOR, groupColumns } from "./group_split.ts";
 import * as order from "./serial_check.ts";
@@ -404,6 +405,15 @@ export class Plumb implements Displayable {
   /** The analysis as plain data, with the re-expressions applied. */
   toJSON(): Analysis & { readonly steps: readonly Omit<Step, "apply">[] } {
     return { ...this.analysis(), steps: stepsData(this.steps) };
+  }
+
+  /**
+   * Write the card to a file, by extension: `.html` (static page), `.md`, `.txt`,
+   * `.json` (the analysis), `.svg` or `.png` (the QQ plot and the histogram side by side).
+   */
+  save(path: string): Promise<SavedFile> {
+    const charts = () => cardSvgs(this.analysis(), this.label);
+    return saveDisplay(path, savable(this, `the card of ${this.label}`, { charts }));
   }
 
   /** The card: label, counts, reading, QQ plot and histogram, tests, cautions. */

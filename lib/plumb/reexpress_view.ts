@@ -10,7 +10,8 @@ import { backTransformMean } from "../reexpress/back_transform.ts";
 import { applyReexpression } from "../reexpress/reexpression.ts";
 import type { ReexpressionRanking, ReexpressionSearch } from "../reexpress/candidates.ts";
 import { rankReexpressions } from "../reexpress/search.ts";
-import { chartBundle } from "../render/chart_bundle.ts";
+import { chartBundle, specSvg } from "../render/chart_bundle.ts";
+import { savable, type SavedFile, saveDisplay } from "../render/save.ts";
 import { comparisonSpec } from "../render/comparison_spec.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
 import { escapeHtml, escapeMarkdown, plainText } from "../render/escape.ts";
@@ -90,6 +91,11 @@ export interface CandidatesView extends Displayable {
   toMarkdown(): string;
   /** The ranked table as CSV (numbers unrounded). */
   toCSV(): string;
+  /**
+   * Write the view to a file, by extension: `.html`, `.md`, `.txt`, `.csv`
+   * (the ranked table), `.json` (the search), `.svg` or `.png` (the QQ panel).
+   */
+  save(path: string): Promise<SavedFile>;
 }
 
 /**
@@ -121,38 +127,42 @@ export function candidatesView(
   const table = () => (model ??= candidatesTable(search(), name()));
   const backLines = () => (back ??= _backLines(values(), search()));
   let bundle: Promise<MimeBundle> | undefined;
+  let panelSpec: ReturnType<typeof comparisonSpec> | undefined;
+  const panel = () => {
+    if (panelSpec) return panelSpec;
+    const s = search();
+    const x = values();
+    const top = s.candidates.slice(0, 6);
+    return (panelSpec = comparisonSpec(
+      top.flatMap((c) => {
+        const sw = c.tests.find((t) => t.test === "Shapiro–Wilk")?.result;
+        // The search ranks on rescaled values; on the data's own scale a strong
+        // power can collapse values that differ by a few parts in 1e16 to one
+        // double (Box–Cox of values near 1e−300): no panel for that candidate.
+        let qq;
+        try {
+          qq = qqData(applyReexpression(x, c.reexpression));
+        } catch (e) {
+          if (
+            e instanceof PlumbError && (e.code === "constant" || e.code === "non-finite")
+          ) return [];
+          throw e;
+        }
+        return [{
+          // In x: the chart's title names the variable, and short panel titles keep the grid aligned.
+          label: stepOf(c.reexpression).formula,
+          qq,
+          W: sw?.statistic ?? 1 - c.departure,
+          p: sw?.pValue ?? NaN,
+          note: c.rank === 1 ? "chosen" : undefined,
+        }];
+      }),
+      { name: name() },
+    ));
+  };
   const show = () =>
     bundle ??= (async () => {
-      const s = search();
-      const x = values();
-      const top = s.candidates.slice(0, 6);
-      const spec = comparisonSpec(
-        top.flatMap((c) => {
-          const sw = c.tests.find((t) => t.test === "Shapiro–Wilk")?.result;
-          // The search ranks on rescaled values; on the data's own scale a strong
-          // power can collapse values that differ by a few parts in 1e16 to one
-          // double (Box–Cox of values near 1e−300): no panel for that candidate.
-          let qq;
-          try {
-            qq = qqData(applyReexpression(x, c.reexpression));
-          } catch (e) {
-            if (
-              e instanceof PlumbError && (e.code === "constant" || e.code === "non-finite")
-            ) return [];
-            throw e;
-          }
-          return [{
-            // In x: the chart's title names the variable, and short panel titles keep the grid aligned.
-            label: stepOf(c.reexpression).formula,
-            qq,
-            W: sw?.statistic ?? 1 - c.departure,
-            p: sw?.pValue ?? NaN,
-            note: c.rank === 1 ? "chosen" : undefined,
-          }];
-        }),
-        { name: name() },
-      );
-      const panel = await chartBundle(spec);
+      const drawn = await chartBundle(panel());
       const lines = backLines();
       const backHtml = lines.map((l) => `<p style="margin:2px 0">${escapeHtml(l)}</p>`).join("");
       return Object.freeze({
@@ -160,13 +170,20 @@ export function candidatesView(
           `<div style="background:#fff;color:#111;font-family:sans-serif;padding:6px">${
             tableHtml(table())
           }` +
-          `<div style="margin:8px 0">${panel["text/html"] ?? ""}</div>${backHtml}</div>`,
+          `<div style="margin:8px 0">${drawn["text/html"] ?? ""}</div>${backHtml}</div>`,
         "text/markdown": `${tableMarkdown(table())}\n\n${lines.map(escapeMarkdown).join("\n\n")}`,
         "text/plain": plainText(`${tableText(table())}\n\n${lines.join("\n")}`),
       });
     })();
-  return Object.freeze({
+  const view: CandidatesView = Object.freeze({
     [DISPLAY]: show,
+    save: (path: string) =>
+      saveDisplay(
+        path,
+        savable(view, `the re-expressions of ${name()}`, {
+          charts: async () => [await specSvg(panel())],
+        }),
+      ),
     toJSON: () => search(),
     toMarkdown: () => tableMarkdown(table()),
     toCSV: () =>
@@ -202,6 +219,7 @@ export function candidatesView(
         }),
       ),
   });
+  return view;
 }
 
 /** The chosen candidate as a step, or `null` when it is "as measured". */

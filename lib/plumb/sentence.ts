@@ -7,6 +7,7 @@
 import { escapeHtml, escapeMarkdown, plainText } from "../render/escape.ts";
 import { formatCount, formatNumber } from "../results/format.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
+import { savable, type SavedFile, saveDisplay } from "../render/save.ts";
 import type { Analysis } from "../results/analysis.ts";
 import { optionNames } from "../results/options.ts";
 import { VERDICT_WORDS } from "../results/reading.ts";
@@ -226,6 +227,8 @@ export interface Sentence extends Displayable {
   toJSON(): string;
   /** The paragraph as plain text, Markdown and HTML. */
   [DISPLAY](): MimeBundle;
+  /** Write the paragraph to a file: `.md`, `.txt`, `.html` or `.json`, by extension. */
+  save(path: string): Promise<SavedFile>;
 }
 
 /**
@@ -243,10 +246,11 @@ export function sentenceOf(text: string | (() => string)): Sentence {
   let written: string | undefined = typeof text === "string" ? text : undefined;
   const get = () => (written ??= (text as () => string)());
   let bundle: MimeBundle | undefined;
-  return Object.freeze({
+  const sentence: Sentence = Object.freeze({
     get text() {
       return get();
     },
+    save: (path: string) => saveDisplay(path, savable(sentence, "the write-up")),
     [DISPLAY]: () => (bundle ??= Object.freeze({
       "text/plain": plainText(get()),
       "text/markdown": escapeMarkdown(get()),
@@ -255,4 +259,5 @@ export function sentenceOf(text: string | (() => string)): Sentence {
     toString: () => get(),
     toJSON: () => get(),
   });
+  return sentence;
 }

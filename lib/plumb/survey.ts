@@ -8,6 +8,8 @@ import type { Table } from "../data/table.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
 import { isQuerySource, QUERY_SOURCE, type QuerySource } from "../results/query_source.ts";
 import { formatCount, formatP } from "../results/format.ts";
+import { bundleBytes, leftOutNote, OUTPUT_BUDGET, pickRows } from "../render/budget.ts";
+import { savable, type SavedFile, saveDisplay } from "../render/save.ts";
 import { qqSparkline } from "../render/sparkline.ts";
 import { tableMarkdown, type TableModel } from "../render/table.ts";
 import { ADJUSTMENT_NAMES, checkAdjustment } from "../stats/multiplicity.ts";
@@ -48,6 +50,7 @@ export class Survey implements Displayable {
   readonly #table: Table | undefined;
   readonly #options: SurveyOptions;
   #result: SurveyResult | undefined;
+  #bundle: MimeBundle | undefined;
 
   /**
    * @internal Use {@linkcode survey}.
@@ -71,10 +74,14 @@ export class Survey implements Displayable {
     return this.#result;
   }
 
-  /** The table model shown (and exported). */
+  /** The table model, every column (also used for Markdown export). */
   table(): TableModel {
+    return this.#model(this.result().rows);
+  }
+
+  #model(shown: SurveyResult["rows"], leftOut?: string): TableModel {
     const r = this.result();
-    const rows = r.rows.map((row) => {
+    const rows = shown.map((row) => {
       const a = row.analysis;
       if (!a) {
         return [
@@ -100,6 +107,7 @@ export class Survey implements Displayable {
     });
     const screened = r.rows.filter((x) => x.analysis).length;
     const notes = [
+      ...(leftOut ? [leftOut] : []),
       `Sorted by departure (clear first, then by W). p: Shapiro–Wilk; adjusted p: ${
         ADJUSTMENT_NAMES[r.adjust]
       } across ${screened} column${screened === 1 ? "" : "s"}.`,
@@ -179,11 +187,43 @@ export class Survey implements Displayable {
     return this.result();
   }
 
-  /** The table, with a sparkline per row. */
+  /**
+   * Write the survey to a file, by extension: `.html` (static page), `.md`,
+   * `.txt`, `.csv` (every column) or `.json` (plain data).
+   */
+  save(path: string): Promise<SavedFile> {
+    return saveDisplay(
+      path,
+      savable(this, `the survey of ${this.result().source}`, {
+        hint: "for a column's charts, save plumb(table, column).qq() or the column's card",
+      }),
+    );
+  }
+
+  /**
+   * The table, with a sparkline per row: at most 60 columns, the first by
+   * departure, and a note on the rest (every column is in the exports).
+   */
   [DISPLAY](): MimeBundle {
-    return tableBundle(this.table());
+    if (this.#bundle) return this.#bundle;
+    const r = this.result();
+    for (let max = MAX_SURVEY_ROWS;; max = Math.floor(max / 2)) {
+      const pick = pickRows(r.rows, { max, score: (_, i) => -i });
+      const note = pick.left.length === 0 ? undefined : leftOutNote({
+        noun: "column",
+        total: r.rows.length,
+        chosen: "the clearest departures first, as sorted",
+        names: pick.left.map((x) => x.column),
+        where: `.toCSV(), .save("survey.csv") and .toJSON()`,
+      });
+      const b = tableBundle(this.#model(pick.shown, note));
+      if (bundleBytes(b) <= OUTPUT_BUDGET || max <= 1) return (this.#bundle = b);
+    }
   }
 }
+
+/** The most columns a survey's display shows (the rest are in the exports). */
+const MAX_SURVEY_ROWS = 60;
 
 /**
  * Screen every numeric column of a table (or those named).

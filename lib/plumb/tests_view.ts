@@ -9,6 +9,7 @@ import { plainText } from "../render/escape.ts";
 import { tableHtml, tableMarkdown, type TableModel, tableText } from "../render/table.ts";
 import type { Analysis, TestOutcome } from "../results/analysis.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
+import { savable, type SavedFile, saveDisplay } from "../render/save.ts";
 import { _csv } from "./_csv.ts";
 
 /** The tests of one analysis: displayable (HTML, Markdown, text) and exportable. */
@@ -21,6 +22,8 @@ export interface TestsTable extends Displayable {
   toCSV(): string;
   /** The bundle shown in a notebook. */
   [DISPLAY](): MimeBundle;
+  /** Write the table to a file: `.csv`, `.md`, `.html`, `.txt` or `.json`, by extension. */
+  save(path: string): Promise<SavedFile>;
 }
 
 /**
@@ -44,7 +47,9 @@ export function testsView(analysis: () => Analysis): TestsTable {
     const a = analysis();
     return (model ??= testsTable(a.tests, `Normality tests — ${a.origin.label} (n = ${a.n})`));
   };
-  return Object.freeze({
+  const view: TestsTable = Object.freeze({
+    save: (path: string) =>
+      saveDisplay(path, savable(view, `the normality tests of ${analysis().origin.label}`)),
     [DISPLAY]: () => (bundle ??= Object.freeze({
       "text/html": tableHtml(table()),
       "text/markdown": tableMarkdown(table()),
@@ -62,4 +67,5 @@ export function testsView(analysis: () => Analysis): TestsTable {
         ),
       ),
   });
+  return view;
 }

@@ -56,12 +56,12 @@ export interface Pick<T> {
  */
 export function pickRows<T>(
   rows: readonly T[],
-  options: { readonly max: number; readonly score: (row: T) => number },
+  options: { readonly max: number; readonly score: (row: T, index: number) => number },
 ): Pick<T> {
   if (rows.length <= options.max) return { shown: rows, left: [] };
   const order = Array.from(rows.keys());
-  const scores = Float64Array.from(rows, (r) => {
-    const s = options.score(r);
+  const scores = Float64Array.from(rows, (r, i) => {
+    const s = options.score(r, i);
     return Number.isNaN(s) ? -Infinity : s;
   });
   order.sort((a, b) => scores[b] - scores[a] || a - b);

@@ -67,10 +67,31 @@ export function countsLine(a: Analysis): string {
 }
 
 /**
- * The card's charts, rendered: the QQ plot with its envelope, marked exits
+ * The card's charts as specs: the QQ plot with its envelope, marked exits
  * and both reference lines (the sd's, solid; the order-statistic slope's,
  * dashed), and a wide, low histogram strip with bins that follow the
  * measurement step; and the values in order, when an order was named.
+ *
+ * @param a the analysis
+ * @param name the variable's name for the charts' titles
+ */
+export function cardSpecs(
+  a: Analysis,
+  name: string,
+): { qq: ReturnType<typeof qqSpec>; histogram: ReturnType<typeof histogramSpec> } {
+  return {
+    qq: qqSpec(a.qq, {
+      name,
+      slope: a.censoring ? undefined : a.reading.facts.sigma.slope,
+      width: 340,
+      height: 280,
+    }),
+    histogram: histogramSpec(a.histogram, { name, width: 560, height: 90 }),
+  };
+}
+
+/**
+ * The card's charts ({@linkcode cardSpecs}), rendered.
  *
  * @param a the analysis
  * @param name the variable's name for the charts' titles
@@ -79,16 +100,10 @@ export async function cardCharts(
   a: Analysis,
   name: string,
 ): Promise<{ qq: string; histogram: string; sequence?: string }> {
+  const specs = cardSpecs(a, name);
   const [qq, hist, seq] = await Promise.all([
-    chartBundle(
-      qqSpec(a.qq, {
-        name,
-        slope: a.censoring ? undefined : a.reading.facts.sigma.slope,
-        width: 340,
-        height: 280,
-      }),
-    ),
-    chartBundle(histogramSpec(a.histogram, { name, width: 560, height: 90 })),
+    chartBundle(specs.qq),
+    chartBundle(specs.histogram),
     a.serial ? chartBundle(sequenceSpec(a.serial, { name })) : undefined,
   ]);
   return {

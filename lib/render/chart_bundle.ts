@@ -32,6 +32,8 @@ import {
 import { OUTPUT_BUDGET } from "./budget.ts";
 import { chartImageHtml, drawChart, type DrawnChart, pngBase64 } from "./chart_image.ts";
 import { plainText } from "./escape.ts";
+import { savable, type SavedFile, saveDisplay } from "./save.ts";
+import { accessibleSvg, renderSvg } from "./svg.ts";
 
 /** Options for {@linkcode chartBundle} and {@linkcode chart}. */
 export interface ChartMeta {
@@ -152,10 +154,33 @@ export async function chartDisplayBundle(
   });
 }
 
+/**
+ * A chart's static SVG document, with its title and description as
+ * `<title>` and `<desc>` (what `.svg` files hold).
+ *
+ * @param spec a Vega-Lite 5 spec with inline data
+ * @param meta title and description (defaults from the spec)
+ * @example
+ * ```ts
+ * import { specSvg } from "./chart_bundle.ts";
+ * const svg = await specSvg({ data: { values: [{ a: 1 }] }, mark: "tick", encoding: { x: { field: "a", type: "quantitative" } } }, { title: "One tick" });
+ * if (!svg.startsWith("<svg") || !svg.includes(">One tick</title>")) throw new Error(svg);
+ * ```
+ */
+export async function specSvg(spec: TopLevelSpec, meta: ChartMeta = {}): Promise<string> {
+  return accessibleSvg(await renderSvg(spec), chartMeta(spec, meta));
+}
+
 /** A chart that notebooks can display, with its spec. */
 export interface Chart extends Displayable {
   /** The Vega-Lite spec. */
   readonly spec: TopLevelSpec;
+  /**
+   * Write the chart to a file; the type follows the extension: `.svg`, `.png`
+   * (2×), `.html` (a static page with the SVG inline), `.json` (the Vega-Lite
+   * spec), `.md` or `.txt` (its title and description).
+   */
+  save(path: string): Promise<SavedFile>;
   /** Render now; the result displays without further work. */
   prepare(): Promise<ReadyDisplayable>;
 }
@@ -196,5 +221,14 @@ export function chart(spec: TopLevelSpec | (() => TopLevelSpec), meta: ChartMeta
     },
     [DISPLAY]: lazy[DISPLAY],
     prepare: lazy.prepare,
+    save: (path: string) => {
+      const svg = () => specSvg(get(), meta);
+      const own = { [DISPLAY]: lazy[DISPLAY], toJSON: () => get() };
+      const what = chartMeta(get(), meta).title;
+      return saveDisplay(
+        path,
+        savable(own, what, { charts: async () => [await svg()], html: svg }),
+      );
+    },
   });
 }

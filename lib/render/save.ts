@@ -16,8 +16,10 @@
  * @module
  */
 import { PlumbError } from "../errors.ts";
-import type { MimeBundle } from "../results/display.ts";
+import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
+import { composeSvg } from "./compose_svg.ts";
 import { escapeHtml } from "./escape.ts";
+import { rasterize } from "./raster.ts";
 
 /** The file types a display can be saved as. */
 export type SaveFormat = "html" | "md" | "txt" | "json" | "csv" | "svg" | "png";
@@ -48,6 +50,13 @@ export interface SaveSource {
   readonly svg?: () => string | Promise<string>;
   /** Its chart(s) as a PNG file, for `.png`. */
   readonly png?: () => Uint8Array | Promise<Uint8Array>;
+  /**
+   * The HTML to put in a saved page, where it differs from the bundle's
+   * (a chart on its own saves its SVG inline).
+   */
+  readonly html?: () => string | Promise<string>;
+  /** Where to look for the formats this display does not write, e.g. `.qq().save("qq.png")`. */
+  readonly hint?: string;
 }
 
 /** What {@linkcode saveDisplay} wrote. */
@@ -62,6 +71,63 @@ export interface SavedFile {
   toJSON(): { path: string; format: SaveFormat; bytes: number };
   /** "Saved <path> (<format>, <bytes> bytes)". */
   toString(): string;
+}
+
+/** A display, with the plain data and table it may offer (found by name). */
+export interface SavableDisplay extends Displayable {
+  /** Its plain data, saved as `.json`. */
+  toJSON?(): unknown;
+  /** Its table, saved as `.csv`. */
+  toCSV?(): string;
+}
+
+/** What {@linkcode savable} adds to what a display offers by itself. */
+export interface SavableExtras {
+  /** Its charts as SVG documents; saved together as one `.svg` or `.png`. */
+  readonly charts?: () => readonly string[] | Promise<readonly string[]>;
+  /** The HTML of a saved page, where it differs from the display's. */
+  readonly html?: () => string | Promise<string>;
+  /** Where to look for the formats this display does not write. */
+  readonly hint?: string;
+}
+
+/**
+ * The save source of any display: its bundle (`.html`, `.md`, `.txt`), its
+ * `toJSON()` and `toCSV()` where it has them, and its charts (`.svg`, `.png`:
+ * one chart as drawn, several side by side in one picture, PNG at 2×). A new
+ * display gets every format by giving its `save(path)` this one line:
+ * `return saveDisplay(path, savable(this, "what it is", { charts }))`.
+ *
+ * @param display the display
+ * @param what what it is, for messages and page titles
+ * @param extras its charts, its page HTML, a hint for formats it lacks
+ * @example
+ * ```ts
+ * import { DISPLAY } from "@plumbline/plumbline";
+ * import { saveFormats, savable } from "./save.ts";
+ * const d = { [DISPLAY]: () => ({ "text/plain": "n = 3" }), toCSV: () => "n\n3\n" };
+ * if (saveFormats(savable(d, "a count")).join() !== "html,md,txt,csv") throw new Error("formats");
+ * ```
+ */
+export function savable(
+  display: SavableDisplay,
+  what: string,
+  extras: SavableExtras = {},
+): SaveSource {
+  const charts = extras.charts;
+  const svg = charts ? async () => composeSvg(await charts(), { title: what }) : undefined;
+  return Object.freeze({
+    what,
+    bundle: () => display[DISPLAY](),
+    json: typeof display.toJSON === "function" ? () => display.toJSON!() : undefined,
+    csv: typeof display.toCSV === "function" ? () => display.toCSV!() : undefined,
+    svg,
+    png: svg
+      ? async () => (await rasterize(await svg(), { scale: 2, title: what })).png
+      : undefined,
+    html: extras.html,
+    hint: extras.hint,
+  });
 }
 
 /** The formats a source can be saved as, in the order messages list them. */
@@ -138,7 +204,8 @@ export async function saveDisplay(path: string, source: SaveSource): Promise<Sav
     throw new PlumbError(
       "unsupported-format",
       `Cannot save ${source.what} as ${said}: the file type follows the extension, and this ` +
-        `display saves as ${_list(formats)}: change the extension`,
+        `display saves as ${_list(formats)}: change the extension` +
+        (source.hint ? ` (${source.hint})` : ""),
       { path, formats },
     );
   }
@@ -181,6 +248,7 @@ async function _content(format: SaveFormat, source: SaveSource): Promise<string 
     case "json":
       return JSON.stringify(source.json!(), null, 2) + "\n";
     default: {
+      if (format === "html" && source.html) return staticPage(source.what, await source.html());
       const bundle = await source.bundle();
       if (format === "html") {
         const html = bundle["text/html"] ?? `<pre>${escapeHtml(bundle["text/plain"])}</pre>`;
