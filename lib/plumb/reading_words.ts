@@ -221,7 +221,7 @@ export function readingWords(w: WordsInput): {
   const points: string[] = [...cause.lead];
   const rounding = roundingPoint(f, n);
   if (rounding !== undefined && f.rounding.coarse) points.push(rounding);
-  points.push(..._shapePoints(f, m, n), ...cause.after);
+  for (const p of [..._shapePoints(f, m, n), ...cause.after]) points.push(p);
   if (w.twoPeaks) {
     points.push(
       `A hint of two peaks: bimodality coefficient ${

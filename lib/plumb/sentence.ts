@@ -180,7 +180,7 @@ export function writeSentence(a: Analysis, options: SentenceOptions = {}): strin
       reading.verdict === "no-clear-departure" ? "" : `, from ${reading.reason}`
     }.`,
   );
-  parts.push(..._findings(a));
+  for (const finding of _findings(a)) parts.push(finding);
   for (const note of origin.notes ?? []) parts.push(`${note}.`);
   if (a.subsample) {
     parts.push(
@@ -213,7 +213,7 @@ export function writeSentence(a: Analysis, options: SentenceOptions = {}): strin
       } values a small p can reflect a departure too small to matter; weigh G1, G2 and the QQ plot.`,
     );
   }
-  if (options.cautions ?? true) parts.push(...SENTENCE_CAUTIONS);
+  if (options.cautions ?? true) { for (const c of SENTENCE_CAUTIONS) parts.push(c); }
   return parts.join(" ");
 }
 

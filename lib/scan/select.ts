@@ -149,17 +149,17 @@ export async function summarise(
     const next: Cell[] = [];
     let at = 0;
     for (const [i, j] of merged) {
-      next.push(...cells.slice(at, i));
+      for (let k = at; k < i; k++) next.push(cells[k]);
       const a = ends.get(i)![0];
       const b = ends.get(j)![1];
       if (i === j && a === b) next.push(Object.freeze({ ...cells[i], lo: a, hi: b, value: a }));
       else {
-        next.push(...await _cellPass(q, grids, a, b, "splitting crowded cells"));
+        for (const c of await _cellPass(q, grids, a, b, "splitting crowded cells")) next.push(c);
         passes++;
       }
       at = j + 1;
     }
-    next.push(...cells.slice(at));
+    for (let k = at; k < cells.length; k++) next.push(cells[k]);
     cells = next;
   }
   return Object.freeze({ cells: Object.freeze(cells), grids: Object.freeze(grids), passes });
