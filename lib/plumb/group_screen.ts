@@ -11,8 +11,6 @@
 import type { MergedLabel, Table } from "../data/table.ts";
 import { PlumbError } from "../errors.ts";
 import { optionNames } from "../results/options.ts";
-import { leftOutNote, pickRows } from "../render/budget.ts";
-import { VERDICT_SHORT } from "../results/reading.ts";
 import type { Analysis } from "../results/analysis.ts";
 import type { Reexpression } from "../reexpress/reexpression.ts";
 import type { QqOptions } from "../stats/qq_data.ts";
@@ -263,37 +261,4 @@ export function mergedLabelsNote(by: string, merged: readonly MergedLabel[]): st
   );
   const more = merged.length > 5 ? ` and ${merged.length - 5} more labels` : "";
   return `Labels of ${by} that differ only in spaces were merged: ${shown.join("; ")}${more}.`;
-}
-
-/**
- * The groups a display shows: at most `max`, the clearest departures
- * (smallest adjusted p; groups not screened last), in table order, and the
- * note on the rest (how many, which, where they all are).
- *
- * @param r the screening
- * @param max the most groups to show
- */
-export function shownGroups(
-  r: GroupResult,
-  max: number,
-): { readonly groups: readonly GroupRow[]; readonly note?: string } {
-  const pick = pickRows(r.groups, {
-    max,
-    score: (g) => (g.analysis ? -(g.adjustedP ?? 1) : -Infinity),
-  });
-  if (pick.left.length === 0) return { groups: pick.shown };
-  const tally: Record<string, number> = {};
-  for (const g of pick.left) {
-    const k = g.analysis ? VERDICT_SHORT[g.analysis.reading.verdict] : "not screened";
-    tally[k] = (tally[k] ?? 0) + 1;
-  }
-  const note = leftOutNote({
-    noun: "group",
-    total: r.groups.length,
-    chosen: "the clearest departures (smallest adjusted p), in table order",
-    names: pick.left.map((g) => g.group),
-    tally,
-    where: `.toCSV(), .save("groups.csv") and .toJSON()`,
-  });
-  return { groups: pick.shown, note };
 }

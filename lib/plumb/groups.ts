@@ -24,6 +24,7 @@ import { stakesOptions } from "./stakes_view.ts";
 import { writeSentence } from "./sentence.ts";
 import { type GroupStakesView, groupStakesView } from "./stakes_groups.ts";
 import { cardOf } from "./analysis.ts";
+import { shownGroups } from "./group_pick.ts";
 import { type GroupSentences, listBundle } from "./group_sentences.ts";
 import { _csv } from "./_csv.ts";
 import * as summary from "./_rows.ts";
@@ -33,7 +34,6 @@ import {
   type GroupState,
   mergedLabelsNote,
   screenGroups,
-  shownGroups,
 } from "./group_screen.ts";
 
 /** A group's serial dependence in a cell: whether it shows, and r₁. */
