@@ -49,3 +49,31 @@ Deno.test("report: self-contained HTML (no scripts, no remote URLs), sentences, 
   ok(r.sentences.length >= 1);
   match(r.sentences[r.sentences.length - 1], /^delay: n = 39 \(1 non-numeric cell left out\)\./);
 });
+
+Deno.test("report() from a notebook: a table gives the command line's report; chains their own", async () => {
+  const { loadTable, plumb, report } = await import("../mod.ts");
+  const { writeReport } = await import("../lib/plumb/report.ts");
+  const csv = "g,v\n" +
+    Array.from({ length: 30 }, (_, i) => `${"ab"[i % 2]},${Math.exp(i / 8).toFixed(3)}`).join("\n");
+  const table = await loadTable(csv);
+  const dir = await Deno.makeTempDir({ prefix: "plumbline_report_" });
+  try {
+    const view = report(table, { note: "Invented data." });
+    const saved = await view.save(`${dir}/r.html`);
+    equal(saved.format, "html");
+    const html = await Deno.readTextFile(`${dir}/r.html`);
+    equal(html, (await writeReport(table, { note: "Invented data." })).html);
+    ok(!/<script/i.test(html) && html.includes("<h2>Survey</h2>"));
+    const chains = report([plumb(table, "v"), plumb(table, "v").reexpress("log")], { by: "g" });
+    await chains.save(`${dir}/c.md`);
+    const md = await Deno.readTextFile(`${dir}/c.md`);
+    match(md, /^\*\*Normality report: v, ln\(v\)\*\*/);
+    const r = await chains.report();
+    ok(r.html.includes("<h2>ln(v)</h2>") && r.html.includes("<h3>v by g</h3>"));
+    equal(r.sentences.length >= 2, true);
+    await view.save(`${dir}/r.json`);
+    deepEqual(JSON.parse(await Deno.readTextFile(`${dir}/r.json`)), await view.data());
+  } finally {
+    await Deno.remove(dir, { recursive: true });
+  }
+});

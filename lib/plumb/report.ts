@@ -1,15 +1,17 @@
 /**
  * A self-contained HTML report of a table: the survey, a card per column
  * screened, the per-group view when asked, the ranked re-expressions of
- * every column that departs, and the write-up sentences. Static SVG only:
- * no scripts, no external requests, readable anywhere.
+ * every column that departs, and the write-up sentences; or the same for a
+ * set of chains. Charts are inline pictures: no scripts, no external
+ * requests, readable anywhere.
  *
  * @module
  */
 import type { Table } from "../data/table.ts";
 import { DISPLAY, type MimeBundle } from "../results/display.ts";
 import { escapeHtml } from "../render/escape.ts";
-import { plumb } from "./plumb.ts";
+import { staticPage } from "../render/save.ts";
+import { type Plumb, plumb } from "./plumb.ts";
 import { survey } from "./survey.ts";
 
 /** Options for {@linkcode writeReport}. */
@@ -41,10 +43,14 @@ export interface ReportOptions {
   readonly progress?: (message: string) => void;
 }
 
-/** The report's sentences, for a terminal summary. */
+/** A report: its HTML page and its write-up. */
 export interface Report {
-  /** The HTML document. */
+  /** The report's title. */
+  readonly title: string;
+  /** The HTML document: static, self-contained, no scripts. */
   readonly html: string;
+  /** The document's body (what a saved page holds). */
+  readonly body: string;
   /** One write-up sentence per column screened. */
   readonly sentences: readonly string[];
 }
@@ -71,66 +77,109 @@ const _html = async (d: { [DISPLAY](): MimeBundle | Promise<MimeBundle> }) =>
  */
 export async function writeReport(table: Table, options: ReportOptions = {}): Promise<Report> {
   const say = options.progress ?? (() => {});
-  const title = options.title ?? `Normality report: ${table.source}`;
   const columns = options.columns ? [...options.columns] : table.numericNames();
-  const parts: string[] = [];
-  const sentences: string[] = [];
   say(`surveying ${columns.length} columns`);
   const s = survey(table, { columns, dropText: true });
-  parts.push(`<h2>Survey</h2>${await _html(s)}`);
-  for (const row of s.result().rows) {
-    if (!row.analysis) continue;
-    const col = row.column;
-    say(`column ${col}`);
-    const p = plumb(table, col, { dropText: true });
-    parts.push(`<h2>${escapeHtml(col)}</h2>${await _html(p)}`);
-    if (options.by) {
-      parts.push(
-        `<h3>${escapeHtml(col)} by ${escapeHtml(options.by)}</h3>${await _html(p.by(options.by))}`,
-      );
+  const parts = [`<h2>Survey</h2>${await _html(s)}`];
+  const rows = s.result().rows.filter((row) => row.analysis);
+  const chains = rows.map((row) => plumb(table, row.column, { dropText: true }));
+  const suggestions = rows.map((row) => row.suggestion);
+  return await _assemble(`Normality report: ${table.source}`, parts, chains, options, suggestions);
+}
+
+/** A chain's sections: its card, by group when asked, and its re-expressions when it departs. */
+async function _sections(
+  p: Plumb,
+  by: string | undefined,
+  sentences: string[],
+  suggestion?: string | null,
+): Promise<string> {
+  const name = escapeHtml(p.label);
+  const parts = [`<h2>${name}</h2>${await _html(p)}`];
+  if (by) parts.push(`<h3>${name} by ${escapeHtml(by)}</h3>${await _html(p.by(by))}`);
+  const a = p.analysis();
+  const c = a.censoring;
+  if (c && a.reading.verdict !== "no-clear-departure") {
+    // The ranked panel needs measured values; the survey's suggestion uses the censored λ.
+    parts.push(
+      `<h3>Re-expressions of ${name}</h3><p>${
+        escapeHtml(
+          `${c.left + c.right} values are censored, so the ranked panel (tests for measured ` +
+            `values) is not shown; the ladder power nearest the censored Box–Cox λ is ` +
+            `${suggestion ?? "none"}.`,
+        )
+      }</p>`,
+    );
+    if (suggestion === "ln(x)") {
+      const logged = p.reexpress("log");
+      parts.push(`<h3>${escapeHtml(logged.label)}</h3>${await _html(logged)}`);
+      sentences.push(logged.sentence().text);
     }
-    const c = row.analysis.censoring;
-    if (c && row.analysis.reading.verdict !== "no-clear-departure") {
-      // The ranked panel needs measured values; the survey's suggestion uses the censored λ.
-      parts.push(
-        `<h3>Re-expressions of ${escapeHtml(col)}</h3><p>${
-          escapeHtml(
-            `${c.left + c.right} values are censored, so the ranked panel (tests for measured ` +
-              `values) is not shown; the ladder power nearest the censored Box–Cox λ is ` +
-              `${row.suggestion ?? "none"}.`,
-          )
-        }</p>`,
-      );
-      if (row.suggestion === "ln(x)") {
-        const logged = p.reexpress("log");
-        parts.push(`<h3>${escapeHtml(logged.label)}</h3>${await _html(logged)}`);
-        sentences.push(logged.sentence().text);
-      }
-    } else if (row.analysis.reading.verdict !== "no-clear-departure") {
-      parts.push(`<h3>Re-expressions of ${escapeHtml(col)}</h3>${await _html(p.candidates())}`);
-      const best = p.reexpress("best");
-      if (best.steps.length > 0) {
-        parts.push(`<h3>${escapeHtml(best.label)}</h3>${await _html(best)}`);
-        sentences.push(best.sentence().text);
-      }
+  } else if (a.reading.verdict !== "no-clear-departure") {
+    parts.push(`<h3>Re-expressions of ${name}</h3>${await _html(p.candidates())}`);
+    const best = p.reexpress("best");
+    if (best.steps.length > p.steps.length) {
+      parts.push(`<h3>${escapeHtml(best.label)}</h3>${await _html(best)}`);
+      sentences.push(best.sentence().text);
     }
-    sentences.push(p.sentence().text);
+  }
+  sentences.push(p.sentence().text);
+  return parts.join("\n");
+}
+
+async function _assemble(
+  fallbackTitle: string,
+  parts: string[],
+  chains: readonly Plumb[],
+  options: ReportOptions,
+  suggestions: readonly (string | null | undefined)[] = [],
+): Promise<Report> {
+  const say = options.progress ?? (() => {});
+  const title = options.title ?? fallbackTitle;
+  const sentences: string[] = [];
+  for (const [i, p] of chains.entries()) {
+    say(`column ${p.label}`);
+    parts.push(await _sections(p, options.by, sentences, suggestions[i]));
   }
   parts.push(
     `<h2>Write-up</h2>${
       sentences.map((t) => `<p style="max-width:860px">${escapeHtml(t)}</p>`).join("\n")
     }`,
   );
-  const html = `<!DOCTYPE html>
-<html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
-<title>${escapeHtml(title)}</title>
-<style>body{font-family:sans-serif;background:#ffffff;color:#111111;margin:24px;max-width:1400px}h2{border-bottom:1px solid #ccc;padding-bottom:4px;margin-top:32px}</style>
-</head><body>
-<h1>${escapeHtml(title)}</h1>
+  const body = `<h1>${escapeHtml(title)}</h1>
 ${options.note ? `<p><em>${escapeHtml(options.note)}</em></p>` : ""}
-<p>Made with plumbline. A normality check is one input to a decision (a reference range, a product release), which follows your organisation's own procedures and the applicable standards.</p>
-${parts.join("\n")}
-</body></html>
-`;
-  return Object.freeze({ html, sentences: Object.freeze(sentences) });
+<p>${escapeHtml(REPORT_CAUTION)}</p>
+${parts.join("\n")}`;
+  return Object.freeze({
+    title,
+    html: staticPage(title, body),
+    body,
+    sentences: Object.freeze(sentences),
+  });
+}
+
+const REPORT_CAUTION =
+  "Made with plumbline. A normality check is one input to a decision (a reference range, a product release), which follows your organisation's own procedures and the applicable standards.";
+
+/**
+ * The report of a set of chains (each with its re-expressions as built): a
+ * card per chain, by group when asked, and the ranked re-expressions of each
+ * one that departs, then the write-up.
+ *
+ * @param chains the chains, e.g. `[plumb(t, "fill_ml"), plumb(t, "gap").reexpress("log")]`
+ * @param options grouping, title, note, progress callback (`columns` does not apply)
+ * @example
+ * ```ts
+ * import { plumb } from "@plumbline/plumbline";
+ * import { writeChainsReport } from "./report.ts";
+ * const r = await writeChainsReport([plumb([4.1, 3.9, 4.4, 4.0, 4.2, 3.7, 4.6, 4.3], "fill")]);
+ * if (!r.html.includes("<h2>fill</h2>") || r.sentences.length !== 1) throw new Error("report");
+ * ```
+ */
+export async function writeChainsReport(
+  chains: readonly Plumb[],
+  options: ReportOptions = {},
+): Promise<Report> {
+  const labels = chains.map((p) => p.label);
+  return await _assemble(`Normality report: ${labels.join(", ")}`, [], chains, options);
 }
