@@ -73,6 +73,9 @@ export { PlumbGroups } from "./lib/plumb/groups.ts";
 export type { GroupOptions, GroupResult, GroupRow } from "./lib/plumb/group_screen.ts";
 export type { ResidualRequest } from "./lib/plumb/residual_model.ts";
 export { Survey, survey } from "./lib/plumb/survey.ts";
+export type { GroupSentences } from "./lib/plumb/group_sentences.ts";
+export { report, type ReportView } from "./lib/plumb/report_view.ts";
+export type { Report, ReportOptions } from "./lib/plumb/report.ts";
 export type { SurveyOptions, SurveyResult, SurveyRow } from "./lib/plumb/survey_screen.ts";
 
 // Results as plain data, and how they display
@@ -85,9 +88,12 @@ export {
 } from "./lib/results/censoring.ts";
 export {
   type Reading,
+  type ReadingCause,
   type ReadingFacts,
+  type ValueAtRow,
   type Verdict,
   VERDICT_WORDS,
+  type VerdictGrounds,
 } from "./lib/results/reading.ts";
 export {
   DISPLAY,
@@ -96,6 +102,7 @@ export {
   type ReadyDisplayable,
 } from "./lib/results/display.ts";
 export type { Chart, ChartMeta } from "./lib/render/chart_bundle.ts";
+export type { SavedFile, SaveFormat } from "./lib/render/save.ts";
 export type { TopLevelSpec } from "./lib/_deps/vega_lite.ts";
 export type { TableCell, TableColumn, TableModel } from "./lib/render/table.ts";
 
@@ -174,6 +181,7 @@ export type { LambdaFit, LambdaFitOptions } from "./lib/reexpress/lambda_fit.ts"
 export { searchReexpressions } from "./lib/reexpress/search.ts";
 export type {
   CandidateTest,
+  RankedCandidate,
   ReexpressionCandidate,
   ReexpressionSearch,
   SearchOptions,
@@ -238,6 +246,8 @@ export type { EngineOptions, Pass, ScanProgress } from "./lib/scan/engine.ts";
 
 // What the departure changes downstream
 export type { StakesView } from "./lib/plumb/stakes_view.ts";
+export type { GroupStakes, GroupStakesRow, GroupStakesView } from "./lib/plumb/stakes_groups.ts";
+export type { RoundingJudgement } from "./lib/stats/rounding.ts";
 export {
   type MeanStakes,
   type Stakes,

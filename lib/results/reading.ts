@@ -26,6 +26,7 @@ export const VERDICT_SHORT: Readonly<Record<Verdict, string>> = Object.freeze({
 
 /** The verdict and what carried it (see `lib/plumb/reading_rules.ts`). */
 export interface VerdictGrounds {
+  /** The verdict these grounds carried. */
   readonly verdict: Verdict;
   /** Shapiro–Wilk counted as evidence (p < 0.05, and the step not coarse). */
   readonly byTest: boolean;
@@ -59,6 +60,7 @@ export type ReadingCause =
 
 /** A value and the data row it came from. */
 export interface ValueAtRow {
+  /** The value. */
   readonly value: number;
   /** 1-based data row (the position in the values when no rows were given). */
   readonly row: number;

@@ -133,7 +133,7 @@ const _BOOTSTRAP_BUDGET = 1e8;
 const _BOOTSTRAP_FLOOR = 200;
 
 /** The caution every stakes result carries. */
-export const STAKES_CAUTION =
+export const STAKES_CAUTION: string =
   "Reference ranges and release decisions follow your organisation's procedures and the " +
   "applicable standards; these figures inform such a decision, they do not make it";
 
