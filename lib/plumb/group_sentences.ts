@@ -26,7 +26,7 @@ export interface GroupSentences extends Displayable {
  * @example
  * ```ts
  * import { listBundle } from "./group_sentences.ts";
- * if (listBundle(["a < b."])["text/markdown"] !== "- a < b.") throw new Error("md");
+ * if (listBundle(["a < b."])["text/markdown"] !== "- a &lt; b.") throw new Error("md");
  * ```
  */
 export function listBundle(texts: readonly string[], note?: string): MimeBundle {
