@@ -4,6 +4,9 @@
  * multiplicity-adjusted p-values, and the pooled within-group residuals —
  * the view that matters when the groups feed an ANOVA or a t-test.
  *
+ * Kept in one file because the view's caches (screening, bundle, residual
+ * card) are the private state of one class.
+ *
  * @module
  */
 import { PlumbError } from "../errors.ts";

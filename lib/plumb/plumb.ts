@@ -407,10 +407,7 @@ export class Plumb implements Displayable {
     return { ...this.analysis(), steps: stepsData(this.steps) };
   }
 
-  /**
-   * Write the card to a file, by extension: `.html` (static page), `.md`, `.txt`,
-   * `.json` (the analysis), `.svg` or `.png` (the QQ plot and the histogram side by side).
-   */
+  /** Write the card to a file by extension: .html .md .txt .json, .svg/.png (its two charts). */
   save(path: string): Promise<SavedFile> {
     const charts = () => cardSvgs(this.analysis(), this.label);
     return saveDisplay(path, savable(this, `the card of ${this.label}`, { charts }));
