@@ -18,8 +18,7 @@ import type { TestResult } from "../stats/result.ts";
 import { SHAPIRO_WILK_MAX_N } from "../stats/shapiro_wilk.ts";
 import type { Analysis, SampleOrigin, Subsample, TestOutcome } from "../results/analysis.ts";
 import { readShape } from "./reading.ts";
-import { cardBundle, cardCharts, cardSpecs } from "../render/card.ts";
-import { specSvg } from "../render/chart_bundle.ts";
+import { cardBundle, cardCharts } from "../render/card.ts";
 import type { MimeBundle } from "../results/display.ts";
 
 /** Options for {@linkcode analyse}. */
@@ -262,17 +261,6 @@ export function checkScreenable(
  */
 export async function cardOf(a: Analysis, label: string): Promise<MimeBundle> {
   return cardBundle(a, await cardCharts(a, label));
-}
-
-/**
- * The card's charts (QQ plot, histogram) as SVG documents, for saving.
- *
- * @param a the analysis
- * @param label the name the charts carry
- */
-export function cardSvgs(a: Analysis, label: string): Promise<string[]> {
-  const specs = cardSpecs(a, label);
-  return Promise.all([specSvg(specs.qq), specSvg(specs.histogram)]);
 }
 
 /**

@@ -1,8 +1,7 @@
 /**
- * `plumb(source, column)`: the chain over one numeric variable. Each method
- * returns a new frozen object and computes nothing: the work runs on the
- * first display or the first read, once, and is kept by the object that did
- * it, so later reads (and chains built on it) reuse it.
+ * `plumb(source, column)`: the chain over one numeric variable. Each method returns a new frozen
+ * object and computes nothing: the work runs on the first display or the first read, once, and is
+ * kept by the object that did it, so later reads (and chains built on it) reuse it.
  *
  * Kept in one file because the chain's caches are the private state of one
  * class: split across files, every cache would have to become public.
@@ -24,9 +23,9 @@ import { stakes, type StakesOptions } from "../stakes/stakes.ts";
 import { histogramData, type HistogramOptions } from "../stats/histogram_data.ts";
 import type { QqOptions } from "../stats/qq_data.ts";
 import { loadColumn, type Loaded, loadResiduals } from "./_loaded.ts";
-import { cardOf, cardSvgs, checkScreenable, withEnvelope } from "./analysis.ts";
+import { cardOf, checkScreenable, withEnvelope } from "./analysis.ts";
 import * as chain from "./_chain_values.ts";
-import { savable, type SavedFile, saveDisplay } from "../render/save.ts";
+import { saveCard } from "./card_save.ts";
 import type { GroupOptions } from "./group_screen.ts";
 import { CELL_SEPARATOR, groupColumns } from "./group_split.ts";
 import * as order from "./serial_check.ts";
@@ -408,10 +407,7 @@ export class Plumb implements Displayable {
   }
 
   /** Write the card to a file by extension: .html .md .txt .json, .svg/.png (its two charts). */
-  save(path: string): Promise<SavedFile> {
-    const charts = () => cardSvgs(this.analysis(), this.label);
-    return saveDisplay(path, savable(this, `the card of ${this.label}`, { charts }));
-  }
+  readonly save = (path: string): ReturnType<typeof saveCard> => saveCard(path, this);
 
   /** The card: label, counts, reading, QQ plot and histogram, tests, cautions. */
   [DISPLAY](): Promise<MimeBundle> {
@@ -420,11 +416,9 @@ export class Plumb implements Displayable {
 }
 
 /**
- * Start a chain over one numeric variable. Nothing is read or computed until
- * the chain is first shown or read.
- *
- * A query source (`scan(pathOrSql)`) gives a {@linkcode PlumbQuery}: the
- * same analysis computed by its engine, read with `await`.
+ * Start a chain over one numeric variable. Nothing is read or computed until the chain is first
+ * shown or read. A query source (`scan(pathOrSql)`) gives a {@linkcode PlumbQuery}: the same
+ * analysis computed by its engine, read with `await`.
  *
  * @param source a table from `loadTable`, an array of numbers, in-memory
  *   data (rows, columns, a data frame), or a query source from `scan`
