@@ -156,10 +156,15 @@ export function histogramBins(s: BinInput, r: BinRequest): BinLayout {
   }
   if (!(width > 0)) width = range > 0 ? range : 1;
   const step = s.step;
-  if (step !== null && step > 0) {
-    let m = Math.max(1, Math.round(width / step));
+  const cells = step !== null && step > 0 ? Math.round(range / step) + 1 : NaN;
+  // The grid is used only where it is a grid in doubles: a countable number of
+  // cells, and half a step that moves the ends (not so for 1e-300 beside 1e308).
+  if (
+    step !== null && cells <= 2 ** 53 && s.min - step / 2 < s.min &&
+    Number.isFinite(s.max + step / 2) && s.max + step / 2 > s.max
+  ) {
     // Enough bins to cover the grid from min − h/2 to max + h/2, within the cap.
-    const cells = Math.round(range / step) + 1;
+    let m = Math.max(1, Math.round(width / step), Math.ceil(cells / maxBins));
     while (Math.ceil(cells / m) > maxBins) m++;
     const w = m * step;
     if (Math.abs(w - width) > 1e-9 * width && rule === "width") {

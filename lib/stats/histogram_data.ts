@@ -182,16 +182,19 @@ export function histogramData(
     const h = histogramData(data.map((v) => ldexp(v, k)), scaled);
     checkSpreadFinite(ldexp(h.sd, -k), what);
     const back = (a: readonly number[]) => Object.freeze(a.map((v) => ldexp(v, -k)));
-    const edges = back(h.edges) as number[];
+    // Without a grid the outer edges are min and max themselves: keep them
+    // exact (a tiny min scaled down and back can underflow to 0).
+    const pin = (a: readonly number[]) =>
+      h.step === null ? Object.freeze([min, ...back(a).slice(1, -1), max]) : back(a);
     return Object.freeze({
       ...h,
       // A bin spanning values near −1.8e308 to +1.8e308 is wider than the largest double.
       binWidth: Math.min(Number.MAX_VALUE, ldexp(h.binWidth, -k)),
-      edges: Object.freeze(edges),
+      edges: pin(h.edges),
       step,
       mean: ldexp(h.mean, -k),
       sd: ldexp(h.sd, -k),
-      curveX: back(h.curveX),
+      curveX: pin(h.curveX),
     });
   }
   const { mean, sd } = _sampleShape(data, what);

@@ -95,16 +95,18 @@ export function _shapiroWilkGeometrySorted(s: Float64Array): ShapiroWilkGeometry
   mean += drift / n;
   let b = 0;
   for (let k = 0; k < a.length; k++) b += a[k] * (u(s[n - 1 - k]) - u(s[k]));
-  const unit = halve ? 2 * range : range;
+  // Back to the data's units; when the range was halved, double the scaled
+  // value first (it is at most about 1) so that nothing overflows on the way.
+  const units = (v: number) => (halve ? 2 * v : v) * range;
   const root = Math.sqrt(n - 1);
   const sdScaled = Math.sqrt(ss) / root;
   const slopeScaled = b / root;
   const ratio = slopeScaled / sdScaled;
   return Object.freeze({
     n,
-    slope: slopeScaled * unit,
-    intercept: lo + mean * unit,
-    sd: sdScaled * unit,
+    slope: units(slopeScaled),
+    intercept: halve ? lo + mean * range + mean * range : lo + mean * range,
+    sd: units(sdScaled),
     ratio,
     W: Math.min(1, (b * b) / ss),
   });
