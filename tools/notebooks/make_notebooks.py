@@ -94,6 +94,19 @@ NOTEBOOKS = {
         ("md", "## Export the tables\n\nEvery table exports as CSV (numbers unrounded) and Markdown."),
         ("code", 'console.log(fill.toCSV());'),
         ("code", 'console.log(survey(table, { dropText: true }).toMarkdown());'),
+        ("md", "## Save for a report or a slide\n\nEvery display saves itself with `.save(path)`; the file "
+         "type follows the extension (`.svg`, `.png`, `.html`, `.md`, `.csv`, `.json`). `report(...)` "
+         "writes the same self-contained HTML report as `deno task report`, for the table or for any "
+         "set of chains. Here the files go to a temporary folder."),
+        ("code", 'import { report } from "../mod.ts";\n'
+                 'const dir = await Deno.makeTempDir();\n'
+                 'const saved = [\n'
+                 '  await plumb(table, "minutes_between_stops").qq().save(`${dir}/gaps_qq.png`),\n'
+                 '  await fill.save(`${dir}/fill_by_line.csv`),\n'
+                 '  await fill.sentences().save(`${dir}/fill_by_line.md`),\n'
+                 '  await report(table, { by: "line", note: "Invented data." }).save(`${dir}/lab_report.html`),\n'
+                 '];\n'
+                 'for (const s of saved) console.log(`${s.path.slice(dir.length + 1)}: ${s.format}`);'),
     ],
     "04_data_in.ipynb": [
         ("md", "# Data in: workbooks, Parquet, data frames and awkward CSV\n\n" + INVENTED + " The lab's "
