@@ -76,7 +76,12 @@ export { Survey, survey } from "./lib/plumb/survey.ts";
 export type { GroupSentences } from "./lib/plumb/group_sentences.ts";
 export { report, type ReportView } from "./lib/plumb/report_view.ts";
 export type { Report, ReportOptions } from "./lib/plumb/report.ts";
-export type { SurveyOptions, SurveyResult, SurveyRow } from "./lib/plumb/survey_screen.ts";
+export type {
+  SurveyOmission,
+  SurveyOptions,
+  SurveyResult,
+  SurveyRow,
+} from "./lib/plumb/survey_screen.ts";
 
 // Results as plain data, and how they display
 export type { Analysis, SampleOrigin, Subsample, TestOutcome } from "./lib/results/analysis.ts";

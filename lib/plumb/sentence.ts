@@ -170,7 +170,9 @@ export function writeSentence(a: Analysis, options: SentenceOptions = {}): strin
   }`;
   if (options.adjusted) {
     const adj = options.adjusted;
-    test += ` (${proseP(adj.p).replace("p", `${adj.method}-adjusted p`)} over ${adj.family} tests)`;
+    test += ` (${proseP(adj.p).replace("p", `${adj.method}-adjusted p`)} over ${adj.family} test${
+      adj.family === 1 ? "" : "s"
+    })`;
   }
   parts.push(
     `${test}; skewness G1 = ${proseShape(m.G1)}, excess kurtosis G2 = ${proseShape(m.G2)}.`,

@@ -122,6 +122,9 @@ export class Survey implements Displayable {
         `Named more than once in columns, screened once: ${r.repeated.join(", ")}.`,
       );
     }
+    if (r.omitted.length) {
+      for (const o of r.omitted) notes.push(`Left out, ${o.column}: ${o.reason}.`);
+    }
     if (r.textColumns.length) {
       notes.push(
         `Text columns, not screened (use them to group with .by()): ${r.textColumns.join(", ")}.`,
@@ -174,6 +177,9 @@ export class Survey implements Displayable {
         ]
         : [...start, ...blanks(7), r.adjust, "", "", row.skipped];
     });
+    for (const o of r.omitted) {
+      lines.push([o.column, "", "", "", ...blanks(7), r.adjust, "", "", `left out: ${o.reason}`]);
+    }
     return _csv(head, lines);
   }
 
@@ -237,8 +243,9 @@ const MAX_SURVEY_ROWS = 60;
  * @example
  * ```ts
  * import { survey } from "@plumbline/plumbline";
- * const s = survey({ a: [1, 2, 3, 4, 5, 6, 7, 8, 9, 10], b: [1, 1, 2, 3, 5, 8, 13, 21, 34, 55] });
- * if (s.result().rows.length !== 2) throw new Error("rows");
+ * const s = survey({ run: [1, 2, 3, 4, 5, 6, 7, 8, 9, 10], b: [1, 1, 2, 3, 5, 8, 13, 21, 34, 55] });
+ * // run counts rows: left out, with the reason
+ * if (s.result().rows.length !== 1 || s.result().omitted[0].column !== "run") throw new Error("rows");
  * ```
  */
 export function survey(source: QuerySource, options?: SurveyOptions | null): QuerySurvey;

@@ -14,6 +14,7 @@ import { type Adjustment, adjustPValues, checkAdjustment } from "../stats/multip
 import { ANALYSE_MIN_N } from "./analysis.ts";
 import { analyseSides } from "./censored_analysis.ts";
 import { suggestCensoredReexpression } from "./censored_suggest.ts";
+import { identifierColumns } from "./identifiers.ts";
 import { suggestReexpression } from "./reexpress_view.ts";
 import { rowLabelOf } from "./_loaded.ts";
 import { pickColumn } from "./source.ts";
@@ -37,6 +38,21 @@ export interface SurveyOptions {
    * @default false
    */
   readonly dropText?: boolean;
+  /**
+   * Screen columns that look like row identifiers too (a row number, a
+   * 1..n sequence, the unnamed first column an export writes). Columns named
+   * in `columns` are always screened.
+   * @default false (left out, listed in `omitted` with the reason)
+   */
+  readonly identifiers?: boolean;
+}
+
+/** A column of the table left out of the survey, and why. */
+export interface SurveyOmission {
+  /** The column's name. */
+  readonly column: string;
+  /** Why it was left out, in words, with how to include it when that is possible. */
+  readonly reason: string;
 }
 
 /** Every option name of {@linkcode SurveyOptions}. */
@@ -44,6 +60,7 @@ export const SURVEY_OPTION_NAMES: readonly string[] = optionNames<SurveyOptions>
   columns: true,
   adjust: true,
   dropText: true,
+  identifiers: true,
 });
 
 /** One column's row. */
@@ -76,6 +93,8 @@ export interface SurveyResult {
   readonly textColumns: readonly string[];
   /** Names given more than once in `columns`, each screened once. */
   readonly repeated: readonly string[];
+  /** Columns left out before screening: identifiers and columns with no value at all. */
+  readonly omitted: readonly SurveyOmission[];
 }
 
 /**
@@ -118,11 +137,31 @@ const _RANK = { "clear-departure": 0, "mild-departure": 1, "no-clear-departure":
  * departs, p-values adjusted across the columns, rows sorted by departure.
  *
  * @param t the table
- * @param options columns, adjustment, text-cell handling
+ * @param options columns, adjustment, text-cell handling, identifiers
  */
 export function screenColumns(t: Table, options: SurveyOptions): SurveyResult {
   const adjust = checkAdjustment(options.adjust);
-  const { names, repeated } = surveyColumns(t, options.columns);
+  const chosen = surveyColumns(t, options.columns);
+  const { repeated } = chosen;
+  let names = chosen.names;
+  const omitted: SurveyOmission[] = [];
+  if (options.columns === undefined) {
+    for (const c of t.columns) {
+      if (c.kind === "empty") omitted.push({ column: c.name, reason: "every cell is empty" });
+    }
+    if (!options.identifiers) {
+      const ids = identifierColumns(t, names);
+      for (const id of ids) {
+        omitted.push({
+          column: id.name,
+          reason: `${id.reason}, so it names rows rather than measuring anything; ` +
+            `screen it with identifiers: true or by naming it in columns`,
+        });
+      }
+      const left = new Set(ids.map((c) => c.name));
+      names = names.filter((n) => !left.has(n));
+    }
+  }
   const rows: SurveyRow[] = [];
   for (const name of names) {
     const info = t.info(name);
@@ -165,7 +204,9 @@ export function screenColumns(t: Table, options: SurveyOptions): SurveyResult {
         ? "none needed"
         : col.censor
         ? suggestCensoredReexpression(v, col.censor)
-        : suggestReexpression(v);
+        : a.reading.facts.reexpressionHelps
+        ? suggestReexpression(v)
+        : `none: the departure comes from ${a.reading.reason}`;
       rows.push({
         column: name,
         missing,
@@ -192,7 +233,7 @@ export function screenColumns(t: Table, options: SurveyOptions): SurveyResult {
       } else throw e;
     }
   }
-  return surveyResult(t.source, adjust, rows, t.textNames(), repeated);
+  return surveyResult(t.source, adjust, rows, t.textNames(), repeated, omitted);
 }
 
 /**
@@ -205,6 +246,7 @@ export function screenColumns(t: Table, options: SurveyOptions): SurveyResult {
  * @param rows one row per column, screened or skipped
  * @param textColumns text columns, not screened
  * @param repeated column names asked for more than once (screened once)
+ * @param omitted columns left out before screening, with the reason
  */
 export function surveyResult(
   source: string,
@@ -212,6 +254,7 @@ export function surveyResult(
   rows: SurveyRow[],
   textColumns: readonly string[],
   repeated: readonly string[],
+  omitted: readonly SurveyOmission[] = [],
 ): SurveyResult {
   const tested = rows.filter((r) => r.analysis);
   const adj = adjustPValues(tested.map((r) => r.analysis!.primary.pValue), adjust);
@@ -227,5 +270,6 @@ export function surveyResult(
     rows: Object.freeze(rows.map((r) => Object.freeze(r))),
     textColumns: Object.freeze([...textColumns]),
     repeated: Object.freeze([...repeated]),
+    omitted: Object.freeze(omitted.map((o) => Object.freeze(o))),
   });
 }

@@ -2,6 +2,7 @@ import { deepEqual, equal, match } from "node:assert/strict";
 import { loadTable } from "../../lib/data/load_table.ts";
 import { identifierColumns } from "../../lib/plumb/identifiers.ts";
 import { toTable } from "../../lib/plumb/source.ts";
+import { survey } from "../../lib/plumb/survey.ts";
 
 const names = (t: Awaited<ReturnType<typeof loadTable>>) =>
   identifierColumns(t, t.numericNames()).map((c) => c.name);
@@ -39,4 +40,30 @@ Deno.test("measurements are not identifiers: decreasing, repeated, decimal, shor
   // a missing cell breaks a sequence
   const w = await loadTable(`id,fill\n1,5.1\n2,4.9\n,5.3\n4,5.0\n5,5.2\n6,4.4\n`);
   deepEqual(names(w), []);
+});
+
+Deno.test("survey leaves identifiers and empty columns out, says so, and screens them on request", async () => {
+  const t = await loadTable(
+    `,sample,fill,blank\n` +
+      Array.from(
+        { length: 12 },
+        (_, i) => `${i * 2 + 1},${201 + i},${(5 + ((i * 37) % 11) / 20).toFixed(2)},`,
+      ).join("\n") + "\n",
+  );
+  const r = survey(t).result();
+  deepEqual(r.rows.map((x) => x.column), ["fill"]);
+  deepEqual(r.omitted.map((o) => o.column).sort(), ["blank", "column_1", "sample"]);
+  match(r.omitted.find((o) => o.column === "blank")!.reason, /every cell is empty/);
+  match(r.omitted.find((o) => o.column === "sample")!.reason, /201, 202, … 212.*identifiers: true/);
+  const md = survey(t).toMarkdown();
+  match(md, /Left out, column\\?_1: the first column, with no header/);
+  match(md, /Left out, blank: every cell is empty\./);
+  match(survey(t).toCSV(), /\nsample,.*left out: its values run 201/);
+  // asked for: screened
+  deepEqual(
+    survey(t, { identifiers: true }).result().rows.map((x) => x.column).sort(),
+    ["column_1", "fill", "sample"],
+  );
+  deepEqual(survey(t, { columns: ["sample"] }).result().rows.map((x) => x.column), ["sample"]);
+  equal(survey(t, { columns: ["sample"] }).result().omitted.length, 0);
 });
