@@ -84,7 +84,13 @@ export type {
 } from "./lib/plumb/survey_screen.ts";
 
 // Results as plain data, and how they display
-export type { Analysis, SampleOrigin, Subsample, TestOutcome } from "./lib/results/analysis.ts";
+export type {
+  Analysis,
+  SampleOrigin,
+  SerialCheck,
+  Subsample,
+  TestOutcome,
+} from "./lib/results/analysis.ts";
 export {
   type Censoring,
   type CensoringLimit,

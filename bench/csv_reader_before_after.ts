@@ -3,8 +3,8 @@
  * earlier commit's `lib/`, exported to a folder), on the same seeded texts
  * in the same run, alternating, so that machine load affects both alike.
  *
- * Run: `git archive <commit> lib | tar -x -C /tmp/before` then
- * `deno run -A bench/csv_reader_before_after.ts /tmp/before [rows] [repeats]`.
+ * Run: `mkdir -p out/before && git archive <commit> lib | tar -x -C out/before` then
+ * `deno run -A bench/csv_reader_before_after.ts out/before [rows] [repeats]`.
  * Prints the median time of each and their ratio for four-decimal and
  * full-precision numbers, and checks both give the same numbers.
  *
@@ -17,7 +17,7 @@ const before = Deno.args[0];
 if (before === undefined) throw new Error("give the folder holding the earlier lib/");
 const rows = Number(Deno.args[1] ?? 200_000);
 const repeats = Number(Deno.args[2] ?? 9);
-const old = await import(`file://${before}/lib/data/csv_text.ts`);
+const old = await import(new URL(`${before}/lib/data/csv_text.ts`, `file://${Deno.cwd()}/`).href);
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 for (const full of [false, true]) {
   const bytes = new TextEncoder().encode(numericCsv(rows, 10, 20260101, full));

@@ -3,8 +3,7 @@
  * object and computes nothing: the work runs on the first display or the first read, once, and is
  * kept by the object that did it, so later reads (and chains built on it) reuse it.
  *
- * Kept in one file because the chain's caches are the private state of one
- * class: split across files, every cache would have to become public.
+ * Kept in one file because the chain's caches are one class's private state.
  *
  * @module
  */
@@ -434,6 +433,7 @@ export class Plumb implements Displayable {
  * ```
  */
 export function plumb(source: QuerySource, column?: string, options?: PlumbOptions): PlumbQuery;
+/** The chain over in-memory data (a table, an array, rows, columns, a data frame). */
 export function plumb(source: PlumbSource, column?: string, options?: PlumbOptions | null): Plumb;
 export function plumb(
   source: PlumbSource | QuerySource,

@@ -249,6 +249,7 @@ const MAX_SURVEY_ROWS = 60;
  * ```
  */
 export function survey(source: QuerySource, options?: SurveyOptions | null): QuerySurvey;
+/** The survey of in-memory data (a table, rows, columns, a data frame). */
 export function survey(source: PlumbSource, options?: SurveyOptions | null): Survey;
 export function survey(
   source: PlumbSource | QuerySource,
