@@ -143,21 +143,31 @@ function _encoding(enc: _Node, w: number, h: number | undefined, f: _Fonts): _No
 /** Room a chart's own title has beyond its plot: the y axis beside it (no neighbour to run into). */
 const _ROOT_EXTRA = 60;
 
-function _walk(node: _Node, inherited: number | undefined, f: _Fonts, root = false): _Node {
-  const w = _width(node) ?? inherited;
+function _walk(
+  node: _Node,
+  inherited: [number | undefined, number | undefined],
+  f: _Fonts,
+  root = false,
+): _Node {
+  const w = _width(node) ?? inherited[0];
   const out: _Node = { ...node };
   if (w !== undefined && "title" in node) {
     out.title = _title(node.title, root ? w + _ROOT_EXTRA : w, f);
   }
-  const h = typeof node.height === "number" ? node.height : undefined;
+  const h = typeof node.height === "number" ? node.height : inherited[1];
   if (w !== undefined && node.encoding) out.encoding = _encoding(node.encoding, w, h, f);
   for (const key of ["layer", "hconcat", "vconcat", "concat"]) {
     if (Array.isArray(node[key])) {
-      // Children of a layer share its width; concatenated views have their own.
-      out[key] = node[key].map((c: _Node) => _walk(c, key === "layer" ? w : undefined, f));
+      // Children of a layer share its width and height; concatenated views have their own.
+      const size: [number | undefined, number | undefined] = key === "layer"
+        ? [w, h]
+        : [undefined, undefined];
+      out[key] = node[key].map((c: _Node) => _walk(c, size, f));
     }
   }
-  if (node.spec && typeof node.spec === "object") out.spec = _walk(node.spec, undefined, f);
+  if (node.spec && typeof node.spec === "object") {
+    out.spec = _walk(node.spec, [undefined, undefined], f);
+  }
   return out;
 }
 
@@ -181,5 +191,5 @@ function _walk(node: _Node, inherited: number | undefined, f: _Fonts, root = fal
  */
 export function withTextLimits(spec: TopLevelSpec): TopLevelSpec {
   const node = spec as _Node;
-  return _walk(node, undefined, _fonts(node.config), true) as TopLevelSpec;
+  return _walk(node, [undefined, undefined], _fonts(node.config), true) as TopLevelSpec;
 }
