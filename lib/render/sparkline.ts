@@ -5,7 +5,7 @@
  * `<img>` whose source is the SVG itself (a `data:` URL): Jupyter's sanitiser
  * removes inline `<svg>` from an untrusted notebook but keeps `<img>`, and
  * the class `unconfined` keeps the classic page from squeezing it in a table
- * cell.
+ * cell (its style does the same in a static export).
  *
  * @module
  */
@@ -88,7 +88,7 @@ export function qqSparkline(d: SparklineData, options: SparklineOptions = {}): s
   const b64 = Buffer.from(svg, "utf8").toString("base64");
   const title = escapeHtml(options.title ?? "QQ sparkline");
   return `<img class="unconfined" src="data:image/svg+xml;base64,${b64}" width="${w}" ` +
-    `height="${h}" alt="${title}" title="${title}"/>`;
+    `height="${h}" style="max-width:none;min-width:${w}px" alt="${title}" title="${title}"/>`;
 }
 
 /**
