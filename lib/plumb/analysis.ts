@@ -65,7 +65,8 @@ export const ANALYSE_MIN_N = 4;
 /** The name input errors give, as `moments()` would (the first step of the analysis). */
 const _MOMENTS = "the skewness and kurtosis summary";
 
-function _run(name: string, f: () => TestResult): TestOutcome {
+/** Run one test; a sample too small or too large for it gives a skipped outcome with the reason. */
+export function _runTest(name: string, f: () => TestResult): TestOutcome {
   try {
     return Object.freeze({ test: name, result: f() });
   } catch (e) {
@@ -139,7 +140,7 @@ export function analyse(
   }
   const tests: TestOutcome[] = [
     Object.freeze({ test: first.name, result: primary }),
-    ...others.map((t) => _run(t.name, () => t.runPrepared(prepared))),
+    ...others.map((t) => _runTest(t.name, () => t.runPrepared(prepared))),
   ];
   const own = options.rowLabel
     ? _qqDataSorted(values, sorted, shape, { ...options.qq }, options.rowLabel)

@@ -6,8 +6,8 @@
  *
  * @module
  */
-import { PlumbError } from "../errors.ts";
 import type { Analysis, Subsample, TestOutcome } from "../results/analysis.ts";
+import { _runTest } from "../plumb/analysis.ts";
 import { readShape } from "../plumb/reading.ts";
 import { _fitLambda } from "../reexpress/_fit.ts";
 import { _boxCoxProfile } from "../reexpress/_profile.ts";
@@ -76,17 +76,6 @@ export interface ColumnCounts {
   readonly n: number;
   readonly lo: number;
   readonly hi: number;
-}
-
-function _run(name: string, f: () => TestResult): TestOutcome {
-  try {
-    return Object.freeze({ test: name, result: f() });
-  } catch (e) {
-    if (e instanceof PlumbError && (e.code === "too-few" || e.code === "too-many")) {
-      return Object.freeze({ test: name, skipped: e.message });
-    }
-    throw e;
-  }
 }
 
 /** The note every sampled result carries. */
@@ -158,11 +147,11 @@ export async function screenColumn(
   const primary = sampled(shapiroWilk)();
   const tests: TestOutcome[] = [
     Object.freeze({ test: "Shapiro–Wilk", result: primary }),
-    _run("Shapiro–Francia", sampled(shapiroFrancia)),
-    _run("Anderson–Darling", sampled(andersonDarling)),
-    _run("Lilliefors", sampled(lilliefors)),
-    _run("D'Agostino–Pearson", () => _dagostinoPearsonOf(n, shape)),
-    _run("Jarque–Bera", () => _jarqueBeraOf(n, shape)),
+    _runTest("Shapiro–Francia", sampled(shapiroFrancia)),
+    _runTest("Anderson–Darling", sampled(andersonDarling)),
+    _runTest("Lilliefors", sampled(lilliefors)),
+    _runTest("D'Agostino–Pearson", () => _dagostinoPearsonOf(n, shape)),
+    _runTest("Jarque–Bera", () => _jarqueBeraOf(n, shape)),
   ];
   const qq = _qqBuild(n, shape.mean, shape.sd, options.qq, (rs) => ({
     value: Float64Array.from(rs, (r) => valueAt.get(r)!),
