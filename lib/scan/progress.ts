@@ -20,7 +20,13 @@ function _line(p: ScanProgress): string {
 
 /** A progress callback for the current environment, or undefined where none can be shown. */
 export function _progressReporter(): ((p: ScanProgress) => void) | undefined {
-  const jupyter = (Deno as unknown as { jupyter?: _Jupyter }).jupyter;
+  let jupyter: _Jupyter | undefined;
+  try {
+    // outside `deno jupyter` the namespace is a getter that throws
+    jupyter = (Deno as unknown as { jupyter?: _Jupyter }).jupyter;
+  } catch {
+    jupyter = undefined;
+  }
   if (jupyter && typeof jupyter.broadcast === "function") {
     const id = `plumbline-scan-${crypto.randomUUID()}`;
     let shown = false;

@@ -230,3 +230,9 @@ Deno.test("the card of a scanned column names no source rows", async () => {
   assert.match(card["text/plain"], /farthest 40/);
   assert.doesNotMatch(card["text/plain"], /\(row/);
 });
+
+Deno.test("a scan with the default progress works outside a notebook (no Jupyter namespace)", async () => {
+  // In `deno run` and `deno test`, reading Deno.jupyter throws; the default progress must not.
+  const a = await plumb(scan("SELECT i * 0.25 AS gap_mm FROM range(50) t(i)")).analysis();
+  assert.equal(a.n, 50);
+});
