@@ -21,7 +21,7 @@ export function stepGroup(
   group: {
     readonly values: Float64Array;
     readonly censor?: Int8Array;
-    readonly rows: readonly number[];
+    readonly rows: ArrayLike<number>;
   },
   steps: readonly Step[],
   where: { readonly column: string; readonly table: Table },

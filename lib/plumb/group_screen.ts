@@ -147,8 +147,11 @@ export function screenGroups(state: GroupState): GroupResult {
   const adjust = checkAdjustment(state.groupOptions.adjust);
   const split = splitGroups(given ? { ...state, values: () => given } : state);
   const label = given ? given.label : stepLabel(column, steps);
-  const residuals: number[] = [];
-  const residualSides: number[] = [];
+  // Each group's values less its centre, pooled (at most one value per used row), with their sides.
+  const total = split.groups.reduce((k, g) => k + g.values.length, 0);
+  const residuals = new Float64Array(given ? 0 : total);
+  const residualSides = new Int8Array(given ? 0 : total);
+  let pooled = 0;
   const rows: GroupRow[] = [];
   for (const group of split.groups) {
     const { group: key, rows: idx, missingDropped, textDropped } = group;
@@ -156,10 +159,11 @@ export function screenGroups(state: GroupState): GroupResult {
     const { values: v, censor: c } = stepGroup(group, steps, { column, table: state.table });
     const centre = groupCentre(v, c);
     if (centre !== null && !given) {
-      v.forEach((t, i) => {
-        residuals.push(t - centre);
-        residualSides.push(c ? c[i] : 0);
-      });
+      for (let i = 0; i < v.length; i++) {
+        residuals[pooled] = v[i] - centre;
+        if (c) residualSides[pooled] = c[i];
+        pooled++;
+      }
     }
     if (v.length < ANALYSE_MIN_N) {
       rows.push({
@@ -172,11 +176,10 @@ export function screenGroups(state: GroupState): GroupResult {
       });
       continue;
     }
-    const rowsOf = Int32Array.from(idx, (i) => i + 1);
     const transform = steps.length ? label : undefined;
     try {
       const serial = state.order &&
-        serialCheck(state.table, state.order, { values: v, rows: Int32Array.from(idx) });
+        serialCheck(state.table, state.order, { values: v, rows: idx });
       const notes = notesWith(given?.notes, serial);
       const origin = {
         label: `${label} — ${groupBy} = ${key}`,
@@ -185,7 +188,10 @@ export function screenGroups(state: GroupState): GroupResult {
         transform,
         notes,
       };
-      const a0 = analyseSides(v, c, { ...origin, ...counts, rows: rowsOf }, { qq: options.qq });
+      const a0 = analyseSides(v, c, { ...origin, ...counts }, {
+        qq: options.qq,
+        rowLabel: (j) => idx[j] + 1,
+      });
       const a = serial ? Object.freeze({ ...a0, serial }) : a0;
       rows.push({ group: key, n: v.length, ...counts, analysis: a });
     } catch (e) {
@@ -200,7 +206,7 @@ export function screenGroups(state: GroupState): GroupResult {
     }
   }
   let res: Analysis | undefined;
-  if (residuals.length >= ANALYSE_MIN_N) {
+  if (pooled >= ANALYSE_MIN_N) {
     const cells = groupColumns.length > 1;
     const origin = {
       label: `${label} residuals within ${groupBy}${cells ? " cells" : ""}`,
@@ -215,8 +221,9 @@ export function screenGroups(state: GroupState): GroupResult {
         : undefined,
     };
     try {
-      const sides = Int8Array.from(residualSides);
-      res = analyseSides(Float64Array.from(residuals), sides, origin, { qq: options.qq });
+      const sides = residualSides.subarray(0, pooled);
+      const censored = sides.some((side) => side !== 0) ? sides : null;
+      res = analyseSides(residuals.subarray(0, pooled), censored, origin, { qq: options.qq });
     } catch (e) {
       const known = ["constant", "too-few", "overlapping-limits"];
       if (!(e instanceof PlumbError && known.includes(e.code))) throw e;

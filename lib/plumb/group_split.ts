@@ -8,6 +8,7 @@
  */
 import type { MergedLabel, Table } from "../data/table.ts";
 import { PlumbError } from "../errors.ts";
+import { _numericCellsShared, _numericColumnShared } from "../data/numeric_column.ts";
 import type { GroupState } from "./group_screen.ts";
 import { pickColumn } from "./source.ts";
 import { CELL_SEPARATOR, compareCells, givenCells } from "./_group_cells.ts";
@@ -21,7 +22,7 @@ export interface GroupSample {
   /** The group's values in original units (before any re-expression), in row order. */
   readonly values: Float64Array;
   /** Their 0-based row indices in the table. */
-  readonly rows: readonly number[];
+  readonly rows: Int32Array;
   /** Each value's censoring side (0 measured, −1 below, 1 above its limit), when any is censored. */
   readonly censor?: Int8Array;
   /** The group's missing cells, left out. */
@@ -55,13 +56,21 @@ export interface GroupSplit {
 export function splitGroups(state: GroupState): GroupSplit {
   const { table, column, groupBy, options } = state;
   const given = state.values?.();
+  // The column is read from the table's own arrays where it holds them (read
+  // only); the one copy is the groups' values, gathered once into one array.
   const used = given
     ? { provenance: { missingDropped: given.missing, textDropped: given.text } }
-    : table.numeric(column, { dropText: options.dropText ?? false });
-  const cells = given ? givenCells(given, table.rowCount).cells : table.numericCells(column);
+    : _numericColumnShared(table, column, { dropText: options.dropText ?? false });
+  const cells = given
+    ? givenCells(given, table.rowCount).cells
+    : _numericCellsShared(table, column);
   const gs = (state.groupColumns ?? [groupBy]).map((c) => table.text(c));
-  // Per group (or cell): the rows holding a number, and the cells left out.
-  const byGroup = new Map<string, { rows: number[]; missing: number; text: number }>();
+  // Pass 1: each used row's group (or cell) id; per group, its count and the cells left out.
+  const ids = new Map<string, number>();
+  const count: number[] = [];
+  const missing: number[] = [];
+  const text: number[] = [];
+  const groupOf = new Int32Array(table.rowCount).fill(-1);
   let noGroup = 0;
   for (let i = 0; i < table.rowCount; i++) {
     if (gs.some((g) => g.missing[i])) {
@@ -69,24 +78,53 @@ export function splitGroups(state: GroupState): GroupSplit {
       continue;
     }
     const key = gs.length === 1 ? gs[0].values[i] : gs.map((g) => g.values[i]).join(CELL_SEPARATOR);
-    let entry = byGroup.get(key);
-    if (!entry) byGroup.set(key, entry = { rows: [], missing: 0, text: 0 });
-    if (cells.missing[i]) entry.missing++;
-    else if (cells.nonNumeric[i]) entry.text++;
-    else entry.rows.push(i);
+    let id = ids.get(key);
+    if (id === undefined) {
+      ids.set(key, id = count.length);
+      count.push(0);
+      missing.push(0);
+      text.push(0);
+    }
+    if (cells.missing[i]) missing[id]++;
+    else if (cells.nonNumeric[i]) text[id]++;
+    else {
+      groupOf[i] = id;
+      count[id]++;
+    }
   }
-  const groups = [...byGroup.keys()].sort((a, b) => compareCells(a, b, gs.length)).map((key) => {
-    const { rows, missing, text } = byGroup.get(key)!;
-    const sides = cells.censor;
+  // Pass 2: each group's values, rows (and sides), contiguous, groups in natural order.
+  const keys = [...ids.keys()].sort((a, b) => compareCells(a, b, gs.length));
+  const start = new Int32Array(keys.length + 1);
+  const next = new Int32Array(keys.length);
+  keys.forEach((key, k) => {
+    const id = ids.get(key)!;
+    next[id] = start[k];
+    start[k + 1] = start[k] + count[id];
+  });
+  const total = start[keys.length];
+  const values = new Float64Array(total);
+  const rows = new Int32Array(total);
+  const sides = cells.censor;
+  const censor = sides ? new Int8Array(total) : undefined;
+  for (let i = 0; i < table.rowCount; i++) {
+    const id = groupOf[i];
+    if (id < 0) continue;
+    const at = next[id]++;
+    values[at] = cells.values[i];
+    rows[at] = i;
+    if (censor) censor[at] = sides![i];
+  }
+  const groups = keys.map((key, k) => {
+    const id = ids.get(key)!;
+    const [a, b] = [start[k], start[k + 1]];
+    const c = censor?.subarray(a, b);
     return Object.freeze({
       group: key,
-      values: Float64Array.from(rows, (i) => cells.values[i]),
-      rows,
-      missingDropped: missing,
-      textDropped: text,
-      ...(sides && rows.some((i) => sides[i] !== 0)
-        ? { censor: Int8Array.from(rows, (i) => sides[i]) }
-        : {}),
+      values: values.subarray(a, b),
+      rows: rows.subarray(a, b),
+      missingDropped: missing[id],
+      textDropped: text[id],
+      ...(c && c.some((side) => side !== 0) ? { censor: c } : {}),
     });
   });
   return Object.freeze({
