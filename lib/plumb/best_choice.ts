@@ -18,7 +18,7 @@
  *
  * @module
  */
-import type { ReexpressionSearch } from "../reexpress/candidates.ts";
+import type { ReexpressionRanking } from "../reexpress/candidates.ts";
 import { applyReexpression } from "../reexpress/reexpression.ts";
 import { formatNumber, formatPClause } from "../results/format.ts";
 import type { Reading } from "../results/reading.ts";
@@ -49,7 +49,7 @@ const _INSTEAD: Readonly<Record<string, string>> = Object.freeze({
  *
  * @param values the sample as the chain holds it
  * @param reading the sample's reading
- * @param search the ranked candidates (`searchReexpressions(values)`)
+ * @param search the ranked candidates (`rankReexpressions(values)`, or a full search)
  *
  * @example
  * ```ts
@@ -67,7 +67,7 @@ const _INSTEAD: Readonly<Record<string, string>> = Object.freeze({
 export function chooseBestStep(
   values: Float64Array,
   reading: Reading,
-  search: ReexpressionSearch,
+  search: ReexpressionRanking,
 ): BestChoice {
   const keep = (note: string): BestChoice => Object.freeze({ step: undefined, note });
   if (reading.verdict === "no-clear-departure") {

@@ -13,6 +13,7 @@ import { PlumbError } from "../errors.ts";
 import { optionNames } from "../results/options.ts";
 import type { Analysis } from "../results/analysis.ts";
 import type { Reexpression } from "../reexpress/reexpression.ts";
+import { pooledMeasurementStep } from "../stats/measurement_step.ts";
 import type { QqOptions } from "../stats/qq_data.ts";
 import { type Adjustment, checkAdjustment } from "../stats/multiplicity.ts";
 import { ANALYSE_MIN_N } from "./analysis.ts";
@@ -220,10 +221,15 @@ export function screenGroups(state: GroupState): GroupResult {
         ]
         : undefined,
     };
+    // residuals keep the data's step; a re-expression keeps no grid
+    const step = steps.length ? null : pooledMeasurementStep(split.groups.map((g) => g.values));
     try {
       const sides = residualSides.subarray(0, pooled);
       const censored = sides.some((side) => side !== 0) ? sides : null;
-      res = analyseSides(residuals.subarray(0, pooled), censored, origin, { qq: options.qq });
+      res = analyseSides(residuals.subarray(0, pooled), censored, origin, {
+        qq: options.qq,
+        step,
+      });
     } catch (e) {
       const known = ["constant", "too-few", "overlapping-limits"];
       if (!(e instanceof PlumbError && known.includes(e.code))) throw e;
@@ -242,30 +248,4 @@ export function screenGroups(state: GroupState): GroupResult {
     groupColumns: Object.freeze([...groupColumns]),
     order: state.order ? state.order.column ?? "file order" : undefined,
   });
-}
-
-/**
- * The note for labels merged because they differ only in spaces, with each
- * spelling shown so that its spaces can be seen (`"A\u00a0"`).
- *
- * @example
- * ```ts
- * import { mergedLabelsNote } from "./group_screen.ts";
- * const note = mergedLabelsNote("line", [{ label: "A", spellings: ["A", " A", "A\u00a0"] }]);
- * if (note !== 'Labels of line that differ only in spaces were merged: "A" (written "A", " A", "A\\u00a0").') {
- *   throw new Error(note);
- * }
- * ```
- */
-export function mergedLabelsNote(by: string, merged: readonly MergedLabel[]): string {
-  const visible = (s: string) =>
-    JSON.stringify(s).replace(
-      /[\u0080-\uffff]/g,
-      (c) => /\s|\u200b|\u180e/.test(c) ? `\\u${c.charCodeAt(0).toString(16).padStart(4, "0")}` : c,
-    );
-  const shown = merged.slice(0, 5).map((m) =>
-    `${visible(m.label)} (written ${m.spellings.map(visible).join(", ")})`
-  );
-  const more = merged.length > 5 ? ` and ${merged.length - 5} more labels` : "";
-  return `Labels of ${by} that differ only in spaces were merged: ${shown.join("; ")}${more}.`;
 }

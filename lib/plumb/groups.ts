@@ -24,20 +24,29 @@ import { ADJUSTMENT_NAMES, checkAdjustment } from "../stats/multiplicity.ts";
 import { VERDICT_SHORT } from "../results/reading.ts";
 import type { StakesOptions } from "../stakes/stakes.ts";
 import { stakesOptions } from "./stakes_view.ts";
-import { writeSentence } from "./sentence.ts";
+import { LIST_CAUTIONS, writeSentence } from "./sentence.ts";
 import { type GroupStakesView, groupStakesView } from "./stakes_groups.ts";
 import { cardOf } from "./analysis.ts";
 import { shownGroups } from "./group_pick.ts";
 import { type GroupSentences, listBundle } from "./group_sentences.ts";
 import { _csv } from "./_csv.ts";
+import { mergedLabelsNote } from "./merged_labels_note.ts";
 import * as summary from "./_rows.ts";
-import {
-  type GroupResult,
-  type GroupRow,
-  type GroupState,
-  mergedLabelsNote,
-  screenGroups,
-} from "./group_screen.ts";
+import { type GroupResult, type GroupRow, type GroupState, screenGroups } from "./group_screen.ts";
+
+/** The cells a skipped group left out, as a clause (empty when none). */
+function _leftOut(missing: number, text: number): string {
+  const parts = [];
+  if (missing > 0) parts.push(`${formatCount(missing)} missing cell${missing === 1 ? "" : "s"}`);
+  if (text > 0) parts.push(`${formatCount(text)} non-numeric cell${text === 1 ? "" : "s"}`);
+  return parts.length ? ` (${parts.join(" and ")} left out)` : "";
+}
+
+/** What to say when the grouping column gives no group at all. */
+function _noGroups(r: GroupResult): string {
+  return `No group to screen: every cell of ${r.groupBy} is empty` +
+    (r.noGroup > 0 ? `, so all ${formatCount(r.noGroup)} values of ${r.label} are left out` : "");
+}
 
 /** A group's serial dependence in a cell: whether it shows, and r₁. */
 function serialCell(a: NonNullable<GroupResult["groups"][number]["analysis"]>): string {
@@ -109,11 +118,10 @@ export class PlumbGroups implements Displayable {
         { text: "", html: spark },
       ];
     });
-    const notes = [
-      `p: Shapiro–Wilk; adjusted p: ${adjName} across the ${
-        r.groups.filter((g) => g.analysis).length
-      } groups screened.`,
-    ];
+    const count = r.groups.filter((g) => g.analysis).length;
+    const notes = count > 0
+      ? [`p: Shapiro–Wilk; adjusted p: ${adjName} across the ${count} groups screened.`]
+      : [];
     if (r.order) {
       notes.push(
         `In ${
@@ -127,6 +135,7 @@ export class PlumbGroups implements Displayable {
     const censored = summary.censoredNote(screened);
     if (censored) notes.push(censored);
     if (r.mergedLabels.length > 0) notes.push(mergedLabelsNote(r.groupBy, r.mergedLabels));
+    if (r.groups.length === 0) notes.push(`${_noGroups(r)}.`);
     if (r.noGroup > 0) {
       notes.push(
         `${r.noGroup} row${r.noGroup === 1 ? "" : "s"} with no ${r.groupBy} value left out.`,
@@ -164,26 +173,33 @@ export class PlumbGroups implements Displayable {
   }
 
   /**
-   * One write-up paragraph per group screened (with its adjusted p), then
-   * one for the pooled residuals; displayable as a list.
+   * One write-up paragraph per group (screened, with its adjusted p, or
+   * why not), one for the pooled residuals, then the cautions that apply to
+   * all of them, once; displayable as a list.
    */
   sentences(): GroupSentences {
     const r = this.result();
     const family = r.groups.filter((g) => g.analysis).length;
     const write = (g: GroupRow) =>
-      writeSentence(g.analysis!, {
-        adjusted: r.adjust === "none"
-          ? undefined
-          : { p: g.adjustedP!, method: ADJUSTMENT_NAMES[r.adjust], family },
-      });
-    const texts = r.groups.filter((g) => g.analysis).map(write);
-    if (r.residuals) texts.push(writeSentence(r.residuals));
+      g.analysis
+        ? writeSentence(g.analysis, {
+          adjusted: r.adjust === "none"
+            ? undefined
+            : { p: g.adjustedP!, method: ADJUSTMENT_NAMES[r.adjust], family },
+          cautions: false,
+        })
+        : `${r.label} — ${r.groupBy} = ${g.group}: not screened, ${g.skipped}${
+          _leftOut(g.missingDropped, g.textDropped)
+        }.`;
+    const tail = r.groups.length === 0 ? [`${_noGroups(r)}.`] : [];
+    if (r.residuals) tail.push(writeSentence(r.residuals, { cautions: false }));
+    tail.push(`For all of the above: a${LIST_CAUTIONS.slice(1)}`); // "A large p …"
+    const texts = [...r.groups.map(write), ...tail];
     const frozen = Object.freeze(texts);
     // The display holds the groups the table shows; every paragraph is in
     // `texts` and in saved files.
     const shown = shownGroups(this.result(), MAX_GROUP_ROWS);
-    const visible = shown.groups.filter((g) => g.analysis).map(write);
-    if (r.residuals) visible.push(writeSentence(r.residuals));
+    const visible = [...shown.groups.map(write), ...tail];
     const bundle = listBundle(visible, shown.note);
     let all: MimeBundle | undefined;
     const view: GroupSentences = Object.freeze({

@@ -31,7 +31,8 @@ import * as order from "./serial_check.ts";
 import { PlumbGroups } from "./groups.ts";
 import { lambdaExplorer } from "./lambda_view.ts";
 import { PlumbQuery } from "./query_chain.ts";
-import { type CandidatesView, candidatesView, chosenStep } from "./reexpress_view.ts";
+import { type CandidatesView, candidatesView } from "./reexpress_view.ts";
+import { chooseBestStep } from "./best_choice.ts";
 import * as fitting from "./residual_link.ts";
 import type { LinearModelFit } from "../stats/linear_model.ts";
 import { type Sentence, sentenceOf, type SentenceOptions, writeSentence } from "./sentence.ts";
@@ -75,6 +76,7 @@ export class Plumb implements Displayable {
   readonly #model: fitting.ResidualLink | undefined;
   // Kept on first need; undefined means not yet computed.
   #step: Step | null | undefined;
+  #bestNote: string | undefined;
   #loaded: Loaded | undefined;
   #analysis: Analysis | undefined;
   #ranking: ReexpressionRanking | undefined;
@@ -126,7 +128,7 @@ export class Plumb implements Displayable {
   get choice(): ReexpressionChoice | null {
     if (this.#parent === undefined || this.#request === undefined) return null;
     const step = this.#resolved(), request = this.#request;
-    const reason = request === "best" ? this.#parent.#ranked().reason : step?.note;
+    const reason = request === "best" ? this.#bestNote : step?.note;
     return Object.freeze({
       request,
       reexpression: step?.reexpression ?? null,
@@ -146,12 +148,12 @@ export class Plumb implements Displayable {
 
   #resolved(): Step | null {
     if (this.#step !== undefined) return this.#step;
-    const parent = this.#parent!;
-    const request = this.#request!;
-    this.#step = request === "best"
-      ? chosenStep(parent.#ranked())
-      : resolveStep(request, parent.#load().values);
-    return this.#step;
+    const parent = this.#parent!, request = this.#request!, values = parent.#load().values;
+    if (request !== "best") return (this.#step = resolveStep(request, values));
+    // kept as they are when a power cannot help or no candidate is adequate
+    const best = chooseBestStep(values, parent.analysis().reading, parent.#ranked());
+    this.#bestNote = best.note;
+    return (this.#step = best.step ?? null);
   }
 
   #fitted(): fitting.ResidualValues {
@@ -306,11 +308,7 @@ export class Plumb implements Displayable {
     return this.#chart("detrended", options, detrendedSpec);
   }
 
-  #chart(
-    kind: "qq" | "detrended",
-    options: QqOptions,
-    draw: typeof qqSpec,
-  ): Chart {
+  #chart(kind: "qq" | "detrended", options: QqOptions, draw: typeof qqSpec): Chart {
     const own = Object.keys(options).length === 0;
     if (own && this.#charts[kind]) return this.#charts[kind]!;
     const slope =

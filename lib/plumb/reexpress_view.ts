@@ -8,7 +8,7 @@
 import { PlumbError } from "../errors.ts";
 import { backTransformMean } from "../reexpress/back_transform.ts";
 import { applyReexpression } from "../reexpress/reexpression.ts";
-import type { ReexpressionRanking, ReexpressionSearch } from "../reexpress/candidates.ts";
+import type { ReexpressionSearch } from "../reexpress/candidates.ts";
 import { rankReexpressions } from "../reexpress/search.ts";
 import { chartBundle, specSvg } from "../render/chart_bundle.ts";
 import { savable, type SavedFile, saveDisplay } from "../render/save.ts";
@@ -19,7 +19,7 @@ import { formatCount, formatNumber, formatP } from "../results/format.ts";
 import { SHAPIRO_WILK_MAX_N } from "../stats/shapiro_wilk.ts";
 import { tableHtml, tableMarkdown, type TableModel, tableText } from "../render/table.ts";
 import { qqData } from "../stats/qq_data.ts";
-import { type Step, stepLabel, stepOf } from "./steps.ts";
+import { stepLabel, stepOf } from "./steps.ts";
 import { _csv } from "./_csv.ts";
 
 /** The ranked candidates as a table model. */
@@ -220,12 +220,6 @@ export function candidatesView(
       ),
   });
   return view;
-}
-
-/** The chosen candidate as a step, or `null` when it is "as measured". */
-export function chosenStep(s: ReexpressionRanking): Step | null {
-  if (s.chosen.reexpression.kind === "identity") return null;
-  return stepOf(s.chosen.reexpression, s.reason);
 }
 
 /** The chosen candidate's formula in `x` for a survey row (`"none better than x"` when none helps). */

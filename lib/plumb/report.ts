@@ -13,6 +13,7 @@ import { escapeHtml } from "../render/escape.ts";
 import { staticPage } from "../render/save.ts";
 import { type Plumb, plumb } from "./plumb.ts";
 import { survey } from "./survey.ts";
+import { LIST_CAUTIONS } from "./sentence.ts";
 
 /** Options for {@linkcode writeReport}. */
 export interface ReportOptions {
@@ -113,17 +114,17 @@ async function _sections(
     if (suggestion === "ln(x)") {
       const logged = p.reexpress("log");
       parts.push(`<h3>${escapeHtml(logged.label)}</h3>${await _html(logged)}`);
-      sentences.push(logged.sentence().text);
+      sentences.push(logged.sentence({ cautions: false }).text);
     }
   } else if (a.reading.verdict !== "no-clear-departure") {
     parts.push(`<h3>Re-expressions of ${name}</h3>${await _html(p.candidates())}`);
     const best = p.reexpress("best");
     if (best.steps.length > p.steps.length) {
       parts.push(`<h3>${escapeHtml(best.label)}</h3>${await _html(best)}`);
-      sentences.push(best.sentence().text);
+      sentences.push(best.sentence({ cautions: false }).text);
     }
   }
-  sentences.push(p.sentence().text);
+  sentences.push(p.sentence({ cautions: false }).text);
   return parts.join("\n");
 }
 
@@ -143,7 +144,8 @@ async function _assemble(
   }
   parts.push(
     `<h2>Write-up</h2>${
-      sentences.map((t) => `<p style="max-width:860px">${escapeHtml(t)}</p>`).join("\n")
+      [...sentences, LIST_CAUTIONS]
+        .map((t) => `<p style="max-width:860px">${escapeHtml(t)}</p>`).join("\n")
     }`,
   );
   const body = `<h1>${escapeHtml(title)}</h1>

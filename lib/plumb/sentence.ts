@@ -51,7 +51,7 @@ export interface SentenceOptions {
   /**
    * End with the standard cautions (a large p is not proof; residuals before
    * a t-test; decisions follow your procedures). A list of sentences states
-   * them once, after the last one, instead.
+   * them once, after the last one, instead (`LIST_CAUTIONS`).
    * @default true
    */
   readonly cautions?: boolean;
@@ -62,6 +62,15 @@ export const SENTENCE_CAUTIONS: readonly string[] = Object.freeze([
   "Before a t-test or ANOVA, judge normality from the residuals' QQ plot rather than using this test as a gate.",
   "Where this result feeds a clinical, safety or product-release decision, that decision follows your organisation's own procedures and the applicable standards; a normality check is one input to it.",
 ]);
+
+/**
+ * The cautions a list of sentences (written with `cautions: false`) ends
+ * with, once: a large p is not proof, then {@linkcode SENTENCE_CAUTIONS}.
+ */
+export const LIST_CAUTIONS: string = [
+  "A large p does not show that data are normal, only that the sample cannot tell them apart from a normal distribution.",
+  ...SENTENCE_CAUTIONS,
+].join(" ");
 
 /** What the reading found, as a clause for the write-up (empty when nothing is named). */
 function _findings(a: Analysis): string[] {
@@ -202,7 +211,10 @@ export function writeSentence(a: Analysis, options: SentenceOptions = {}): strin
       `The values were re-expressed as ${origin.transform} before testing, so these statements apply on that scale.`,
     );
   }
-  if (primary.pValue >= 0.05) {
+  if (primary.pValue >= 0.05 && !(options.cautions ?? true)) {
+    // in a list the general caution comes once, at the end; the sample's own size stays here
+    if (n < 50) parts.push(`With ${n} values a large p is weak evidence of normality.`);
+  } else if (primary.pValue >= 0.05) {
     parts.push(
       `A large p does not show that the data are normal, only that this sample cannot tell them apart from a normal distribution${
         n < 50 ? `, and with ${n} values that is weak evidence` : ""

@@ -215,6 +215,6 @@ export interface ReexpressionChoice {
   readonly request: ReexpressRequest;
   /** The re-expression applied; `null` when the data are kept as they are. */
   readonly reexpression: Reexpression | null;
-  /** Why: the search's reason for `"best"`, the shift rule for a log with a chosen shift. */
+  /** Why: what `"best"` chose (or why it kept the data), the shift rule for a chosen log. */
   readonly reason: string;
 }

@@ -27,6 +27,7 @@
  * @module
  */
 import { sortedSample } from "./_input.ts";
+import { sortFloat64 } from "../numeric/sort.ts";
 
 /** The step of a sample, as frozen plain data. */
 export interface MeasurementStep {
@@ -126,4 +127,30 @@ function _fits(s: Float64Array, h: number, same: number, tol: number): boolean {
     last = s[i];
   }
   return true;
+}
+
+/**
+ * The measurement step of several samples recorded alike, pooled (e.g. the
+ * groups of one variable): within-group residuals inherit it, since each
+ * group's mean shifts its values off the common grid and their own apparent
+ * step would be noise. `null` when there is no step or fewer than 2 distinct
+ * values.
+ *
+ * @param parts the samples
+ *
+ * @example
+ * ```ts
+ * import { pooledMeasurementStep } from "./measurement_step.ts";
+ * const step = pooledMeasurementStep([new Float64Array([4.1, 4.3, 4.2]), new Float64Array([5.0, 5.4])]);
+ * if (Math.abs(step! - 0.1) > 1e-12) throw new Error(String(step));
+ * ```
+ */
+export function pooledMeasurementStep(parts: readonly Float64Array[]): number | null {
+  const all = new Float64Array(parts.reduce((t, p) => t + p.length, 0));
+  let k = 0;
+  for (const p of parts) all.set(p, (k += p.length) - p.length);
+  const finite = all.filter(Number.isFinite);
+  sortFloat64(finite);
+  if (finite.length < 2 || finite[0] === finite[finite.length - 1]) return null;
+  return _measurementStepSorted(finite).step;
 }

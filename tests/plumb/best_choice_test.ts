@@ -2,6 +2,7 @@ import { equal, match } from "node:assert/strict";
 import { seededRandom } from "../../lib/numeric/random.ts";
 import { analyse } from "../../lib/plumb/analysis.ts";
 import { chooseBestStep } from "../../lib/plumb/best_choice.ts";
+import { plumb } from "../../lib/plumb/plumb.ts";
 import { searchReexpressions } from "../../lib/reexpress/search.ts";
 
 const rng = seededRandom(5);
@@ -59,4 +60,34 @@ Deno.test("when even the best candidate still departs clearly, none is applied a
     c.note,
     /^No candidate is adequate: the best, .*, still departs clearly from normal \(W = 0\.\d{4}, p/,
   );
+});
+
+Deno.test("the chain: .reexpress() keeps a clustered sample as it is and says why; a skewed one is re-expressed", () => {
+  const x = [
+    ...Array.from({ length: 543 }, () => 4.2 + 0.35 * rng.normal()),
+    ...Array.from({ length: 17 }, () => 6.8 + 0.3 * rng.normal()),
+  ];
+  const kept = plumb(x, "potassium").reexpress();
+  equal(kept.steps.length, 0);
+  equal(kept.label, "potassium");
+  equal(kept.choice?.reexpression, null);
+  match(
+    kept.choice!.reason,
+    /^No re-expression applied: the departure comes from a separate cluster/,
+  );
+  const logged = plumb(Array.from({ length: 200 }, () => Math.exp(0.5 * rng.normal())), "gap")
+    .reexpress("best");
+  equal(logged.label, "ln(gap)");
+});
+
+Deno.test("the chain: a floor pile-up (372 of 506 at 0) is kept by .reexpress(), with the reason", () => {
+  // the issue's case: ln(x + 6.25) was once applied to it
+  const x = [
+    ...Array(372).fill(0),
+    ...Array.from({ length: 134 }, () => Math.round(Math.exp(1 + rng.normal()) * 10) / 10),
+  ];
+  const kept = plumb(x, "turbidity").reexpress();
+  equal(kept.steps.length, 0);
+  equal(kept.choice?.reexpression, null);
+  match(kept.choice!.reason, /piled up at the minimum, 0/);
 });
