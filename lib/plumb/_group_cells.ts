@@ -8,6 +8,17 @@
 /** The separator of the parts of a cell's label, e.g. `"A × early"`. */
 export const CELL_SEPARATOR = " × ";
 
+/**
+ * The separator of a cell's parts inside its key: a label part may itself
+ * contain " × ", so keys join the parts with a character no label carries.
+ */
+export const CELL_KEY_SEPARATOR = "\u0000";
+
+/** A cell's label from its key. */
+export function cellLabel(key: string): string {
+  return key.split(CELL_KEY_SEPARATOR).join(CELL_SEPARATOR);
+}
+
 /** Natural order for group labels: numbers by value, then text. */
 export function compareLabels(a: string, b: string): number {
   const x = Number(a), y = Number(b);
@@ -39,10 +50,10 @@ export function givenCells(
   };
 }
 
-/** Natural order of cell labels, part by part. */
+/** Natural order of cell keys, part by part. */
 export function compareCells(a: string, b: string, parts: number): number {
   if (parts === 1) return compareLabels(a, b);
-  const x = a.split(CELL_SEPARATOR), y = b.split(CELL_SEPARATOR);
+  const x = a.split(CELL_KEY_SEPARATOR), y = b.split(CELL_KEY_SEPARATOR);
   for (let k = 0; k < parts; k++) {
     const c = compareLabels(x[k] ?? "", y[k] ?? "");
     if (c !== 0) return c;

@@ -11,7 +11,7 @@ import { PlumbError } from "../errors.ts";
 import { _numericCellsShared, _numericColumnShared } from "../data/numeric_column.ts";
 import type { GroupState } from "./group_screen.ts";
 import { pickColumn } from "./source.ts";
-import { CELL_SEPARATOR, compareCells, givenCells } from "./_group_cells.ts";
+import { CELL_KEY_SEPARATOR, cellLabel, compareCells, givenCells } from "./_group_cells.ts";
 
 export { CELL_SEPARATOR } from "./_group_cells.ts";
 
@@ -77,7 +77,9 @@ export function splitGroups(state: GroupState): GroupSplit {
       if (!cells.missing[i] && !cells.nonNumeric[i]) noGroup++;
       continue;
     }
-    const key = gs.length === 1 ? gs[0].values[i] : gs.map((g) => g.values[i]).join(CELL_SEPARATOR);
+    const key = gs.length === 1
+      ? gs[0].values[i]
+      : gs.map((g) => g.values[i]).join(CELL_KEY_SEPARATOR);
     let id = ids.get(key);
     if (id === undefined) {
       ids.set(key, id = count.length);
@@ -119,7 +121,7 @@ export function splitGroups(state: GroupState): GroupSplit {
     const [a, b] = [start[k], start[k + 1]];
     const c = censor?.subarray(a, b);
     return Object.freeze({
-      group: key,
+      group: gs.length === 1 ? key : cellLabel(key),
       values: values.subarray(a, b),
       rows: rows.subarray(a, b),
       missingDropped: missing[id],

@@ -74,3 +74,36 @@ Deno.test(".by() on a residual chain groups the studentised residuals", () => {
   assert.deepEqual(all, mine);
   assert.match(g.label, /^studentised residuals of fill ~ line \+ shift \+ temp/);
 });
+
+Deno.test(".by([a, b]) keeps cells apart and in order when a label itself contains ' × '", () => {
+  // ("x × 1", "2") and ("x", "1 × 2") would both read "x × 1 × 2" if the parts were joined for the key
+  const parts: [string, string, number][] = [
+    ["x × 1", "2", 2],
+    ["x", "1 × 2", 11],
+    ["10", "z", 6],
+    [
+      "9",
+      "z",
+      4,
+    ],
+  ];
+  const a: string[] = [], b: string[] = [], fill: number[] = [];
+  const wiggle = [-0.9, 0.4, -0.2, 1.1, 0.3, -0.6, 0.8, -0.5];
+  for (const [p, q, centre] of parts) {
+    for (const w of wiggle) {
+      a.push(p);
+      b.push(q);
+      fill.push(centre + w);
+    }
+  }
+  const r = plumb({ a, b, fill }, "fill").by(["a", "b"]).result();
+  assert.deepEqual(r.groups.map((g) => [g.group, g.n]), [
+    ["9 × z", 8],
+    ["10 × z", 8],
+    ["x × 1 × 2", 8],
+    ["x × 1 × 2", 8],
+  ]);
+  // "x" sorts before "x × 1": the first of the two equal labels is the cell centred at 11
+  const means = r.groups.map((g) => g.analysis!.moments.mean);
+  assert.ok(Math.abs(means[2] - 11.05) < 1e-12 && Math.abs(means[3] - 2.05) < 1e-12, `${means}`);
+});
