@@ -5,7 +5,8 @@
  */
 import { normalSf } from "../numeric/normal.ts";
 import { shapiroWilkCoefficients } from "./shapiro_wilk_coefficients.ts";
-import { checkSize, sortedSample } from "./_input.ts";
+import { checkNotConstant, checkSize, finiteCopy } from "./_input.ts";
+import { sortFloat64 } from "../numeric/sort.ts";
 import { roundingWarning } from "./rounding.ts";
 import { freezeResult, type TestResult } from "./result.ts";
 
@@ -57,8 +58,31 @@ export const SHAPIRO_WILK_MAX_N = 5000;
  * ```
  */
 export function shapiroWilk(x: ArrayLike<number>): TestResult {
-  return _shapiroWilkSorted(sortedSample(x, _NAME, SHAPIRO_WILK_MIN_N, SHAPIRO_WILK_MAX_N));
+  const n = x.length;
+  checkSize(n, SHAPIRO_WILK_MIN_N, SHAPIRO_WILK_MAX_N, _NAME);
+  // The sorted copy lives only for this call (nothing in the result refers
+  // to it), so it goes into a buffer kept for the next call: a test on
+  // 1,000 values would otherwise spend more on allocating and collecting a
+  // fresh array than on computing W.
+  const s = _SORTED.subarray(0, n);
+  if (x instanceof Float64Array) {
+    s.set(x);
+  } else {
+    for (let i = 0; i < n; i++) {
+      const v = x[i] as unknown;
+      // A non-number (or NaN, ±∞) goes to the finiteness check below.
+      s[i] = typeof v === "number" ? v : NaN;
+    }
+  }
+  sortFloat64(s);
+  // −∞ sorts first, +∞ and NaN last: the ends tell whether every value is finite.
+  if (!(Number.isFinite(s[0]) && Number.isFinite(s[n - 1]))) finiteCopy(x, _NAME);
+  checkNotConstant(s, _NAME);
+  return _shapiroWilkSorted(s);
 }
+
+/** The sorted copy of {@linkcode shapiroWilk} (synchronous, never re-entered). */
+const _SORTED = new Float64Array(SHAPIRO_WILK_MAX_N);
 
 /**
  * {@linkcode shapiroWilk} on a sample already sorted ascending, finite and
@@ -110,48 +134,93 @@ export function _shapiroWilkSorted(
 export function shapiroWilkW(sorted: Float64Array): number {
   const n = sorted.length;
   const a = shapiroWilkCoefficients(n);
-  // Centre at the mean (two passes) and scale by the range, so that huge
-  // offsets and extreme magnitudes neither cancel nor overflow.
-  const lo = sorted[0];
-  const range = sorted[n - 1] - lo;
-  // When the range overflows (values near ±1.8e308 of both signs), halve
-  // before subtracting so that no difference overflows.
-  const halve = !Number.isFinite(range);
-  const scale = halve ? sorted[n - 1] / 2 - lo / 2 : range;
-  const u = (v: number) => (halve ? v / 2 - lo / 2 : v - lo) / scale;
+  // Centre at the mean (two passes) and scale by about the range, so that
+  // huge offsets and extreme magnitudes neither cancel nor overflow. When the
+  // range overflows (values near ±1.8e308 of both signs), halve before
+  // subtracting (v·0.5 is exactly v/2) so that no difference overflows. The
+  // scale is the power of two 2⁻ᵉ nearest below 1/range, applied in two
+  // multiplications by powers of two (2⁻ᵉ itself is not a normal double when
+  // |e| > 1022): no division per value, and W is the same to the last bit
+  // for the sample times any power of two up to 2^±1000.
+  const last = sorted[n - 1];
+  const f = Number.isFinite(last - sorted[0]) ? 1 : 0.5;
+  const lo = sorted[0] * f;
+  const e = _exponent(last * f - lo);
+  const pa = _pow2(Math.max(-1000, Math.min(1000, -e)));
+  const pb = _pow2(-e - Math.max(-1000, Math.min(1000, -e)));
   // The scaled values, computed once (into a shared buffer up to n = 5000).
   const t = n <= SHAPIRO_WILK_MAX_N ? _SCALED.subarray(0, n) : new Float64Array(n);
-  let mean = 0;
-  for (let i = 0; i < n; i++) {
-    t[i] = u(sorted[i]);
-    mean += t[i];
+  // Both passes walk the values in pairs from the two ends: the pair's
+  // difference is what b = Σ a_k (t₍ₙ₋ₖ₎ − t₍ₖ₊₁₎) needs, and the two ends'
+  // sums are independent chains of additions (twice the pace of one chain).
+  const half = a.length;
+  let sumLo = 0;
+  let sumHi = 0;
+  let b = 0;
+  for (let k = 0; k < half; k++) {
+    const l = (sorted[k] * f - lo) * pa * pb;
+    const h = (sorted[n - 1 - k] * f - lo) * pa * pb;
+    t[k] = l;
+    t[n - 1 - k] = h;
+    sumLo += l;
+    sumHi += h;
+    b += a[k] * (h - l);
   }
-  mean /= n;
-  let ssq = 0;
-  let corr = 0;
-  for (let i = 0; i < n; i++) {
-    const d = t[i] - mean;
-    ssq += d * d;
-    corr += d;
+  if (n % 2 === 1) {
+    t[half] = (sorted[half] * f - lo) * pa * pb;
+    sumLo += t[half];
+  }
+  if (n === 3) {
+    // Exact form: with the values mapped to 0, m, 1, W = (3/4)/(1 − m + m²).
+    const m = t[1] / t[2];
+    return Math.max(0.75, Math.min(1, 0.75 / (1 - m + m * m)));
+  }
+  const mean = (sumLo + sumHi) / n;
+  let ssqLo = 0;
+  let ssqHi = 0;
+  let corrLo = 0;
+  let corrHi = 0;
+  for (let k = 0; k < half; k++) {
+    const dl = t[k] - mean;
+    const dh = t[n - 1 - k] - mean;
+    ssqLo += dl * dl;
+    ssqHi += dh * dh;
+    corrLo += dl;
+    corrHi += dh;
+  }
+  if (n % 2 === 1) {
+    const d = t[half] - mean;
+    ssqLo += d * d;
+    corrLo += d;
   }
   // Compensate the rounding left in the mean (corrected two-pass, Chan,
   // Golub & LeVeque 1983, The American Statistician 37:242–247).
-  ssq -= corr * corr / n;
-  if (n === 3) {
-    // Exact form: with the values mapped to 0, t, 1, W = (3/4)/(1 − t + t²).
-    const m = t[1];
-    return Math.max(0.75, Math.min(1, 0.75 / (1 - m + m * m)));
-  }
-  const half = a.length;
-  let b = 0;
-  for (let k = 0; k < half; k++) {
-    b += a[k] * (t[n - 1 - k] - t[k]);
-  }
+  const corr = corrLo + corrHi;
+  const ssq = ssqLo + ssqHi - corr * corr / n;
   // 1 − W = (S − b)(S + b)/S² with S = √ssq, which stays accurate near W = 1.
   const root = Math.sqrt(ssq);
   const oneMinusW = ((root - b) * (root + b)) / ssq;
   const w = 1 - oneMinusW;
-  return Math.min(1, Math.max(n === 3 ? 0.75 : 0, w));
+  return Math.min(1, Math.max(0, w));
+}
+
+const _BITS = new Float64Array(1);
+const _WORDS = new Uint32Array(_BITS.buffer);
+/** The little-endian word holding a double's sign and exponent. */
+const _HIGH = new Uint8Array(new Float64Array([1]).buffer)[7] === 0x3f ? 1 : 0;
+
+/** ⌊log₂ v⌋ for a positive finite v, from its bits (subnormals through Math.log2). */
+function _exponent(v: number): number {
+  _BITS[0] = v;
+  const biased = (_WORDS[_HIGH] >>> 20) & 0x7ff;
+  return biased === 0 ? Math.floor(Math.log2(v)) : biased - 1023;
+}
+
+/** 2ᵏ exactly, for an integer −1022 ≤ k ≤ 1023. */
+function _pow2(k: number): number {
+  _WORDS[_HIGH] = (k + 1023) << 20;
+  _WORDS[1 - _HIGH] = 0;
+  return _BITS[0];
 }
 
 /** Scratch for {@linkcode shapiroWilkW} (synchronous, never re-entered). */

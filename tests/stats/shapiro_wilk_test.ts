@@ -98,6 +98,25 @@ Deno.test("errors: too few, too many, non-finite, constant", () => {
   check([4, 4, 4, 4], "constant", /4 identical values \(all 4\)/);
 });
 
+Deno.test("the sorted copy kept between calls: each call sees only its own values, input untouched", () => {
+  // The first fixture sample, alone, after a call on 5000 values, as doubles and as a
+  // list, and after a refused call (a NaN in the middle): the same W and p every time.
+  const c = fixture.cases[0];
+  const alone = shapiroWilk(c.x);
+  const rng = seededRandom(31);
+  const big = new Float64Array(5000).map(() => rng.normal());
+  const before = big.slice();
+  shapiroWilk(big);
+  equal(big.join(), before.join(), "the caller's array is not sorted in place");
+  const typed = shapiroWilk(Float64Array.from(c.x));
+  throws(() => shapiroWilk([...c.x.slice(0, 2), NaN, ...c.x.slice(2)]), PlumbError);
+  const again = shapiroWilk(c.x);
+  for (const r of [typed, again]) {
+    equal(r.statistic, alone.statistic);
+    equal(r.pValue, alone.pValue);
+  }
+});
+
 Deno.test("a step coarse against the spread gives a warning; a fine one, even with repeats, does not", () => {
   // whole numbers with sd 1.0 at n = 12: step/sd = 0.98 > 0.35 (limit from tools/sim/rounding_limit.ts)
   const r = shapiroWilk([1, 1, 1, 2, 2, 2, 2, 3, 3, 3, 4, 4]);
