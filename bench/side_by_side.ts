@@ -33,7 +33,7 @@ export const CASES: SideBySideCase[] = [
 ];
 
 /** Median seconds per call of `f`, over batches lasting about `budget` seconds in all. */
-export function timeOurs(f: () => unknown, budget = 1): number {
+export function timeOurs(f: () => unknown, budget = 1, minBatches = 5): number {
   const times: number[] = [];
   let reps = 1;
   const t0 = performance.now();
@@ -46,7 +46,7 @@ export function timeOurs(f: () => unknown, budget = 1): number {
       continue;
     }
     times.push(dt / reps);
-    if ((performance.now() - t0) / 1000 > budget && times.length >= 5) break;
+    if ((performance.now() - t0) / 1000 > budget && times.length >= minBatches) break;
   }
   times.sort((p, q) => p - q);
   return times[Math.floor(times.length / 2)];
@@ -80,6 +80,94 @@ export async function timePython(c: SideBySideCase, x: Float64Array, budget = 1)
   } finally {
     await Deno.remove(file);
   }
+}
+
+/** Paired timings of one case: per round, our median and the reference's, measured back to back. */
+export interface PairedTimes {
+  /** Our median seconds per call, one per round. */
+  readonly ours: number[];
+  /** The reference's median seconds per call, one per round. */
+  readonly ref: number[];
+}
+
+/**
+ * Time our call and the Python statement in alternation: `rounds` rounds,
+ * each one batch of ours (about `budget` seconds, median per call) followed
+ * at once by one batch of the reference's (same budget) in a Python process
+ * kept open for the whole case. The load of a shared machine then weighs on
+ * both sides of each round alike, and each round's ratio is a fair one even
+ * when the load changes between rounds.
+ */
+export async function timePaired(
+  c: SideBySideCase,
+  x: Float64Array,
+  options: { rounds: number; budget: number; minBatches: number },
+): Promise<PairedTimes> {
+  const file = await Deno.makeTempFile({ suffix: ".f64" });
+  try {
+    await Deno.writeFile(file, new Uint8Array(x.buffer, x.byteOffset, x.byteLength));
+    const script = [
+      "import sys, timeit, numpy as np, scipy.stats as s",
+      c.pythonSetup ?? "",
+      `x = np.fromfile(${JSON.stringify(file)}, dtype='<f8')`,
+      `f = lambda: ${c.python}`,
+      // The first call is the warm-up; it also sizes the batches.
+      "reps, t = 1, timeit.timeit(f, number=1)",
+      "while t < 0.02: reps, t = 2 * reps, timeit.timeit(f, number=2 * reps)",
+      `k = int(${options.budget} / (t / reps) / reps)`,
+      `k = max(${options.minBatches}, min(50, k))`,
+      "print('ready', flush=True)",
+      "for line in sys.stdin:",
+      "    if line.strip() != 'go': break",
+      "    ts = sorted(t / reps for t in timeit.repeat(f, number=reps, repeat=k))",
+      "    print(ts[len(ts) // 2], flush=True)",
+    ].join("\n");
+    const child = new Deno.Command("/usr/bin/python3", {
+      args: ["-c", script],
+      stdin: "piped",
+      stdout: "piped",
+      stderr: "inherit",
+    }).spawn();
+    const lines = _lines(child.stdout);
+    const writer = child.stdin.getWriter();
+    const next = async () => {
+      const r = await lines.next();
+      if (r.done) throw new Error("the reference process stopped (its error is above)");
+      return r.value;
+    };
+    try {
+      await next(); // "ready": data loaded, the statement compiled and run once
+      timeOurs(() => c.ours(x), Math.min(options.budget, 0.2), 1); // warm up ours the same way
+      const ours: number[] = [];
+      const ref: number[] = [];
+      for (let r = 0; r < options.rounds; r++) {
+        ours.push(timeOurs(() => c.ours(x), options.budget, options.minBatches));
+        await writer.write(new TextEncoder().encode("go\n"));
+        ref.push(Number(await next()));
+      }
+      return { ours, ref };
+    } finally {
+      await writer.write(new TextEncoder().encode("stop\n")).catch(() => {});
+      await writer.close().catch(() => {});
+      await child.status;
+    }
+  } finally {
+    await Deno.remove(file);
+  }
+}
+
+/** The lines of a byte stream. */
+async function* _lines(stream: ReadableStream<Uint8Array>): AsyncGenerator<string> {
+  let buffer = "";
+  for await (const chunk of stream.pipeThrough(new TextDecoderStream())) {
+    buffer += chunk;
+    let at: number;
+    while ((at = buffer.indexOf("\n")) >= 0) {
+      yield buffer.slice(0, at);
+      buffer = buffer.slice(at + 1);
+    }
+  }
+  if (buffer) yield buffer;
 }
 
 /** Format seconds for people. */

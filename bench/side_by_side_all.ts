@@ -4,11 +4,14 @@
  * the library versions. The reference is Python's numpy, scipy, statsmodels
  * and pandas from /usr/bin/python3, timed on the same data in the same run
  * (the data are written to a temporary file and read by numpy, so both sides
- * see the same doubles). Each time is a median of repeated batches
- * ({@linkcode timeOurs}, {@linkcode timePython}); the whole set of cases is
- * run `--runs` times (default 3), and the table gives the median ratio and
- * its range over the runs, with the load average (/proc/loadavg) before and
- * after each run: the machine may be shared, so quote the ranges.
+ * see the same doubles). Each case is timed in paired rounds
+ * ({@linkcode timePaired}): a batch of ours, then at once a batch of the
+ * reference's in a Python process kept open for the case, so that a change
+ * in the load of a shared machine weighs on both sides of a round alike; a
+ * run's ratio is the median of its rounds' ratios. The whole set of cases is
+ * run `--runs` times (default 3), and the table gives the median of the runs'
+ * ratios and their range, with the load average (/proc/loadavg) before and
+ * after each run: quote the ranges.
  *
  * What is compared, case by case, is printed under the table.
  *
@@ -30,7 +33,7 @@ import { andersonDarling } from "../lib/stats/anderson_darling.ts";
 import { dagostinoPearson } from "../lib/stats/dagostino_pearson.ts";
 import { shapiroWilk } from "../lib/stats/shapiro_wilk.ts";
 import { numericCsv } from "./_numeric_csv.ts";
-import { fmtTime, type SideBySideCase, timeOurs, timePython } from "./side_by_side.ts";
+import { fmtTime, type SideBySideCase, timeOurs, timePaired } from "./side_by_side.ts";
 
 const rng = seededRandom(20261201);
 const normal = (n: number) => () => new Float64Array(n).map(() => 10 + 2 * rng.normal());
@@ -203,6 +206,8 @@ interface _Row {
   readonly name: string;
   readonly ours: number[];
   readonly ref: number[];
+  /** Per run, the median over its rounds of the paired ratios. */
+  readonly ratio: number[];
 }
 
 const _median = (xs: readonly number[]) => {
@@ -214,29 +219,51 @@ async function _loadavg(): Promise<string> {
   return (await Deno.readTextFile("/proc/loadavg")).split(" ").slice(0, 3).join(" ");
 }
 
-/** Run every case once; add each time to its row. */
+/**
+ * Rounds per case and run, and seconds per side per round: small samples
+ * get many short paired rounds, the 1e6-value cases a few, and a survey
+ * (seconds to a minute per call) one pair of calls.
+ */
+function _plan(n: number): { rounds: number; budget: number; minBatches: number } {
+  if (n > 1e6) return { rounds: 1, budget: 0, minBatches: 1 };
+  if (n >= 1e6) return { rounds: 3, budget: 1, minBatches: 3 };
+  return { rounds: 9, budget: 0.2, minBatches: 3 };
+}
+
+/** Run every case once; add its paired times to its row. */
 async function _runOnce(filter: string, rows: Map<string, _Row>): Promise<void> {
-  const add = (name: string, ours: number, ref: number) => {
-    const row = rows.get(name) ?? { name, ours: [], ref: [] };
-    row.ours.push(ours);
-    row.ref.push(ref);
+  const add = (name: string, ours: number[], ref: number[]) => {
+    const row = rows.get(name) ?? { name, ours: [], ref: [], ratio: [] };
+    const ratio = _median(ours.map((o, i) => o / ref[i]));
+    row.ours.push(_median(ours));
+    row.ref.push(_median(ref));
+    row.ratio.push(ratio);
     rows.set(name, row);
-    console.log(`  ${name}: ${fmtTime(ours)} / ${fmtTime(ref)} = ${(ours / ref).toFixed(2)}`);
+    console.log(
+      `  ${name}: ${fmtTime(_median(ours))} / ${fmtTime(_median(ref))}, ` +
+        `paired ratio ${ratio.toFixed(2)} (${ours.length} round${ours.length === 1 ? "" : "s"})`,
+    );
   };
   for (const c of CASES.filter((k) => k.name.includes(filter))) {
     const x = c.data();
-    const budget = x.length >= 1e6 ? 3 : 1;
-    add(c.name, timeOurs(() => c.ours(x), budget), await timePython(c, x, budget));
+    const t = await timePaired(c, x, _plan(x.length));
+    add(c.name, t.ours, t.ref);
   }
   if ("CSV load".includes(filter)) {
     const [alone, ours, ref] = await csvLoad();
-    add("CSV load, 1e6 rows × 10 columns: `loadTable`", alone, ref);
-    add("CSV load, 1e6 rows × 10 columns: `loadTable` + every `numeric()` copy", ours, ref);
+    add("CSV load, 1e6 rows × 10 columns: `loadTable`", [alone], [ref]);
+    add("CSV load, 1e6 rows × 10 columns: `loadTable` + every `numeric()` copy", [ours], [ref]);
   }
   if ("Shapiro–Wilk ÷ radix sort, n = 5000".includes(filter) || filter === "") {
     const x = normal(5000)();
-    const sw = timeOurs(() => shapiroWilk(x), 1);
-    const sort = timeOurs(() => sortFloat64(x.slice()), 1);
+    const sw: number[] = [];
+    const sort: number[] = [];
+    timeOurs(() => shapiroWilk(x), 0.2, 1);
+    timeOurs(() => sortFloat64(x.slice()), 0.2, 1);
+    for (let r = 0; r < 9; r++) {
+      sw.push(timeOurs(() => shapiroWilk(x), 0.2, 3));
+      sort.push(timeOurs(() => sortFloat64(x.slice()), 0.2, 3));
+    }
     add("Shapiro–Wilk ÷ radix sort, n = 5000 (reference: one `sortFloat64`)", sw, sort);
   }
 }
@@ -250,7 +277,7 @@ function _table(rows: Iterable<_Row>, runs: number): string {
     "| --- | ---: | ---: | ---: | ---: |",
   ];
   for (const r of rows) {
-    const ratios = r.ours.map((o, i) => o / r.ref[i]);
+    const ratios = r.ratio;
     lines.push(
       `| ${r.name} | ${fmtTime(_median(r.ours))} | ${fmtTime(_median(r.ref))} | ` +
         `${_median(ratios).toFixed(2)} | ${Math.min(...ratios).toFixed(2)}–${
