@@ -9,7 +9,7 @@
  */
 import { PlumbError } from "../errors.ts";
 import type { Reexpression } from "../reexpress/reexpression.ts";
-import { searchReexpressions } from "../reexpress/search.ts";
+import { rankReexpressions } from "../reexpress/search.ts";
 import { sortedSample } from "../stats/_input.ts";
 import { type BcaInterval, bootstrapMean } from "../stats/bootstrap_bca.ts";
 import { _limitsOption } from "../stats/capability.ts";
@@ -144,8 +144,8 @@ function _chooseModel(
   if (option === "none") return { model: null, note: "No re-expression was asked for" };
   let r: Reexpression;
   if (option === undefined || option === "best") {
-    const search = searchReexpressions(v);
-    r = search.chosen.reexpression;
+    // Only the choice is needed: the ranking, without re-testing every candidate.
+    r = rankReexpressions(v).chosen.reexpression;
     if (r.kind === "identity") {
       return {
         model: null,
