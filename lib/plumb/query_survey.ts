@@ -11,6 +11,7 @@ import { checkAdjustment } from "../stats/multiplicity.ts";
 import { suggestReexpression } from "./reexpress_view.ts";
 import { Survey } from "./survey.ts";
 import {
+  type SurveyOmission,
   type SurveyOptions,
   type SurveyResult,
   surveyResult,
@@ -54,12 +55,23 @@ export class QuerySurvey implements Displayable {
       if (!names.includes(c)) names.push(c);
       else if (!repeated.includes(c)) repeated.push(c);
     }
+    // Every column named or numeric is counted once, so that those not screened still
+    // report their empty and text cells, and columns with no value at all are left out.
+    const counts = new Map((await this.#engine.counts(names)).map((c) => [c.column, c]));
+    const omitted: SurveyOmission[] = [];
+    if (given === undefined) {
+      for (const c of counts.values()) {
+        if (c.missing === c.rows) omitted.push({ column: c.column, reason: "every cell is empty" });
+      }
+    }
     const rows: SurveyRow[] = [];
     const wanted: string[] = [];
     for (const name of names) {
       const c = cols.find((k) => k.name === name)!;
+      const { missing } = counts.get(name)!;
+      if (omitted.some((o) => o.column === name)) continue;
       if (c.kind === "numeric" || (c.kind === "text" && o.dropText)) wanted.push(name);
-      else rows.push({ column: name, missing: 0, textDropped: 0, skipped: `a ${c.type} column` });
+      else rows.push({ column: name, missing, textDropped: 0, skipped: `a ${c.type} column` });
     }
     const screened = await this.#engine.screen(
       wanted.map((column) => ({ column, label: column, dropText: o.dropText })),
@@ -67,7 +79,14 @@ export class QuerySurvey implements Displayable {
     wanted.forEach((column, i) => {
       const s = screened[i];
       if (s instanceof Error) {
-        rows.push({ column, missing: 0, textDropped: 0, skipped: _why(s, 0) });
+        const { rows: all, missing, text } = counts.get(column)!;
+        const dropped = o.dropText ? text : 0;
+        rows.push({
+          column,
+          missing,
+          textDropped: dropped,
+          skipped: _why(s, all - missing - text),
+        });
         return;
       }
       const a = s.analysis;
@@ -78,11 +97,20 @@ export class QuerySurvey implements Displayable {
         analysis: a,
         suggestion: a.reading.verdict === "no-clear-departure"
           ? "none needed"
-          : suggestReexpression(s.sample),
+          : a.reading.facts.reexpressionHelps
+          ? suggestReexpression(s.sample)
+          : `none: the departure comes from ${a.reading.reason}`,
       });
     });
     const text = cols.filter((c) => c.kind === "text").map((c) => c.name);
-    const result = surveyResult(this.#engine.name, checkAdjustment(o.adjust), rows, text, repeated);
+    const result = surveyResult(
+      this.#engine.name,
+      checkAdjustment(o.adjust),
+      rows,
+      text,
+      repeated,
+      omitted,
+    );
     return new Survey(result, o);
   }
 

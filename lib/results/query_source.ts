@@ -37,6 +37,18 @@ export interface QueryGroup {
   readonly mean: number;
 }
 
+/** What one column of a query source holds, counted without screening it. */
+export interface QueryCounts {
+  /** The column's name. */
+  readonly column: string;
+  /** Rows of the source. */
+  readonly rows: number;
+  /** Empty cells. */
+  readonly missing: number;
+  /** Cells that are not empty and do not read as numbers (0 for a numeric column). */
+  readonly text: number;
+}
+
 /** What the chain asks a query source to screen. */
 export interface QueryRequest {
   /** The numeric column. */
@@ -75,6 +87,8 @@ export interface QueryEngine {
   readonly name: string;
   /** The source's columns. */
   columns(): Promise<readonly QueryColumn[]>;
+  /** Rows, empty cells and text cells of each of `columns`, in one pass. */
+  counts(columns: readonly string[]): Promise<readonly QueryCounts[]>;
   /** The groups of `by` (sorted, the empty group last) with the counts of `column` in each. */
   groups(column: string, by: string): Promise<readonly QueryGroup[]>;
   /**

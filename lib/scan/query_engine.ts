@@ -7,12 +7,14 @@
 import { PlumbError } from "../errors.ts";
 import type {
   QueryColumn,
+  QueryCounts,
   QueryEngine,
   QueryGroup,
   QueryRequest,
   QueryScreening,
 } from "../results/query_source.ts";
 import { _NUMERIC, _screen } from "./column.ts";
+import type { Screened } from "./screen.ts";
 import { _Engine } from "./engine.ts";
 import { _progressReporter } from "./progress.ts";
 import type { ScanOptions } from "./scan.ts";
@@ -21,6 +23,7 @@ import {
   DUCKDB,
   groupCountsSql,
   groupRelation,
+  presenceSql,
   residualRelation,
   valueExpr,
 } from "./sql.ts";
@@ -73,6 +76,35 @@ export function scanQueryEngine(relation: string, name: string, options: ScanOpt
         engine.close();
       }
     },
+    async counts(columns: readonly string[]): Promise<readonly QueryCounts[]> {
+      if (columns.length === 0) return [];
+      const engine = await _Engine.open(options);
+      try {
+        const cols = await _describe(engine, relation, what());
+        for (const c of columns) _known(cols, c, name);
+        const which = columns.map((c) => ({
+          name: c,
+          textual: /^VARCHAR$/i.test(cols.find((k) => k.name === c)!.type),
+        }));
+        const [r] = await engine.rows(
+          presenceSql(DUCKDB, relation, which),
+          "counting the cells",
+          what(),
+        );
+        const rows = Number(r[0]);
+        return which.map((c, i) => {
+          const present = Number(r[1 + 2 * i]);
+          return Object.freeze({
+            column: c.name,
+            rows,
+            missing: rows - present,
+            text: c.textual ? present - Number(r[2 + 2 * i]) : 0,
+          });
+        });
+      } finally {
+        engine.close();
+      }
+    },
     async groups(column: string, by: string): Promise<readonly QueryGroup[]> {
       const engine = await _Engine.open(options);
       try {
@@ -114,7 +146,7 @@ export function scanQueryEngine(relation: string, name: string, options: ScanOpt
         const out: (QueryScreening | Error)[] = [];
         for (const r of requests) {
           try {
-            out.push(await _one(engine, relation, cols, r, options, what));
+            out.push(_plainScreening(await _one(engine, relation, cols, r, options, what)));
           } catch (e) {
             // Only the methods' refusals stay in place; engine failures and cancellation stop all.
             if (!(e instanceof PlumbError) || !_REFUSALS.has(e.code)) throw e;
@@ -128,6 +160,17 @@ export function scanQueryEngine(relation: string, name: string, options: ScanOpt
       }
     },
   });
+}
+
+/**
+ * The screening as the chain shows and exports it: the analysis without the
+ * queries run and their timings (they differ from run to run, and the SQL
+ * text would grow every saved table by kilobytes per group), keeping the
+ * sample, counts and Box–Cox fit. `scan(...).analyse()` keeps them all.
+ */
+function _plainScreening(s: Screened): QueryScreening {
+  const { passes: _p, fitSeconds: _f, ...rest } = s.analysis;
+  return { analysis: Object.freeze(rest), sample: s.sample };
 }
 
 const _REFUSALS = new Set(["too-few", "constant", "non-numeric", "bad-option"]);
@@ -149,7 +192,7 @@ async function _one(
   r: QueryRequest,
   options: ScanOptions,
   what: (column?: string) => string,
-): Promise<QueryScreening> {
+): Promise<Screened> {
   _known(cols, r.column, what());
   const o: ScanOptions = {
     ...options,

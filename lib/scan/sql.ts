@@ -115,6 +115,26 @@ export function quickCountsSql(relation: string, column: string, v: string): str
     `FROM (SELECT ${quoteIdent(column)} AS c, ${v} AS v FROM ${relation}) AS s`;
 }
 
+/**
+ * One pass over several columns: rows, and for each column its present
+ * cells and (`textual`) those that read as numbers, so that columns not
+ * screened still report what they hold. Columns: `total`, then `p<i>`, `q<i>`.
+ */
+export function presenceSql(
+  dialect: Dialect,
+  relation: string,
+  columns: readonly { readonly name: string; readonly textual: boolean }[],
+): string {
+  const parts = columns.map((c, i) => {
+    const q = quoteIdent(c.name);
+    const numeric = c.textual ? `count(${dialect.tryDouble(q)})` : `count(${q})`;
+    return `CAST(count(${q}) AS DOUBLE) AS p${i}, CAST(${numeric} AS DOUBLE) AS q${i}`;
+  });
+  return `SELECT CAST(count(*) AS DOUBLE) AS total${
+    parts.map((x) => `, ${x}`).join("")
+  } FROM ${relation}`;
+}
+
 /** The distinct values of a group column, as text (NULL for empty cells), at most `limit`. */
 export function groupValuesSql(relation: string, group: string, limit: number): string {
   return `SELECT DISTINCT CAST(${quoteIdent(group)} AS VARCHAR) AS g FROM ${relation} ` +
