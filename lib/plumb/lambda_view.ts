@@ -16,6 +16,7 @@ import { yeoJohnsonProfile } from "../reexpress/yeo_johnson_profile.ts";
 import type { TopLevelSpec } from "../_deps/vega_lite.ts";
 import { type Chart, chart } from "../render/chart_bundle.ts";
 import { lambdaExplorerSpec } from "../render/lambda_explorer_spec.ts";
+import { noteSpec } from "../render/note_spec.ts";
 import { qqData } from "../stats/qq_data.ts";
 import { SHAPIRO_WILK_MAX_N, shapiroWilk } from "../stats/shapiro_wilk.ts";
 
@@ -55,7 +56,23 @@ export function lambdaExplorer(sample: () => Float64Array, name: () => string): 
   return chart(() => _spec(sample(), name()));
 }
 
+/**
+ * The explorer's spec, or a note in its place when a valid sample leaves no
+ * profile to fit or fewer than two λ to draw (values too large, or varying
+ * too little relative to their size): a display never throws on a valid
+ * sample.
+ */
 function _spec(values: Float64Array, name: string): TopLevelSpec {
+  try {
+    return _explorer(values, name);
+  } catch (e) {
+    // a column that cannot be screened at all is refused as by every display
+    if (!(e instanceof PlumbError) || e.code === "too-few" || !_usable(values)) throw e;
+    return noteSpec(`${name}: λ explorer not drawn`, `${e.message}.`);
+  }
+}
+
+function _explorer(values: Float64Array, name: string): TopLevelSpec {
   let positive = true;
   for (const v of values) if (!(v > 0)) positive = false;
   const fit = positive ? boxCoxFit(values) : yeoJohnsonFit(values);
@@ -111,8 +128,9 @@ function _spec(values: Float64Array, name: string): TopLevelSpec {
     throw new PlumbError(
       "constant",
       `Cannot draw the λ explorer for ${name}: at ${dropped} of ${lambdas.length} powers the ` +
-        `re-expressed values are all equal in double precision; the data vary too little relative ` +
-        `to their size for powers to change their shape`,
+        `re-expressed values are not finite or all equal in double precision; the data are too ` +
+        `large, or vary too little relative to their size, for powers to be computed; rescale ` +
+        `the data (change its units) to explore λ`,
     );
   }
   return lambdaExplorerSpec({

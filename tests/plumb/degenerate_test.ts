@@ -42,3 +42,32 @@ Deno.test("precise data near 1000: the report of a table with such a column comp
   ok(!/\bNaN\b/.test(r.html), "the report holds NaN");
   ok(r.sentences.length === 2);
 });
+
+Deno.test("the λ explorer shows a note, not an exception, when a valid sample leaves no λ to draw", async () => {
+  const cases: [string, number[], RegExp][] = [
+    // ±1e300: every power but one overflows
+    [
+      "huge",
+      Array.from({ length: 30 }, (_, i) => (i % 2 ? 1 : -1) * 1e300 * (1 + i / 100)),
+      /not finite or all equal in double precision/,
+    ],
+    // steps of 2 at 1e16: the Box–Cox variance is not representable at λ = 5
+    [
+      "mass_ug",
+      Array.from({ length: 30 }, (_, i) => 1e16 + (i % 5) * 2),
+      /not representable in double precision/,
+    ],
+  ];
+  for (const [name, x, why] of cases) {
+    const p = plumb(x, name);
+    for (
+      const [what, d] of [["card", p], ["λ explorer", p.lambda()], ["best", p.reexpress()]] as const
+    ) {
+      const t = text(await d[DISPLAY]());
+      ok(!/\bNaN\b/.test(t), `${name} ${what} holds NaN`);
+    }
+    const spec = JSON.stringify(p.lambda().spec);
+    ok(spec.includes("λ explorer not drawn"), `${name}: the note's title`);
+    ok(why.test(spec), `${name}: the reason`);
+  }
+});

@@ -29,6 +29,7 @@ const SHAPES: readonly [string, (r: Stream) => number][] = [
   ["3% cluster at +5 sd (sd 0.5)", (r) => (r.uniform() < 0.03 ? 5 + 0.5 * r.normal() : r.normal())],
   ["3% cluster at +6 sd (sd 1)", (r) => (r.uniform() < 0.03 ? 6 + r.normal() : r.normal())],
   ["lognormal, σ = 0.5", (r) => Math.exp(0.5 * r.normal())],
+  ["lognormal, σ = 1", (r) => Math.exp(r.normal())],
   ["exponential", (r) => -Math.log(r.uniform())],
   ["t, 5 df", (r) => r.normal() / Math.sqrt(chiSquare(r, 5) / 5)],
   ["t, 2 df", (r) => r.normal() / Math.sqrt(chiSquare(r, 2) / 2)],
