@@ -239,11 +239,13 @@ export {
   isQuerySource,
   QUERY_SOURCE,
   type QueryColumn,
+  type QueryCounts,
   type QueryEngine,
   type QueryGroup,
   type QueryRequest,
   type QueryScreening,
   type QuerySource,
+  type QueryTransform,
 } from "./lib/results/query_source.ts";
 export {
   scan,

@@ -43,6 +43,9 @@ async function child(kind: string, path: string): Promise<void> {
   } else if (kind === "scan") {
     const a = await scan(path, { threads: 2, memoryLimit: "500MB", progress: false }).analyse("x");
     if (!("lambda" in a.boxCox)) throw new Error("no λ");
+    // Where the time went: each query's wall seconds, and the fit in JavaScript.
+    const steps = a.passes.map((p) => `${p.step} ${p.seconds.toFixed(2)} s`);
+    console.error(`  passes: ${steps.join("; ")}; Box–Cox fit ${a.fitSeconds} s`);
   } else {
     const inst = await DuckDBInstance.create(":memory:");
     const con = await inst.connect();

@@ -13,9 +13,20 @@ import { histogramSpec } from "../render/histogram_spec.ts";
 import { detrendedSpec, qqSpec } from "../render/qq_spec.ts";
 import type { Analysis } from "../results/analysis.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
-import type { QueryEngine, QueryScreening } from "../results/query_source.ts";
+import type { QueryEngine, QueryScreening, QueryTransform } from "../results/query_source.ts";
 import type { Reading } from "../results/reading.ts";
-import { searchReexpressions } from "../reexpress/search.ts";
+import { rankReexpressions, searchReexpressions } from "../reexpress/search.ts";
+import { chooseBestStep } from "./best_choice.ts";
+import { refuseOnScan, scanStepDomain } from "./query_refusals.ts";
+import {
+  checkRequest,
+  type ReexpressRequest,
+  resolveStep,
+  type Step,
+  stepLabel,
+  stepOf,
+} from "./steps.ts";
+import { reexpression } from "../reexpress/reexpression.ts";
 import { cardOf } from "./analysis.ts";
 import type { GroupOptions } from "./group_screen.ts";
 import { QueryGroups } from "./query_groups.ts";
@@ -49,13 +60,80 @@ export class PlumbQuery implements Displayable {
   #screened: Promise<QueryScreening> | undefined;
   #done: Analysis | undefined;
   #card: Promise<MimeBundle> | undefined;
+  readonly #from: { readonly parent: PlumbQuery; readonly request: ReexpressRequest } | undefined;
+  #transform: Promise<QueryTransform | undefined> | undefined;
 
-  /** @internal Use `plumb(source, column)`. */
-  constructor(engine: QueryEngine, column: string | undefined, options: PlumbOptions) {
+  /** @internal Use `plumb(source, column)` (and `.reexpress()` for the last argument). */
+  constructor(
+    engine: QueryEngine,
+    column: string | undefined,
+    options: PlumbOptions,
+    from?: { readonly parent: PlumbQuery; readonly request: ReexpressRequest },
+  ) {
     this.#engine = engine;
     this.#column = column;
     this.#options = options;
+    this.#from = from;
     Object.freeze(this);
+  }
+
+  /**
+   * A new chain on the values re-expressed by the engine, over every value:
+   * `"log"`, `"log10"`, `"sqrt"`, `"reciprocal"`, `{ boxCox: λ }`,
+   * `{ yeoJohnson: λ }`, `{ log: { shift, base } }`, or `"best"` (the
+   * default): the top candidate re-tested on the seeded sample, with a
+   * Box–Cox λ fitted by maximum likelihood over every value.
+   */
+  reexpress(request: ReexpressRequest = "best"): PlumbQuery {
+    checkRequest(request);
+    if (this.#from !== undefined) refuseOnScan(".reexpress() twice");
+    return new PlumbQuery(this.#engine, this.#column, this.#options, { parent: this, request });
+  }
+
+  /** Not offered on a scanned source: throws a `PlumbError` naming what to do instead. */
+  lambda(): never {
+    return refuseOnScan(".lambda()");
+  }
+
+  /** Not offered on a scanned source: throws a `PlumbError` naming what to do instead. */
+  stakes(): never {
+    return refuseOnScan(".stakes()");
+  }
+
+  /** Not offered on a scanned source: throws a `PlumbError` naming what to do instead. */
+  residuals(): never {
+    return refuseOnScan(".residuals()");
+  }
+
+  /** Not offered on a scanned source: throws a `PlumbError` naming what to do instead. */
+  values(): never {
+    return refuseOnScan(".values()");
+  }
+
+  /** The re-expression this chain screens (none on the chain `plumb()` made), resolved once. */
+  #transformed(): Promise<QueryTransform | undefined> {
+    return (this.#transform ??= this.#resolve());
+  }
+
+  async #resolve(): Promise<QueryTransform | undefined> {
+    if (this.#from === undefined) return undefined;
+    const { parent, request } = this.#from;
+    const [s, column] = await Promise.all([parent.#screen(), this.#name()]);
+    let step: Step | undefined;
+    if (request === "best") {
+      const best = chooseBestStep(s.sample, s.analysis.reading, rankReexpressions(s.sample));
+      step = best.step;
+      // The power chosen on the sample, with λ fitted over every value.
+      if (step?.reexpression.kind === "box-cox" && s.lambda !== undefined) {
+        step = stepOf(reexpression("box-cox", { lambda: s.lambda }));
+      }
+    } else {
+      // The sample with the extremes, so that a log's shift sees the smallest value.
+      step = resolveStep(request, Float64Array.of(s.range[0], ...s.sample, s.range[1]));
+    }
+    if (step === undefined) return undefined;
+    scanStepDomain(column, step.reexpression, s.range);
+    return Object.freeze({ reexpression: step.reexpression, label: stepLabel(column, [step]) });
   }
 
   /** The column analysed: the one named, or (once screened) the source's only numeric column. */
@@ -65,7 +143,7 @@ export class PlumbQuery implements Displayable {
 
   /** What is analysed: the column. */
   get label(): string {
-    return this.column;
+    return this.#done?.origin.label ?? this.column;
   }
 
   /** The column named, or the source's only numeric one. */
@@ -86,12 +164,15 @@ export class PlumbQuery implements Displayable {
   }
 
   #screen(): Promise<QueryScreening> {
-    return (this.#screened ??= this.#name().then((column) =>
+    return (this.#screened ??= Promise.all([this.#name(), this.#transformed()]).then((
+      [column, transform],
+    ) =>
       this.#engine.screen([{
         column,
-        label: column,
+        label: transform?.label ?? column,
         dropText: this.#options.dropText,
         qq: this.#options.qq,
+        transform,
       }])
     ).then((r) => {
       const s = _single(r[0]);
@@ -156,7 +237,13 @@ export class PlumbQuery implements Displayable {
 
   /** The same column screened within each group of another, and the pooled residuals. */
   by(column: string, options: GroupOptions = {}): QueryGroups {
-    return new QueryGroups(this.#engine, () => this.#name(), column, this.#options, options);
+    return new QueryGroups(
+      this.#engine,
+      async () => ({ column: await this.#name(), transform: await this.#transformed() }),
+      column,
+      this.#options,
+      options,
+    );
   }
 
   /**

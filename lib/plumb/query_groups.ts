@@ -7,7 +7,7 @@
  */
 import { PlumbError } from "../errors.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
-import type { QueryEngine } from "../results/query_source.ts";
+import type { QueryEngine, QueryTransform } from "../results/query_source.ts";
 import { checkAdjustment } from "../stats/multiplicity.ts";
 import type { QueryRequest } from "../results/query_source.ts";
 import type { GroupOptions, GroupResult, GroupRow } from "./group_screen.ts";
@@ -21,7 +21,7 @@ import type { PlumbOptions } from "./_chain_options.ts";
  */
 export class QueryGroups implements Displayable {
   readonly #engine: QueryEngine;
-  readonly #column: () => Promise<string>;
+  readonly #column: () => Promise<{ column: string; transform?: QueryTransform }>;
   readonly #by: string;
   readonly #options: PlumbOptions;
   readonly #groupOptions: GroupOptions;
@@ -30,7 +30,7 @@ export class QueryGroups implements Displayable {
   /** @internal Use `plumb(source, column).by(group)`. */
   constructor(
     engine: QueryEngine,
-    column: () => Promise<string>,
+    column: () => Promise<{ column: string; transform?: QueryTransform }>,
     by: string,
     options: PlumbOptions,
     groupOptions: GroupOptions,
@@ -50,13 +50,14 @@ export class QueryGroups implements Displayable {
   }
 
   async #run(): Promise<PlumbGroups> {
-    const [column, by] = [await this.#column(), this.#by];
-    const found = await this.#engine.groups(column, by);
+    const [{ column, transform }, by] = [await this.#column(), this.#by];
+    const label = transform?.label ?? column;
+    const found = await this.#engine.groups(column, by, transform);
     const named = found.filter((g) => g.value !== null);
-    const base = { column, dropText: this.#options.dropText, qq: this.#options.qq };
+    const base = { column, dropText: this.#options.dropText, qq: this.#options.qq, transform };
     const requests: QueryRequest[] = named.map((g) => ({
       ...base,
-      label: `${column} — ${by} = ${g.value}`,
+      label: `${label} — ${by} = ${g.value}`,
       group: { by, value: g.value! },
     }));
     const screened = await this.#engine.screen(requests);
@@ -70,7 +71,7 @@ export class QueryGroups implements Displayable {
     const [res] = means.length
       ? await this.#engine.screen([{
         ...base,
-        label: `${column} residuals within ${by}`,
+        label: `${label} residuals within ${by}`,
         residuals: { by, means },
       }])
       : [new PlumbError("too-few", "no group has two values")];
@@ -86,7 +87,7 @@ export class QueryGroups implements Displayable {
     });
     const total = (k: "missing" | "text") => found.reduce((t, g) => t + g[k], 0);
     return new PlumbGroups(groupResult({
-      label: column,
+      label,
       groupBy: by,
       adjust: checkAdjustment(this.#groupOptions.adjust),
       groups: rows,

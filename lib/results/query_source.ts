@@ -9,6 +9,7 @@
  */
 import type { QqOptions } from "../stats/qq_data.ts";
 import type { Analysis } from "./analysis.ts";
+import type { Reexpression } from "../reexpress/reexpression.ts";
 
 /** The key under which a source offers its {@linkcode QueryEngine}. */
 export const QUERY_SOURCE: unique symbol = Symbol.for("plumbline.querySource") as never;
@@ -49,6 +50,14 @@ export interface QueryCounts {
   readonly text: number;
 }
 
+/** A re-expression the engine applies to a column before screening it. */
+export interface QueryTransform {
+  /** The re-expression (plain data, as in memory). */
+  readonly reexpression: Reexpression;
+  /** How it is written with the column's name, e.g. `"ln(fill_ml)"`. */
+  readonly label: string;
+}
+
 /** What the chain asks a query source to screen. */
 export interface QueryRequest {
   /** The numeric column. */
@@ -69,6 +78,8 @@ export interface QueryRequest {
   };
   /** Leave out text cells of a text column (counted) instead of failing. */
   readonly dropText?: boolean;
+  /** Screen the column re-expressed by the engine instead of as it is. */
+  readonly transform?: QueryTransform;
   /** QQ envelope options. */
   readonly qq?: QqOptions;
 }
@@ -79,6 +90,10 @@ export interface QueryScreening {
   readonly analysis: Analysis;
   /** The seeded sample (sorted) that Shapiro–Wilk and the other order-statistic tests used. */
   readonly sample: Float64Array;
+  /** The smallest and largest finite value screened (over every value, not the sample). */
+  readonly range: readonly [min: number, max: number];
+  /** Box–Cox λ by maximum likelihood over every value, when the values are positive. */
+  readonly lambda?: number;
 }
 
 /** What a query source does for the chain. Every call opens and closes its own connection. */
@@ -89,8 +104,11 @@ export interface QueryEngine {
   columns(): Promise<readonly QueryColumn[]>;
   /** Rows, empty cells and text cells of each of `columns`, in one pass. */
   counts(columns: readonly string[]): Promise<readonly QueryCounts[]>;
-  /** The groups of `by` (sorted, the empty group last) with the counts of `column` in each. */
-  groups(column: string, by: string): Promise<readonly QueryGroup[]>;
+  /**
+   * The groups of `by` (sorted, the empty group last) with the counts of
+   * `column` (re-expressed when `transform` is given) in each.
+   */
+  groups(column: string, by: string, transform?: QueryTransform): Promise<readonly QueryGroup[]>;
   /**
    * Screen each request in turn on one connection; a request the methods
    * cannot screen gives its `PlumbError` in place of the screening.

@@ -22,7 +22,7 @@ export async function _screen(
   cols: readonly { name: string; type: string }[],
   name: string,
   o: ScanOptions,
-  label: { subject: string; label: string; group?: string },
+  label: { subject: string; label: string; group?: string; transform?: string },
 ): Promise<Screened> {
   const subject = label.subject;
   const type = cols.find((c) => c.name === name)!.type;
@@ -75,7 +75,7 @@ export async function _screen(
   return await screenColumn(
     q,
     { rows, missing: rows - present, text, nonFinite, n, lo, hi },
-    { column: name, label: label.label, group: label.group },
+    { column: name, label: label.label, group: label.group, transform: label.transform },
     {
       sampleSize: o.sampleSize ?? 5000,
       seed: o.seed ?? 1,

@@ -12,6 +12,7 @@ import type {
   QueryGroup,
   QueryRequest,
   QueryScreening,
+  QueryTransform,
 } from "../results/query_source.ts";
 import { _NUMERIC, _screen } from "./column.ts";
 import type { Screened } from "./screen.ts";
@@ -24,6 +25,8 @@ import {
   groupCountsSql,
   groupRelation,
   presenceSql,
+  reexpressedRelation,
+  reexpressedSql,
   residualRelation,
   valueExpr,
 } from "./sql.ts";
@@ -105,15 +108,20 @@ export function scanQueryEngine(relation: string, name: string, options: ScanOpt
         engine.close();
       }
     },
-    async groups(column: string, by: string): Promise<readonly QueryGroup[]> {
+    async groups(
+      column: string,
+      by: string,
+      transform?: QueryTransform,
+    ): Promise<readonly QueryGroup[]> {
       const engine = await _Engine.open(options);
       try {
-        const cols = await _describe(engine, relation, what());
-        for (const c of [column, by]) _known(cols, c, name);
-        const type = cols.find((c) => c.name === column)!.type;
+        const all = await _describe(engine, relation, what());
+        for (const c of [column, by]) _known(all, c, name);
+        const view = _view(relation, all, column, transform);
+        const type = view.cols.find((c) => c.name === column)!.type;
         const v = valueExpr(DUCKDB, column, /^VARCHAR$/i.test(type), 1);
         const rows = await engine.rows(
-          groupCountsSql(DUCKDB, relation, column, v, by, MAX_SCAN_GROUPS + 2),
+          groupCountsSql(DUCKDB, view.relation, column, v, by, MAX_SCAN_GROUPS + 2),
           "counting the groups",
           what(by),
         );
@@ -170,7 +178,34 @@ export function scanQueryEngine(relation: string, name: string, options: ScanOpt
  */
 function _plainScreening(s: Screened): QueryScreening {
   const { passes: _p, fitSeconds: _f, ...rest } = s.analysis;
-  return { analysis: Object.freeze(rest), sample: s.sample };
+  const fit = s.analysis.boxCox;
+  return {
+    analysis: Object.freeze(rest),
+    sample: s.sample,
+    range: s.range,
+    ...("lambda" in fit ? { lambda: fit.lambda } : {}),
+  };
+}
+
+/**
+ * The relation and columns a request reads: as they are, or with `column`
+ * replaced by its re-expressed value computed by the engine (text cells
+ * read as numbers first, so they stay missing).
+ */
+function _view(
+  relation: string,
+  cols: readonly { name: string; type: string }[],
+  column: string,
+  transform: QueryTransform | undefined,
+): { relation: string; cols: { name: string; type: string }[] } {
+  if (transform === undefined) return { relation, cols: [...cols] };
+  const type = cols.find((c) => c.name === column)!.type;
+  const v = valueExpr(DUCKDB, column, /^VARCHAR$/i.test(type), 1);
+  const expr = reexpressedSql(v, transform.reexpression);
+  return {
+    relation: reexpressedRelation(relation, cols.map((c) => c.name), column, expr),
+    cols: cols.map((c) => (c.name === column ? { name: c.name, type: "DOUBLE" } : c)),
+  };
 }
 
 const _REFUSALS = new Set(["too-few", "constant", "non-numeric", "bad-option"]);
@@ -194,6 +229,10 @@ async function _one(
   what: (column?: string) => string,
 ): Promise<Screened> {
   _known(cols, r.column, what());
+  const view = _view(relation, cols, r.column, r.transform);
+  relation = view.relation;
+  cols = view.cols;
+  const transform = r.transform?.label;
   const o: ScanOptions = {
     ...options,
     dropText: r.dropText ?? options.dropText,
@@ -208,6 +247,7 @@ async function _one(
     return await _screen(engine, res, [{ name: r.column, type: "DOUBLE" }], r.column, o, {
       subject: `${what(r.column)}, residuals within ${JSON.stringify(by)}`,
       label: r.label,
+      transform,
     });
   }
   if (r.group !== undefined) {
@@ -222,11 +262,13 @@ async function _one(
         subject: `${what(r.column)}, ${r.group.by} = ${r.group.value}`,
         label: r.label,
         group: r.group.value,
+        transform,
       },
     );
   }
   return await _screen(engine, relation, cols, r.column, o, {
     subject: what(r.column),
     label: r.label,
+    transform,
   });
 }

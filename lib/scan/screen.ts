@@ -91,13 +91,15 @@ function _sampleNote(size: number, n: number): string {
 export interface Screened {
   readonly analysis: ScanAnalysis;
   readonly sample: Float64Array;
+  /** The smallest and largest finite value. */
+  readonly range: readonly [number, number];
 }
 
 /** Screen the column described by `q` whose counts are known. */
 export async function screenColumn(
   q: ColumnQuery,
   counts: ColumnCounts,
-  label: { column: string; label: string; group?: string },
+  label: { column: string; label: string; group?: string; transform?: string },
   options: ScreenOptions,
 ): Promise<Screened> {
   const { n, lo, hi } = counts;
@@ -214,6 +216,7 @@ export async function screenColumn(
       label: label.label,
       column: label.column,
       ...(label.group === undefined ? {} : { group: label.group }),
+      ...(label.transform === undefined ? {} : { transform: label.transform }),
       missingDropped: counts.missing,
       textDropped: counts.text,
     }),
@@ -240,5 +243,5 @@ export async function screenColumn(
     passes: Object.freeze(q.engine.log()),
     fitSeconds,
   });
-  return { analysis, sample: sorted };
+  return { analysis, sample: sorted, range: [lo, hi] };
 }

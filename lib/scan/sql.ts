@@ -90,6 +90,64 @@ export function valueExpr(
   return scale === 1 ? v : `(${v} * ${num(scale)})`;
 }
 
+/** A re-expression as SQL sees it: the family, its λ and shift, the log's base. */
+export interface SqlReexpression {
+  readonly kind: "identity" | "log" | "square-root" | "reciprocal" | "box-cox" | "yeo-johnson";
+  readonly lambda: number | null;
+  readonly shift: number;
+  readonly base: "e" | 10 | null;
+}
+
+/**
+ * The re-expressed value of the double expression `v`, in functions every
+ * engine has (`ln`, `log10`, `sqrt`, `exp`, `power`; no `expm1`/`log1p`,
+ * which DuckDB lacks). The power families follow `_powerTerm` in
+ * `lib/reexpress/_checks.ts`: (e^{λ·a} − 1)/λ with a = ln x, and its series
+ * a·(1 + t·(½ + t/6)) where |t = λ·a| < 1e-5, so that λ near 0 keeps its
+ * digits; λ = 0 (below 1e-150) is the log. Domain checks are the caller's
+ * (it knows the range).
+ */
+export function reexpressedSql(v: string, r: SqlReexpression): string {
+  const sh = (x: string) => (r.shift === 0 ? x : `(${x} + ${num(r.shift)})`);
+  const power = (a: string, lambda: number) => {
+    if (Math.abs(lambda) < 1e-150) return a;
+    const L = num(lambda);
+    return `(CASE WHEN abs(${L} * ${a}) < 1e-5 THEN ${a} * (1 + ${L} * ${a} * ` +
+      `(0.5 + ${L} * ${a} / 6)) ELSE (exp(${L} * ${a}) - 1) / ${L} END)`;
+  };
+  switch (r.kind) {
+    case "identity":
+      return v;
+    case "log":
+      return r.base === 10 ? `log10(${sh(v)})` : `ln(${sh(v)})`;
+    case "square-root":
+      return `sqrt(${sh(v)})`;
+    case "reciprocal":
+      return `(1 / ${v})`;
+    case "box-cox":
+      return power(`ln(${v})`, r.lambda!);
+    case "yeo-johnson": {
+      const l = r.lambda!;
+      return `(CASE WHEN ${v} >= 0 THEN ${power(`ln(${v} + 1)`, l)} ` +
+        `ELSE -${power(`ln(1 - ${v})`, 2 - l)} END)`;
+    }
+  }
+}
+
+/**
+ * The relation with `column` replaced by its re-expressed value `expr` (a
+ * DOUBLE) and every other column kept, named as before.
+ */
+export function reexpressedRelation(
+  relation: string,
+  names: readonly string[],
+  column: string,
+  expr: string,
+): string {
+  const list = names.map((n) => (n === column ? `${expr} AS ${quoteIdent(n)}` : quoteIdent(n)));
+  return `(SELECT ${list.join(", ")} FROM ${relation}) AS rx`;
+}
+
 /**
  * Pass 0: rows, present cells, numbers, non-finite numbers, and the finite
  * range. For a text column, `present − numeric` cells hold text.
