@@ -20,6 +20,7 @@ import { chooseBestStep } from "./best_choice.ts";
 import { refuseOnScan, scanStepDomain } from "./query_refusals.ts";
 import {
   checkRequest,
+  type ReexpressionChoice,
   type ReexpressRequest,
   resolveStep,
   type Step,
@@ -62,6 +63,7 @@ export class PlumbQuery implements Displayable {
   #card: Promise<MimeBundle> | undefined;
   readonly #from: { readonly parent: PlumbQuery; readonly request: ReexpressRequest } | undefined;
   #transform: Promise<QueryTransform | undefined> | undefined;
+  #choice: ReexpressionChoice | undefined;
 
   /** @internal Use `plumb(source, column)` (and `.reexpress()` for the last argument). */
   constructor(
@@ -110,6 +112,16 @@ export class PlumbQuery implements Displayable {
     return refuseOnScan(".values()");
   }
 
+  /**
+   * What this chain's `.reexpress()` request became and why (`null` on the
+   * chain `plumb()` made), as in memory's `.choice`.
+   */
+  async choice(): Promise<ReexpressionChoice | null> {
+    if (this.#from === undefined) return null;
+    await this.#transformed();
+    return this.#choice!;
+  }
+
   /** The re-expression this chain screens (none on the chain `plumb()` made), resolved once. */
   #transformed(): Promise<QueryTransform | undefined> {
     return (this.#transform ??= this.#resolve());
@@ -120,17 +132,25 @@ export class PlumbQuery implements Displayable {
     const { parent, request } = this.#from;
     const [s, column] = await Promise.all([parent.#screen(), this.#name()]);
     let step: Step | undefined;
+    let reason: string | undefined;
     if (request === "best") {
       const best = chooseBestStep(s.sample, s.analysis.reading, rankReexpressions(s.sample));
       step = best.step;
+      reason = `${best.note} (ranked on the seeded sample of ${s.sample.length})`;
       // The power chosen on the sample, with λ fitted over every value.
       if (step?.reexpression.kind === "box-cox" && s.lambda !== undefined) {
         step = stepOf(reexpression("box-cox", { lambda: s.lambda }));
+        reason += "; λ fitted by maximum likelihood over every value";
       }
     } else {
       // The sample with the extremes, so that a log's shift sees the smallest value.
       step = resolveStep(request, Float64Array.of(s.range[0], ...s.sample, s.range[1]));
     }
+    this.#choice = Object.freeze({
+      request,
+      reexpression: step?.reexpression ?? null,
+      reason: reason ?? step?.note ?? "as requested",
+    });
     if (step === undefined) return undefined;
     scanStepDomain(column, step.reexpression, s.range);
     return Object.freeze({ reexpression: step.reexpression, label: stepLabel(column, [step]) });

@@ -88,7 +88,10 @@ Deno.test("reexpress('best') on a scan uses the Box–Cox λ fitted over every v
   const src = scan(sql, { progress: false });
   const fit = (await scan(sql, { progress: false }).analyse("fill_ml")).boxCox;
   assert.ok("lambda" in fit);
-  const a = await plumb(src, "fill_ml").reexpress().analysis();
+  const p = plumb(src, "fill_ml").reexpress();
+  const a = await p.analysis();
+  assert.match((await p.choice())!.reason, /sample of 5000; λ fitted .* over every value/);
+  assert.equal(await plumb(src, "fill_ml").choice(), null);
   // The ranking on the sample picks the Box–Cox family here, with λ from every value.
   const b = await plumb(src, "fill_ml").reexpress({ boxCox: fit.lambda }).analysis();
   assert.equal(a.origin.transform, b.origin.transform);

@@ -272,6 +272,14 @@ NOTEBOOKS = {
          "lines, and the residuals from each line's mean pooled: the view that matters before an ANOVA. "
          "Line L3's skew is what makes the pooled residuals depart."),
         ("code", 'plumb(historian, "fill_ml").by("line");'),
+        ("md", "## Re-expressed by the engine\n\n`.reexpress()` ranks the candidates on the seeded sample, "
+         "then has the engine re-express every value in SQL and screens the result (a Box–Cox λ would be "
+         "fitted over every value). Here it declines, and says why."),
+        ("code", 'const best = plumb(historian, "fill_ml").reexpress();\n'
+                 '(await best.choice()).reason;'),
+        ("md", "Asked for by name, the log of every value is computed by the engine:"),
+        ("code", 'const logged = await plumb(historian, "fill_ml").reexpress("log").analysis();\n'
+                 '({ label: logged.origin.label, verdict: logged.reading.verdict, g1: logged.moments.g1 });'),
         ("md", "## Any SQL query\n\nA query over the files is a source too: here the lines without the skewed one."),
         ("code", 'const steady = scan(\n'
                  '  `SELECT fill_ml FROM read_parquet(\'${path}\') WHERE line <> \'L3\'`,\n'
