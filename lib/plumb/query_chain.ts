@@ -140,7 +140,8 @@ export class PlumbQuery implements Displayable {
       // The power chosen on the sample, with λ fitted over every value.
       if (step?.reexpression.kind === "box-cox" && s.lambda !== undefined) {
         step = stepOf(reexpression("box-cox", { lambda: s.lambda }));
-        reason += "; λ fitted by maximum likelihood over every value";
+        reason += `; the engine applies ${step.reexpression.label}, its λ fitted by maximum ` +
+          `likelihood over every value`;
       }
     } else {
       // The sample with the extremes, so that a log's shift sees the smallest value.
