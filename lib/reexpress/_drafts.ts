@@ -85,9 +85,9 @@ export function _candidateDrafts(
   if (bc !== null) {
     const pct = `${+(bc.level * 100).toPrecision(6)}%`;
     const ladder = nearestLadderPower(bc);
+    // 3 significant digits and a true minus sign (U+2212), as everywhere in the displays
+    const num = (v: number) => String(Number(v.toPrecision(3))).replace("-", "−");
     if (ladder === null) {
-      // 3 significant digits and a true minus sign (U+2212), as everywhere in the displays
-      const num = (v: number) => String(Number(v.toPrecision(3))).replace("-", "−");
       const iv = (v: number | null, open: string) => (v === null ? open : num(v));
       skipped.push(
         `Ladder power: none of the powers considered, ${
@@ -101,7 +101,7 @@ export function _candidateDrafts(
         d.simplicity === ({ 1: 0, 0: 1, 0.5: 2, [-1]: 3 } as Record<number, number>)[ladder]
       );
       which?.notes.push(
-        `Box–Cox λ = ${ladder} (the same shape) is the ladder power nearest λ̂ = ` +
+        `Box–Cox λ = ${num(ladder)} (the same shape) is the ladder power nearest λ̂ = ` +
           `${_fmt(bc.lambda)} inside its ${pct} interval`,
       );
     } else {

@@ -150,3 +150,22 @@ Deno.test("search rejects unusable input with PlumbError codes", () => {
   code(() => searchReexpressions([1, 2, Infinity]), "non-finite");
   code(() => searchReexpressions([4, 4, 4, 4]), "constant");
 });
+
+Deno.test("every λ in the search's words has a true minus sign (U+2212), none a hyphen", () => {
+  // reciprocal-normal data put λ̂ near −1, so the reciprocal carries the ladder note
+  const r = seededRandom(5);
+  for (
+    const x of [
+      Array.from({ length: 300 }, () => 1 / (2 + 0.3 * r.normal())),
+      Array.from({ length: 200 }, () => 1 / (1 + 0.4 * Math.abs(r.normal()))),
+      lognormal(150, 1.2),
+    ]
+  ) {
+    const words = JSON.stringify(searchReexpressions(x));
+    ok(!/λ̂? = -/.test(words), words.match(/[^"]*λ̂? = -[^"]*/)?.[0]);
+  }
+  const words = JSON.stringify(
+    searchReexpressions(Array.from({ length: 300 }, () => 1 / (2 + 0.3 * r.normal()))),
+  );
+  ok(words.includes("Box–Cox λ = −1 (the same shape)"), "the ladder note for the reciprocal");
+});
