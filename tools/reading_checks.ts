@@ -6,9 +6,9 @@
  * and the sentence and not re-expressed, a subsampled Shapiro–Wilk's n kept
  * apart from the full n, identifier columns left out of a survey with a note,
  * both σ lines on the QQ plot and both σ in the reading, and every display of
- * ten awkward columns (precise values near 1000, a floor pile-up, 6,000
+ * eleven awkward columns (precise values near 1000, a floor pile-up, 6,000
  * values, 6 values, negative values …) rendered without "NaN", "1/1/x" or a
- * hyphen for a minus sign in λ. Columns the chain refuses (3 values; the
+ * hyphen for a minus sign in λ or a bound on a bound ("≤ < 0.0001"). Columns the chain refuses (3 values; the
  * reciprocal of zeros) must be refused with a `PlumbError`.
  *
  * The verdict's rates come from `tools/sim/verdict_rates.ts`.
@@ -100,6 +100,7 @@ const columns: [string, number[]][] = [
   ["6000 values", Array.from({ length: 6000 }, () => Math.exp(0.5 * rng.normal()))],
   ["6 values", [1, 2, 3, 4, 5, 6]],
   ["negative", Array.from({ length: 80 }, () => -5 + Math.exp(rng.normal()))],
+  ["beyond A–D's range", Array.from({ length: 3000 }, () => Math.exp(1.5 * rng.normal()))],
   ["two reciprocals", Array.from({ length: 60 }, () => 2 + Math.exp(0.4 * rng.normal()))],
 ];
 for (const [name, x] of columns) {
@@ -130,6 +131,7 @@ for (const [name, x] of columns) {
         /\bNaN\b/.test(t) ? "NaN" : "",
         /1\/1\/x/.test(t) ? "1/1/x" : "",
         /λ̂? = -\d/.test(t) ? "λ with a hyphen" : "",
+        /[≤≥] </.test(t) ? "a bound on a bound (≤ <)" : "",
       ].filter((s) => s);
       check(`${name}: ${what}`, bad.length === 0, bad.join(", "));
     } catch (e) {

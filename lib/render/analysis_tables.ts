@@ -8,10 +8,21 @@ import type { TestOutcome } from "../results/analysis.ts";
 import { formatNumber, formatP } from "../results/format.ts";
 import type { TableModel } from "./table.ts";
 
-/** The p column: a bound where the published approximation only gives one. */
+/**
+ * The p column: a bound where the published approximation only gives one
+ * (a bound below 0.0001 is shown as "< 0.0001", never "≤ < 0.0001").
+ *
+ * @example
+ * ```ts
+ * import { pCell } from "./analysis_tables.ts";
+ * if (pCell({ pValue: 2e-190, pBound: "at-most" }) !== "< 0.0001") throw new Error("tiny bound");
+ * if (pCell({ pValue: 0.1, pBound: "at-least" }) !== "≥ 0.1000") throw new Error("lower bound");
+ * ```
+ */
 export function pCell(r: { readonly pValue: number; readonly pBound?: string }): string {
-  if (r.pBound === "at-least") return `≥ ${formatP(r.pValue)}`;
-  if (r.pBound === "at-most") return `≤ ${formatP(r.pValue)}`;
+  const tiny = r.pValue < 0.0001;
+  if (r.pBound === "at-least") return `≥ ${tiny ? formatNumber(r.pValue, 2) : formatP(r.pValue)}`;
+  if (r.pBound === "at-most") return tiny ? formatP(r.pValue) : `≤ ${formatP(r.pValue)}`;
   return formatP(r.pValue);
 }
 
