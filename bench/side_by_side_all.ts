@@ -33,6 +33,7 @@ import { andersonDarling } from "../lib/stats/anderson_darling.ts";
 import { dagostinoPearson } from "../lib/stats/dagostino_pearson.ts";
 import { shapiroWilk } from "../lib/stats/shapiro_wilk.ts";
 import { numericCsv } from "./_numeric_csv.ts";
+import { fitOurs, linearModelData, numpyCases } from "./linear_model_side_by_side.ts";
 import { fmtTime, type SideBySideCase, timeOurs, timePaired } from "./side_by_side.ts";
 
 const rng = seededRandom(20261201);
@@ -133,6 +134,22 @@ const CASES: SideBySideCase[] = [
   },
 ];
 
+/** The least-squares case: rows × covariates. */
+const LM_ROWS = 1_000_000;
+const LM_COVARIATES = 10;
+
+CASES.push(
+  ...numpyCases(LM_COVARIATES).map((c, i) => ({
+    name: i === 0
+      ? `least-squares residuals, leverages, studentised, ${LM_ROWS} rows × ${LM_COVARIATES} ` +
+        "covariates (numpy `lstsq` + residuals)"
+      : "the same against numpy reduced QR with the same diagnostics",
+    data: () => linearModelData(LM_ROWS, LM_COVARIATES),
+    ours: (x: Float64Array) => fitOurs(x, LM_COVARIATES),
+    python: c.python,
+  })),
+);
+
 const NOTES = [
   "Shapiro–Wilk: plumbline `shapiroWilk(x)` vs `scipy.stats.shapiro(x)` on the same sample; " +
   `fresh samples: ${FRESH} different samples of the same n, one call each, timed as a batch.`,
@@ -151,6 +168,10 @@ const NOTES = [
   "reference adds `scipy.stats.boxcox_normmax(c, method='mle')` for each column.",
   "Shapiro–Wilk ÷ radix sort: `shapiroWilk(x)` at n = 5000 against one `sortFloat64` of a " +
   "copy of the same array (the sort is the floor of any order-statistic test).",
+  "Least squares: `fitLinearModel(y, { covariates })` (design, QR, rank, coefficients, residuals, " +
+  "leverages, standardised and studentised residuals) vs numpy `lstsq` with the residuals (the " +
+  "least work, no leverages), and vs numpy reduced QR with the same diagnostics; the same seeded " +
+  "data (`bench/linear_model_side_by_side.ts`).",
   "CSV load: `loadTable(file)`, alone and followed by `table.numeric(name)` for every column " +
   "(each a fresh `Float64Array` copy), vs `pandas.read_csv(file)`; the same file, 1e6 rows × 10 " +
   "columns of 4-decimal numbers.",
