@@ -97,7 +97,12 @@ export function roundingWarning(sorted: Float64Array, capped: boolean): string |
   // is nothing to warn about, found in one cheap pass.
   if (n >= 25) {
     let repeats = 0;
-    for (let i = 1; i < n; i++) if (sorted[i] === sorted[i - 1]) repeats++;
+    let previous = sorted[0];
+    for (let i = 1; i < n; i++) {
+      const v = sorted[i];
+      if (v === previous) repeats++;
+      previous = v;
+    }
     if (repeats < 0.05 * n) return undefined;
   }
   const { step } = _measurementStepSorted(sorted);

@@ -134,8 +134,8 @@ export function _shapiroWilkSorted(
 export function shapiroWilkW(sorted: Float64Array): number {
   const n = sorted.length;
   const a = shapiroWilkCoefficients(n);
-  // Centre at the mean (two passes) and scale by about the range, so that
-  // huge offsets and extreme magnitudes neither cancel nor overflow. When the
+  // Shift by the smallest value and scale by about the range, so that huge
+  // offsets and extreme magnitudes neither cancel nor overflow. When the
   // range overflows (values near ±1.8e308 of both signs), halve before
   // subtracting (v·0.5 is exactly v/2) so that no difference overflows. The
   // scale is the power of two 2⁻ᵉ nearest below 1/range, applied in two
@@ -148,55 +148,41 @@ export function shapiroWilkW(sorted: Float64Array): number {
   const e = _exponent(last * f - lo);
   const pa = _pow2(Math.max(-1000, Math.min(1000, -e)));
   const pb = _pow2(-e - Math.max(-1000, Math.min(1000, -e)));
-  // The scaled values, computed once (into a shared buffer up to n = 5000).
-  const t = n <= SHAPIRO_WILK_MAX_N ? _SCALED.subarray(0, n) : new Float64Array(n);
-  // Both passes walk the values in pairs from the two ends: the pair's
-  // difference is what b = Σ a_k (t₍ₙ₋ₖ₎ − t₍ₖ₊₁₎) needs, and the two ends'
-  // sums are independent chains of additions (twice the pace of one chain).
+  const scaled = (v: number) => (v * f - lo) * pa * pb;
+  if (n === 3) {
+    // Exact form: with the values mapped to 0, m, 1, W = (3/4)/(1 − m + m²).
+    const m = scaled(sorted[1]) / scaled(sorted[2]);
+    return Math.max(0.75, Math.min(1, 0.75 / (1 - m + m * m)));
+  }
+  // One pass over the values in pairs from the two ends: the pair's
+  // difference is what b = Σ a_k (t₍ₙ₋ₖ₎ − t₍ₖ₊₁₎) needs, and the sums of
+  // deviations and squared deviations from the middle value c run in two
+  // independent chains each (twice the pace of one chain). The sum of squares
+  // about the mean is then Σ(t − c)² − (Σ(t − c))²/n, the shifted-data form
+  // (Chan, Golub & LeVeque 1983, The American Statistician 37:242–247): c is
+  // within one standard deviation of the mean, so at most about one bit is
+  // lost to cancellation.
   const half = a.length;
+  const c = scaled(sorted[half]);
   let sumLo = 0;
   let sumHi = 0;
+  let sqLo = 0;
+  let sqHi = 0;
   let b = 0;
   for (let k = 0; k < half; k++) {
     const l = (sorted[k] * f - lo) * pa * pb;
     const h = (sorted[n - 1 - k] * f - lo) * pa * pb;
-    t[k] = l;
-    t[n - 1 - k] = h;
-    sumLo += l;
-    sumHi += h;
     b += a[k] * (h - l);
+    const dl = l - c;
+    const dh = h - c;
+    sumLo += dl;
+    sumHi += dh;
+    sqLo += dl * dl;
+    sqHi += dh * dh;
   }
-  if (n % 2 === 1) {
-    t[half] = (sorted[half] * f - lo) * pa * pb;
-    sumLo += t[half];
-  }
-  if (n === 3) {
-    // Exact form: with the values mapped to 0, m, 1, W = (3/4)/(1 − m + m²).
-    const m = t[1] / t[2];
-    return Math.max(0.75, Math.min(1, 0.75 / (1 - m + m * m)));
-  }
-  const mean = (sumLo + sumHi) / n;
-  let ssqLo = 0;
-  let ssqHi = 0;
-  let corrLo = 0;
-  let corrHi = 0;
-  for (let k = 0; k < half; k++) {
-    const dl = t[k] - mean;
-    const dh = t[n - 1 - k] - mean;
-    ssqLo += dl * dl;
-    ssqHi += dh * dh;
-    corrLo += dl;
-    corrHi += dh;
-  }
-  if (n % 2 === 1) {
-    const d = t[half] - mean;
-    ssqLo += d * d;
-    corrLo += d;
-  }
-  // Compensate the rounding left in the mean (corrected two-pass, Chan,
-  // Golub & LeVeque 1983, The American Statistician 37:242–247).
-  const corr = corrLo + corrHi;
-  const ssq = ssqLo + ssqHi - corr * corr / n;
+  // With n odd, the middle value is c itself and adds nothing to either sum.
+  const sum = sumLo + sumHi;
+  const ssq = sqLo + sqHi - sum * sum / n;
   // 1 − W = (S − b)(S + b)/S² with S = √ssq, which stays accurate near W = 1.
   const root = Math.sqrt(ssq);
   const oneMinusW = ((root - b) * (root + b)) / ssq;
@@ -222,9 +208,6 @@ function _pow2(k: number): number {
   _WORDS[1 - _HIGH] = 0;
   return _BITS[0];
 }
-
-/** Scratch for {@linkcode shapiroWilkW} (synchronous, never re-entered). */
-const _SCALED = new Float64Array(SHAPIRO_WILK_MAX_N);
 
 function _poly(c: readonly number[], x: number): number {
   let r = 0;
