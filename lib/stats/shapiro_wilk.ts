@@ -23,8 +23,10 @@ export const SHAPIRO_WILK_MAX_N = 5000;
  * Statistics 44:547–551, Algorithm AS R94).
  *
  * W = (Σ a_i x₍ᵢ₎)² / Σ (x_i − x̄)² is computed in double precision on the
- * centred, sorted sample; 1 − W is formed as a difference of squares of
- * the two square roots so that W very near 1 keeps its digits.
+ * sorted sample shifted by its minimum and scaled by a power of two near its
+ * range, in one pass; 1 − W is formed as a difference of squares of the two
+ * square roots so that W very near 1 keeps its digits. The sorted copy is
+ * made in a buffer kept between calls, so a call allocates nothing of size n.
  *
  * p-value, by range of n:
  * - n = 3: exact, p = (6/π)(asin √W − asin √(3/4)) (W ≥ 3/4 always);
