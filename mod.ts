@@ -235,6 +235,13 @@ export { normalHazard, normalLogCdf, normalLogSf } from "./lib/numeric/normal_lo
 export { PlumbQuery } from "./lib/plumb/query_chain.ts";
 export { QueryGroups } from "./lib/plumb/query_groups.ts";
 export { QuerySurvey } from "./lib/plumb/query_survey.ts";
+export type {
+  AggregateProfile,
+  AggregateRange,
+  AggregateShape,
+  ColumnAggregates,
+} from "./lib/results/aggregates.ts";
+export { memoryAggregates } from "./lib/plumb/memory_aggregates.ts";
 export {
   isQuerySource,
   QUERY_SOURCE,

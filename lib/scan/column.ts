@@ -8,23 +8,26 @@
 import { PlumbError } from "../errors.ts";
 import type { _Engine } from "./engine.ts";
 import type { ScanOptions } from "./scan.ts";
-import { screenColumn, type Screened } from "./screen.ts";
+import { type ColumnCounts, screenColumn, type Screened } from "./screen.ts";
 import type { ColumnQuery } from "./select.ts";
 import { countsSql, DUCKDB, quickCountsSql, textCellsSql, valueExpr } from "./sql.ts";
 
 export const _NUMERIC =
   /^(TINYINT|SMALLINT|INTEGER|BIGINT|HUGEINT|UTINYINT|USMALLINT|UINTEGER|UBIGINT|UHUGEINT|FLOAT|DOUBLE|REAL|DECIMAL.*)$/i;
 
-/** Screen `name` of `relation` (its columns `cols` known) with one engine. */
-export async function _screen(
+/**
+ * The column `name` of `relation` as the passes read it, with its counts
+ * (text cells refused unless `dropText`, too few values or a constant
+ * column refused): the first query of every screening.
+ */
+export async function _columnQuery(
   engine: _Engine,
   relation: string,
   cols: readonly { name: string; type: string }[],
   name: string,
   o: ScanOptions,
-  label: { subject: string; label: string; group?: string; transform?: string },
-): Promise<Screened> {
-  const subject = label.subject;
+  subject: string,
+): Promise<{ q: ColumnQuery; counts: ColumnCounts }> {
   const type = cols.find((c) => c.name === name)!.type;
   const textual = /^VARCHAR$/i.test(type);
   if (!textual && !_NUMERIC.test(type)) {
@@ -64,17 +67,23 @@ export async function _screen(
   const hi = c[5] as number;
   _checkRange(subject, n, lo, hi);
   const keep = nonFinite > 0 ? "finite" : numeric < rows ? "present" : "all";
-  const q: ColumnQuery = {
-    engine,
-    dialect: DUCKDB,
-    relation,
-    v,
-    subject,
-    keep,
-  };
+  const q: ColumnQuery = { engine, dialect: DUCKDB, relation, v, subject, keep };
+  return { q, counts: { rows, missing: rows - present, text, nonFinite, n, lo, hi } };
+}
+
+/** Screen `name` of `relation` (its columns `cols` known) with one engine. */
+export async function _screen(
+  engine: _Engine,
+  relation: string,
+  cols: readonly { name: string; type: string }[],
+  name: string,
+  o: ScanOptions,
+  label: { subject: string; label: string; group?: string; transform?: string },
+): Promise<Screened> {
+  const { q, counts } = await _columnQuery(engine, relation, cols, name, o, label.subject);
   return await screenColumn(
     q,
-    { rows, missing: rows - present, text, nonFinite, n, lo, hi },
+    counts,
     { column: name, label: label.label, group: label.group, transform: label.transform },
     {
       sampleSize: o.sampleSize ?? 5000,

@@ -12,9 +12,12 @@ import type { QqOptions } from "../stats/qq_data.ts";
 import { QUERY_SOURCE, type QueryEngine, type QuerySource } from "../results/query_source.ts";
 import type { _Engine, EngineOptions } from "./engine.ts";
 import type { ScanAnalysis } from "./screen.ts";
-import { _pick, _screen } from "./column.ts";
+import { _columnQuery, _pick, _screen } from "./column.ts";
 import { _describe, _openEngine, scanQueryEngine } from "./query_engine.ts";
-import { groupRelation, groupValuesSql, quoteText } from "./sql.ts";
+import { scanAggregates } from "./scan_aggregates.ts";
+import type { ColumnAggregates } from "../results/aggregates.ts";
+import { groupRelation, groupValuesSql } from "./sql.ts";
+import { _relation, _relationIsQuery } from "./relation.ts";
 
 /** Options for {@linkcode scan}. */
 export interface ScanOptions extends Omit<EngineOptions, "onProgress"> {
@@ -52,23 +55,6 @@ export interface ScanOptions extends Omit<EngineOptions, "onProgress"> {
    * @default true
    */
   readonly progress?: boolean | EngineOptions["onProgress"];
-}
-
-function _relationIsQuery(s: string): boolean {
-  return /^(select|with|from|values)\b/i.test(s) || s.startsWith("(");
-}
-
-/** The FROM-clause text for a path or a query. */
-function _relation(pathOrSql: string): string {
-  const s = pathOrSql.trim();
-  if (_relationIsQuery(s)) return `(${s}) AS src`;
-  if (/\.parquet$/i.test(s)) return `read_parquet(${quoteText(s)})`;
-  if (/\.(csv|tsv|txt)(\.gz)?$/i.test(s)) return `read_csv(${quoteText(s)})`;
-  throw new PlumbError(
-    "bad-option",
-    `Cannot tell what to scan in ${JSON.stringify(s)}: give a path ending in .parquet, .csv, ` +
-      `.tsv or .txt (globs such as "data/*.parquet" allowed), or an SQL query starting with SELECT`,
-  );
 }
 
 /**
@@ -119,6 +105,38 @@ export class ScanSource implements QuerySource {
     return column === undefined
       ? JSON.stringify(src)
       : `column ${JSON.stringify(column)} of ${JSON.stringify(src)}`;
+  }
+
+  /**
+   * The aggregates of one numeric column (see `ColumnAggregates`): range, moments from
+   * compensated central sums, exact order statistics at chosen ranks, counts below edges, a
+   * seeded sample, the Box–Cox profile. Each call runs its own passes through DuckDB.
+   *
+   * @param column the column (the only numeric one when omitted)
+   * @example
+   * ```ts
+   * import { scan } from "../../mod.ts";
+   * const a = scan("SELECT i * 0.5 AS gap FROM range(1, 1001) t(i)", { progress: false }).aggregates();
+   * const [median] = await a.orderStatistics([500]);
+   * if (median !== 250 || (await a.shape()).mean !== 250.25) throw new Error("aggregates");
+   * ```
+   */
+  aggregates(column?: string): ColumnAggregates {
+    return scanAggregates(async () => {
+      const engine = await this.#open();
+      try {
+        const cols = await this.#columns(engine);
+        const name = _pick(cols, column);
+        const o = this.#options;
+        return {
+          engine,
+          ...(await _columnQuery(engine, this.#relation, cols, name, o, this.#what(name))),
+        };
+      } catch (e) {
+        engine.close();
+        throw e;
+      }
+    });
   }
 
   /**
