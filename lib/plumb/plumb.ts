@@ -16,7 +16,6 @@ import { histogramSpec } from "../render/histogram_spec.ts";
 import { detrendedSpec, qqSpec } from "../render/qq_spec.ts";
 import type { Analysis } from "../results/analysis.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
-import { isQuerySource, QUERY_SOURCE, type QuerySource } from "../results/query_source.ts";
 import type { Reading } from "../results/reading.ts";
 import { stakes, type StakesOptions } from "../stakes/stakes.ts";
 import { histogramData, type HistogramOptions } from "../stats/histogram_data.ts";
@@ -30,7 +29,6 @@ import { CELL_SEPARATOR, groupColumns } from "./group_split.ts";
 import * as order from "./serial_check.ts";
 import { PlumbGroups } from "./groups.ts";
 import { lambdaExplorer } from "./lambda_view.ts";
-import { PlumbQuery } from "./query_chain.ts";
 import { type CandidatesView, candidatesView } from "./reexpress_view.ts";
 import { chooseBestStep } from "./best_choice.ts";
 import * as fitting from "./residual_link.ts";
@@ -39,7 +37,6 @@ import { type Sentence, sentenceOf, type SentenceOptions, writeSentence } from "
 import * as checked from "./_chain_options.ts";
 import { _applyStep } from "./_apply_step.ts";
 import type { PlumbOptions } from "./_chain_options.ts";
-import { pickColumn, type PlumbSource, singleColumn, toTable } from "./source.ts";
 import { checkRequest, type ReexpressRequest, resolveStep, type Step } from "./steps.ts";
 import type { ReexpressionChoice } from "./steps.ts";
 import { stepLabel, stepsData } from "./steps.ts";
@@ -49,9 +46,10 @@ import { type TestsTable, testsView } from "./tests_view.ts";
 export type { PlumbOptions } from "./_chain_options.ts";
 
 export type { ReexpressionChoice } from "./steps.ts";
+export { plumb } from "./plumb_entry.ts";
 
 /** Where a chain's values come from: the same for every chain built from one `plumb()`. */
-interface _Root {
+export interface _Root {
   readonly table: Table;
   readonly column: string;
   readonly options: PlumbOptions;
@@ -211,12 +209,18 @@ export class Plumb implements Displayable {
       label: this.label,
       column: this.#root.column,
       transform: this.steps.length ? stepLabel(this.#root.column, this.steps) : undefined,
-      notes: order.notesWith(model?.notes, serial),
+      notes: order.notesWith(model?.notes ?? this.#keptNote(), serial),
     }, {
       qq: this.#root.options.qq,
       envelope: model && this.#envelope(this.#root.options.qq?.level),
     });
     return (this.#analysis = serial ? Object.freeze({ ...a, serial }) : a);
+  }
+
+  /** Why a `"best"` request kept the data as they are: the reading's first point. */
+  #keptNote(): string[] | undefined {
+    const c = this.#request === "best" ? this.choice : null;
+    return c && c.reexpression === null ? [c.reason] : undefined;
   }
 
   /** The reading (shape in words). */
@@ -410,39 +414,4 @@ export class Plumb implements Displayable {
   [DISPLAY](): Promise<MimeBundle> {
     return (this.#card ??= cardOf(this.analysis(), this.label));
   }
-}
-
-/**
- * Start a chain over one numeric variable. Nothing is read or computed until the chain is first
- * shown or read. A query source (`scan(pathOrSql)`) gives a {@linkcode PlumbQuery}: the same
- * analysis computed by its engine, read with `await`.
- *
- * @param source a table from `loadTable`, an array of numbers, in-memory
- *   data (rows, columns, a data frame), or a query source from `scan`
- * @param column the column to analyse (optional when there is only one); for
- *   a plain array of numbers, the variable's name
- * @param options text-cell handling, envelope options
- *
- * @example
- * ```ts
- * import { plumb } from "@plumbline/plumbline";
- * const p = plumb([4.1, 3.9, 4.4, 4.0, 4.2, 3.7, 4.6, 4.3, 3.8, 4.1], "fill_ml");
- * if (p.analysis().n !== 10 || p.label !== "fill_ml") throw new Error("chain");
- * ```
- */
-export function plumb(source: QuerySource, column?: string, options?: PlumbOptions): PlumbQuery;
-/** The chain over in-memory data (a table, an array, rows, columns, a data frame). */
-export function plumb(source: PlumbSource, column?: string, options?: PlumbOptions | null): Plumb;
-export function plumb(
-  source: PlumbSource | QuerySource,
-  column?: string,
-  options: PlumbOptions | null = {},
-): Plumb | PlumbQuery {
-  options = checked.plumbArguments(column, options);
-  if (isQuerySource(source)) return new PlumbQuery(source[QUERY_SOURCE], column, options);
-  const single = singleColumn(source);
-  const name = single && column !== undefined ? column : options.name ?? "value";
-  const table = toTable(source, name);
-  const col = pickColumn(table, single ? undefined : column);
-  return new Plumb({ table, column: col, options, order: order.checkOrder(table, options) });
 }

@@ -75,6 +75,8 @@ Deno.test("the chain: .reexpress() keeps a clustered sample as it is and says wh
     kept.choice!.reason,
     /^No re-expression applied: the departure comes from a separate cluster/,
   );
+  // the kept chain's card says why first, where the user looks
+  equal(kept.analysis().reading.points[0], kept.choice!.reason);
   const logged = plumb(Array.from({ length: 200 }, () => Math.exp(0.5 * rng.normal())), "gap")
     .reexpress("best");
   equal(logged.label, "ln(gap)");
