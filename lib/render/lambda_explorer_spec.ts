@@ -299,7 +299,7 @@ export function lambdaExplorerSpec(
       {
         width: w,
         height: h,
-        title: { text: "normal QQ plot at the chosen λ (standardised)", fontSize: 12 },
+        title: { text: "QQ plot at the chosen λ (standardised)", fontSize: 12 },
         data: { values: points },
         transform: [{ filter: match }],
         layer: [
