@@ -185,21 +185,23 @@ export class PlumbQuery implements Displayable {
   }
 
   #screen(): Promise<QueryScreening> {
-    return (this.#screened ??= Promise.all([this.#name(), this.#transformed()]).then((
-      [column, transform],
-    ) =>
-      this.#engine.screen([{
-        column,
-        label: transform?.label ?? column,
-        dropText: this.#options.dropText,
-        qq: this.#options.qq,
-        transform,
-      }])
-    ).then((r) => {
-      const s = _single(r[0]);
+    return (this.#screened ??= (async () => {
+      const [column, transform] = await Promise.all([this.#name(), this.#transformed()]);
+      // "best" that keeps the data as they are: the parent's screening, not another scan.
+      const s = transform === undefined && this.#from !== undefined
+        ? await this.#from.parent.#screen()
+        : _single(
+          (await this.#engine.screen([{
+            column,
+            label: transform?.label ?? column,
+            dropText: this.#options.dropText,
+            qq: this.#options.qq,
+            transform,
+          }]))[0],
+        );
       this.#done = s.analysis;
       return s;
-    }));
+    })());
   }
 
   /**

@@ -101,6 +101,11 @@ Deno.test("reexpress('best') on a scan uses the Box–Cox λ fitted over every v
   assert.equal(a.moments.mean, b.moments.mean);
   assert.match(a.origin.transform!, /^Box–Cox\[λ = /);
   assert.deepEqual(a.subsample, { size: 5000, seed: 1 }, "the sample is stated");
+  // Kept as they are (no clear departure): the same screening as the chain plumb() made.
+  const flat = scan(`SELECT 10 + ${_Z} AS gap_mm FROM range(3000) t(i)`, { progress: false });
+  const kept = plumb(flat, "gap_mm").reexpress();
+  assert.equal((await kept.choice())!.reexpression, null);
+  assert.deepEqual(await kept.analysis(), await plumb(flat, "gap_mm").analysis());
 });
 
 Deno.test("a scanned chain refuses what it cannot do, saying what to do instead", async () => {
