@@ -1,5 +1,5 @@
 // deno bench: Shapiro–Wilk at n = 20, 1000, 5000, against one sort of the same
-// array (the target: within 1.5× of one sort). Seeded data.
+// array (the target: within 1.3× of one sort of a copy). Seeded data.
 import { seededRandom } from "../lib/numeric/random.ts";
 import { sortFloat64 } from "../lib/numeric/sort.ts";
 import { shapiroWilk } from "../lib/stats/shapiro_wilk.ts";
