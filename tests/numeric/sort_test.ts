@@ -1,6 +1,7 @@
 import { deepEqual, equal, ok } from "node:assert/strict";
 import fc from "fast-check";
-import { RADIX_MIN_N, sortFloat64 } from "../../lib/numeric/sort.ts";
+import { KEEP_SCRATCH_MAX_N, RADIX_MIN_N, sortFloat64 } from "../../lib/numeric/sort.ts";
+import { seededRandom } from "../../lib/numeric/random.ts";
 
 /** Compare element by element, telling −0 from +0 only where the order matters. */
 function sameOrder(a: Float64Array, b: Float64Array): boolean {
@@ -64,4 +65,14 @@ Deno.test("radix sort: sorted, reversed and constant inputs; subarray views", ()
   sortFloat64(view);
   deepEqual(view, expected);
   equal(big[0], 0, "outside the view untouched");
+});
+
+Deno.test("radix sort: the kept scratch serves sorts of every size in turn, growing and not", () => {
+  // Sizes below, at and above the kept scratch's limit, growing and shrinking, so that a
+  // sort after a larger one sees a longer buffer than it needs; each against the built-in.
+  const rng = seededRandom(44);
+  for (const n of [20_000, 200_000, 30_000, KEEP_SCRATCH_MAX_N, KEEP_SCRATCH_MAX_N + 1, 50_000]) {
+    const x = new Float64Array(n).map(() => (rng.uniform() - 0.5) * 10 ** (20 * rng.uniform()));
+    ok(sameOrder(sortFloat64(x.slice()), x.slice().sort()), `n = ${n}`);
+  }
 });
