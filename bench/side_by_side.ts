@@ -52,16 +52,32 @@ export function timeOurs(f: () => unknown, budget = 1, minBatches = 5): number {
   return times[Math.floor(times.length / 2)];
 }
 
-/** Time a Python statement on the same data; median seconds per call. */
-export async function timePython(c: SideBySideCase, x: Float64Array, budget = 1): Promise<number> {
+/** The data in a temporary file (removed afterwards) for numpy to read, passed to `use`. */
+async function _withDataFile<T>(x: Float64Array, use: (file: string) => Promise<T>): Promise<T> {
   const file = await Deno.makeTempFile({ suffix: ".f64" });
   try {
     await Deno.writeFile(file, new Uint8Array(x.buffer, x.byteOffset, x.byteLength));
+    return await use(file);
+  } finally {
+    await Deno.remove(file);
+  }
+}
+
+/** The first lines of a timing script: imports, setup, the data as `x`, the statement as `f`. */
+function _scriptHead(c: SideBySideCase, file: string): string[] {
+  return [
+    "import sys, timeit, numpy as np, scipy.stats as s",
+    c.pythonSetup ?? "",
+    `x = np.fromfile(${JSON.stringify(file)}, dtype='<f8')`,
+    `f = lambda: ${c.python}`,
+  ];
+}
+
+/** Time a Python statement on the same data; median seconds per call. */
+export function timePython(c: SideBySideCase, x: Float64Array, budget = 1): Promise<number> {
+  return _withDataFile(x, async (file) => {
     const script = [
-      "import sys, timeit, numpy as np, scipy.stats as s",
-      c.pythonSetup ?? "",
-      `x = np.fromfile(${JSON.stringify(file)}, dtype='<f8')`,
-      `f = lambda: ${c.python}`,
+      ..._scriptHead(c, file),
       "f()",
       "reps = 1",
       "while timeit.timeit(f, number=reps) < 0.02: reps *= 2",
@@ -77,9 +93,7 @@ export async function timePython(c: SideBySideCase, x: Float64Array, budget = 1)
       .output();
     if (!out.success) throw new Error(new TextDecoder().decode(out.stderr));
     return Number(new TextDecoder().decode(out.stdout).trim());
-  } finally {
-    await Deno.remove(file);
-  }
+  });
 }
 
 /** Paired timings of one case: per round, our median and the reference's, measured back to back. */
@@ -98,19 +112,14 @@ export interface PairedTimes {
  * both sides of each round alike, and each round's ratio is a fair one even
  * when the load changes between rounds.
  */
-export async function timePaired(
+export function timePaired(
   c: SideBySideCase,
   x: Float64Array,
   options: { rounds: number; budget: number; minBatches: number },
 ): Promise<PairedTimes> {
-  const file = await Deno.makeTempFile({ suffix: ".f64" });
-  try {
-    await Deno.writeFile(file, new Uint8Array(x.buffer, x.byteOffset, x.byteLength));
+  return _withDataFile(x, async (file) => {
     const script = [
-      "import sys, timeit, numpy as np, scipy.stats as s",
-      c.pythonSetup ?? "",
-      `x = np.fromfile(${JSON.stringify(file)}, dtype='<f8')`,
-      `f = lambda: ${c.python}`,
+      ..._scriptHead(c, file),
       // The first call is the warm-up; it also sizes the batches.
       "reps, t = 1, timeit.timeit(f, number=1)",
       "while t < 0.02: reps, t = 2 * reps, timeit.timeit(f, number=2 * reps)",
@@ -151,9 +160,7 @@ export async function timePaired(
       await writer.close().catch(() => {});
       await child.status;
     }
-  } finally {
-    await Deno.remove(file);
-  }
+  });
 }
 
 /** The lines of a byte stream. */
