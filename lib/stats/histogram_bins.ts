@@ -32,6 +32,11 @@ export interface BinInput {
   readonly sd: number;
   /** Interquartile range (only read by the Freedman–Diaconis rule). */
   readonly iqr: () => number;
+  /**
+   * The largest share of the values that sit at one value (only read by the
+   * Freedman–Diaconis rule); absent where it is not known.
+   */
+  readonly largestTie?: () => number;
   /** The measurement step, or `null`. */
   readonly step: number | null;
 }
@@ -59,6 +64,9 @@ export interface BinLayout {
   /** k + 1 edges, ascending; the first at or below min, the last at or above max. */
   readonly edges: readonly number[];
 }
+
+/** The share of the values at one value from which the Freedman–Diaconis rule gives way to Scott's. */
+export const PILE_UP_SHARE = 0.25;
 
 const _RULES: readonly BinRule[] = ["freedman-diaconis", "scott", "sturges"];
 
@@ -138,7 +146,12 @@ export function histogramBins(s: BinInput, r: BinRequest): BinLayout {
   } else {
     rule = r.rule ?? "freedman-diaconis";
     const iqr = rule === "freedman-diaconis" ? s.iqr() : 0;
-    if (rule === "freedman-diaconis" && iqr > 0) {
+    // A value holding a quarter of the sample or more puts a quartile inside
+    // that pile-up, and the IQR then measures the pile-up, not the spread: 372
+    // zeros among 506 values gave 198 bins in which the other values vanished
+    // (plumbline's own rule; the sd-based width does not see the pile-up).
+    const tie = rule === "freedman-diaconis" && iqr > 0 && s.largestTie ? s.largestTie() : 0;
+    if (rule === "freedman-diaconis" && iqr > 0 && tie < PILE_UP_SHARE) {
       width = (2 * iqr) / cube;
       note = "Freedman–Diaconis bin width 2·IQR·n^(−1/3) (Freedman & Diaconis 1981)";
     } else if (rule === "sturges") {
@@ -149,9 +162,13 @@ export function histogramBins(s: BinInput, r: BinRequest): BinLayout {
       rule = "scott";
       width = (3.49 * s.sd) / cube;
       note = "Scott bin width 3.49·sd·n^(−1/3) (Scott 1979)" +
-        (fallback
-          ? ", because the interquartile range is 0 and the Freedman–Diaconis width would be 0"
-          : "");
+        (!fallback
+          ? ""
+          : iqr > 0
+          ? `, because ${
+            Math.round(100 * tie)
+          }% of the values sit at one value and the interquartile range measures that pile-up, not the spread`
+          : ", because the interquartile range is 0 and the Freedman–Diaconis width would be 0");
     }
   }
   if (!(width > 0)) width = range > 0 ? range : 1;

@@ -198,7 +198,13 @@ export function histogramData(
     });
   }
   const { mean, sd } = _sampleShape(data, what);
-  return _histogramBuild(data, { min, max, mean, sd, step }, options, () => _iqrBySelection(data));
+  return _histogramBuild(
+    data,
+    { min, max, mean, sd, step },
+    options,
+    () => _iqrBySelection(data),
+    () => _largestTie(sortFloat64(data.slice())),
+  );
 }
 
 /**
@@ -231,7 +237,19 @@ export function _histogramDataSorted(
     { min, max, mean: shape.mean, sd: shape.sd, step },
     options,
     () => _quantile7(at, n, 0.75) - _quantile7(at, n, 0.25),
+    () => _largestTie(sorted),
   );
+}
+
+/** The largest share of a sorted sample that sits at one value. */
+function _largestTie(sorted: Float64Array): number {
+  let longest = 1;
+  let run = 1;
+  for (let i = 1; i < sorted.length; i++) {
+    run = sorted[i] === sorted[i - 1] ? run + 1 : 1;
+    if (run > longest) longest = run;
+  }
+  return longest / sorted.length;
 }
 
 /** The histogram of finite, non-constant data with moderate magnitudes (see histogramData). */
@@ -240,10 +258,11 @@ function _histogramBuild(
   summary: { min: number; max: number; mean: number; sd: number; step: number | null },
   options: HistogramOptions,
   interquartile: () => number,
+  largestTie: () => number,
 ): HistogramData {
   const n = data.length;
   const { min, max, mean, sd, step } = summary;
-  const layout = _histogramLayout(n, min, max, sd, options, interquartile, step);
+  const layout = _histogramLayout(n, min, max, sd, options, interquartile, step, largestTie);
   const { k, edges, width } = layout;
   const first = edges[0];
   const counts: number[] = new Array(k).fill(0);

@@ -26,7 +26,8 @@ export interface _HistogramLayout {
 /**
  * Choose the bins for n values in [min, max] with standard deviation `sd`;
  * `interquartile` is called only by the Freedman–Diaconis rule; `step` is
- * the measurement step the values sit on (`null` when unknown or none).
+ * the measurement step the values sit on (`null` when unknown or none);
+ * `largestTie`, the largest share of values at one value, where known.
  */
 export function _histogramLayout(
   n: number,
@@ -36,6 +37,7 @@ export function _histogramLayout(
   options: HistogramOptions,
   interquartile: () => number,
   step: number | null = null,
+  largestTie?: () => number,
 ): _HistogramLayout {
   const curvePoints = options.curvePoints ?? 121;
   if (!Number.isInteger(curvePoints) || curvePoints < 2) {
@@ -44,7 +46,10 @@ export function _histogramLayout(
       `Cannot use curvePoints = ${curvePoints}: use a whole number of at least 2`,
     );
   }
-  const bins = histogramBins({ n, min, max, sd, iqr: interquartile, step }, options);
+  const bins = histogramBins(
+    { n, min, max, sd, iqr: interquartile, step, ...(largestTie ? { largestTie } : {}) },
+    options,
+  );
   return {
     rule: bins.rule,
     ruleNote: bins.note,

@@ -122,3 +122,18 @@ Deno.test("with a measurement step, widths are whole steps and edges half-steps;
     (e) => e instanceof PlumbError && e.code === "bad-option",
   );
 });
+
+Deno.test("a pile-up holding a quarter of the values or more hands the width to Scott's rule", () => {
+  // Invented: 372 readings at a floor of 0 among 506; the rest spread from 0.05 to 40.
+  const rest = Array.from({ length: 134 }, (_, i) => 0.05 + (40 * (i / 133)) ** 1.5 / 40 ** 0.5);
+  const x = [...new Array(372).fill(0), ...rest];
+  const h = histogramData(x);
+  assert.equal(h.rule, "scott");
+  assert.match(h.ruleNote, /74% of the values sit at one value/);
+  assert.ok(h.counts.length < 40, `${h.counts.length} bins`);
+  // the non-zero values are not lost in hundreds of near-empty bins
+  assert.ok(Math.max(...h.counts.slice(1)) >= 10, `${h.counts}`);
+  // below a quarter at one value, Freedman–Diaconis stays
+  const mild = [...new Array(100).fill(0), ...Array.from({ length: 406 }, (_, i) => 1 + i / 40)];
+  assert.equal(histogramData(mild).rule, "freedman-diaconis");
+});
