@@ -167,9 +167,12 @@ export function histogramData(
   }
   checkNotConstant(Float64Array.of(min, max), what, n);
   checkBinRequest(options);
+  // One sorted copy at most, made only when the step or the largest tie needs it.
+  let sorted: Float64Array | undefined;
+  const sortedOnce = () => sorted ??= sortFloat64(data.slice());
   const step = options.step !== undefined
     ? options.step
-    : _measurementStepSorted(sortFloat64(data.slice())).step;
+    : _measurementStepSorted(sortedOnce()).step;
   const k = rescaleExponent(Math.max(-min, max));
   if (k !== 0) {
     // Bin x·2ᵏ, whose range, squares and density cannot overflow or underflow,
@@ -203,7 +206,7 @@ export function histogramData(
     { min, max, mean, sd, step },
     options,
     () => _iqrBySelection(data),
-    () => _largestTie(sortFloat64(data.slice())),
+    () => _largestTie(sortedOnce()),
   );
 }
 
