@@ -18,7 +18,10 @@ export const _NUMERIC =
 /**
  * The column `name` of `relation` as the passes read it, with its counts
  * (text cells refused unless `dropText`, too few values or a constant
- * column refused): the first query of every screening.
+ * column refused): the first query of every screening. `value` is the
+ * value expression when it is not the column itself (a re-expression of
+ * it); cells where the column holds something and `value` is NULL count as
+ * text.
  */
 export async function _columnQuery(
   engine: _Engine,
@@ -27,6 +30,7 @@ export async function _columnQuery(
   name: string,
   o: ScanOptions,
   subject: string,
+  value?: string,
 ): Promise<{ q: ColumnQuery; counts: ColumnCounts }> {
   const type = cols.find((c) => c.name === name)!.type;
   const textual = /^VARCHAR$/i.test(type);
@@ -38,7 +42,7 @@ export async function _columnQuery(
       { type },
     );
   }
-  const v = valueExpr(DUCKDB, name, textual, 1);
+  const v = value ?? valueExpr(DUCKDB, name, textual, 1);
   // From the file's statistics when it can; a filtered pass when NaN or ±Infinity are present.
   let [c] = textual
     ? [[]]
@@ -78,9 +82,24 @@ export async function _screen(
   cols: readonly { name: string; type: string }[],
   name: string,
   o: ScanOptions,
-  label: { subject: string; label: string; group?: string; transform?: string },
+  label: {
+    subject: string;
+    label: string;
+    group?: string;
+    transform?: string;
+    /** The value expression, when not the column as a double (a re-expression). */
+    value?: string;
+  },
 ): Promise<Screened> {
-  const { q, counts } = await _columnQuery(engine, relation, cols, name, o, label.subject);
+  const { q, counts } = await _columnQuery(
+    engine,
+    relation,
+    cols,
+    name,
+    o,
+    label.subject,
+    label.value,
+  );
   return await screenColumn(
     q,
     counts,

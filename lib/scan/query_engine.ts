@@ -25,7 +25,6 @@ import {
   groupCountsSql,
   groupRelation,
   presenceSql,
-  reexpressedRelation,
   reexpressedSql,
   residualRelation,
   valueExpr,
@@ -117,11 +116,9 @@ export function scanQueryEngine(relation: string, name: string, options: ScanOpt
       try {
         const all = await _describe(engine, relation, what());
         for (const c of [column, by]) _known(all, c, name);
-        const view = _view(relation, all, column, transform);
-        const type = view.cols.find((c) => c.name === column)!.type;
-        const v = valueExpr(DUCKDB, column, /^VARCHAR$/i.test(type), 1);
+        const v = _value(all, column, transform);
         const rows = await engine.rows(
-          groupCountsSql(DUCKDB, view.relation, column, v, by, MAX_SCAN_GROUPS + 2),
+          groupCountsSql(DUCKDB, relation, column, v, by, MAX_SCAN_GROUPS + 2),
           "counting the groups",
           what(by),
         );
@@ -188,24 +185,20 @@ function _plainScreening(s: Screened): QueryScreening {
 }
 
 /**
- * The relation and columns a request reads: as they are, or with `column`
- * replaced by its re-expressed value computed by the engine (text cells
- * read as numbers first, so they stay missing).
+ * The value expression a request reads: the column as a double (a text
+ * column read as numbers), re-expressed by the engine when `transform` is
+ * given. The relation stays as it is, so a text column keeps its text cells
+ * apart from its empty ones (counted as text, refused unless `dropText`),
+ * as in memory.
  */
-function _view(
-  relation: string,
+function _value(
   cols: readonly { name: string; type: string }[],
   column: string,
   transform: QueryTransform | undefined,
-): { relation: string; cols: { name: string; type: string }[] } {
-  if (transform === undefined) return { relation, cols: [...cols] };
+): string {
   const type = cols.find((c) => c.name === column)!.type;
   const v = valueExpr(DUCKDB, column, /^VARCHAR$/i.test(type), 1);
-  const expr = reexpressedSql(v, transform.reexpression);
-  return {
-    relation: reexpressedRelation(relation, cols.map((c) => c.name), column, expr),
-    cols: cols.map((c) => (c.name === column ? { name: c.name, type: "DOUBLE" } : c)),
-  };
+  return transform === undefined ? v : reexpressedSql(v, transform.reexpression);
 }
 
 const _REFUSALS = new Set(["too-few", "constant", "non-numeric", "bad-option"]);
@@ -229,9 +222,7 @@ async function _one(
   what: (column?: string) => string,
 ): Promise<Screened> {
   _known(cols, r.column, what());
-  const view = _view(relation, cols, r.column, r.transform);
-  relation = view.relation;
-  cols = view.cols;
+  const v = _value(cols, r.column, r.transform);
   const transform = r.transform?.label;
   const o: ScanOptions = {
     ...options,
@@ -241,8 +232,6 @@ async function _one(
   if (r.residuals !== undefined) {
     const { by, means } = r.residuals;
     _known(cols, by, what());
-    const type = cols.find((c) => c.name === r.column)!.type;
-    const v = valueExpr(DUCKDB, r.column, /^VARCHAR$/i.test(type), 1);
     const res = residualRelation(DUCKDB, relation, r.column, v, by, means);
     return await _screen(engine, res, [{ name: r.column, type: "DOUBLE" }], r.column, o, {
       subject: `${what(r.column)}, residuals within ${JSON.stringify(by)}`,
@@ -263,6 +252,7 @@ async function _one(
         label: r.label,
         group: r.group.value,
         transform,
+        value: v,
       },
     );
   }
@@ -270,5 +260,6 @@ async function _one(
     subject: what(r.column),
     label: r.label,
     transform,
+    value: v,
   });
 }

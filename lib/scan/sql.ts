@@ -135,20 +135,6 @@ export function reexpressedSql(v: string, r: SqlReexpression): string {
 }
 
 /**
- * The relation with `column` replaced by its re-expressed value `expr` (a
- * DOUBLE) and every other column kept, named as before.
- */
-export function reexpressedRelation(
-  relation: string,
-  names: readonly string[],
-  column: string,
-  expr: string,
-): string {
-  const list = names.map((n) => (n === column ? `${expr} AS ${quoteIdent(n)}` : quoteIdent(n)));
-  return `(SELECT ${list.join(", ")} FROM ${relation}) AS rx`;
-}
-
-/**
  * Pass 0: rows, present cells, numbers, non-finite numbers, and the finite
  * range. For a text column, `present − numeric` cells hold text.
  */

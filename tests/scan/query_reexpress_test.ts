@@ -135,3 +135,42 @@ Deno.test("a scanned chain refuses what it cannot do, saying what to do instead"
     (e: PlumbError) => e.code === "bad-option" && /did you mean "log"/.test(e.message),
   );
 });
+
+/** Invented: a gauge reading kept as text, with a few "void" notes and empty cells, on two lines. */
+const _TEXTUAL = `SELECT 'L' || CAST(i % 2 AS VARCHAR) AS line, ` +
+  `CASE WHEN i % 13 = 0 THEN NULL WHEN i % 9 = 0 THEN 'void' ` +
+  `ELSE CAST(20 * exp(0.3 * ${_Z}) AS VARCHAR) END AS reading FROM range(600) t(i)`;
+
+Deno.test("reexpress on a scanned text column counts its text cells as text, not missing", async () => {
+  const src = scan(_TEXTUAL, { progress: false });
+  const inst = await DuckDBInstance.create(":memory:");
+  const con = await inst.connect();
+  const cols = (await con.runAndReadAll(_TEXTUAL)).getColumns();
+  con.closeSync();
+  inst.closeSync();
+  const t = { line: cols[0] as string[], reading: cols[1].map((v) => v ?? null) as string[] };
+  // 600 rows: empty where i % 13 = 0 (47 rows), "void" where i % 9 = 0 and i % 13 ≠ 0 (67 − 6 = 61 rows).
+  const a = await plumb(src, "reading", { dropText: true }).reexpress("log").analysis();
+  const b = plumb(t, "reading", { dropText: true }).reexpress("log").analysis();
+  assert.equal(a.origin.missingDropped, 47);
+  assert.equal(a.origin.textDropped, 61, "the text cells stay text after the re-expression");
+  assert.equal(a.n, 600 - 47 - 61);
+  assert.equal(b.origin.textDropped, 61, "in memory too");
+  _same(a, b, "ln(reading)");
+  // Without dropText both refuse the column, naming its text cells.
+  await assert.rejects(
+    plumb(src, "reading").reexpress("log").analysis(),
+    (e: PlumbError) => e.code === "non-numeric" && /61 of 553 cells are text/.test(e.message),
+  );
+  assert.throws(
+    () => plumb(t, "reading").reexpress("log").analysis(),
+    (e: PlumbError) => e.code === "non-numeric",
+  );
+  // By group: each line counts its own text cells.
+  const g = await plumb(src, "reading", { dropText: true }).reexpress("log").by("line").result();
+  const m = plumb(t, "reading", { dropText: true }).reexpress("log").by("line").result();
+  assert.equal(g.textDropped, 61);
+  assert.equal(g.textDropped, m.textDropped);
+  assert.equal(g.missingDropped, m.missingDropped);
+  g.groups.forEach((row, i) => assert.equal(row.n, m.groups[i].n, `group ${row.group}: n`));
+});
