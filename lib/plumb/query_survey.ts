@@ -1,12 +1,13 @@
 /**
  * `survey()` over a query source: every numeric column screened by the
- * engine, shown and exported like the in-memory survey.
+ * engine (and every text column that reads mostly as numbers, by the
+ * in-memory rule), shown and exported like the in-memory survey.
  *
  * @module
  */
 import { PlumbError } from "../errors.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
-import type { QueryEngine } from "../results/query_source.ts";
+import type { QueryColumn, QueryEngine } from "../results/query_source.ts";
 import { checkAdjustment } from "../stats/multiplicity.ts";
 import { suggestReexpression } from "./reexpress_view.ts";
 import { Survey } from "./survey.ts";
@@ -18,6 +19,11 @@ import {
   type SurveyRow,
 } from "./survey_screen.ts";
 import { _why } from "./query_groups.ts";
+import { _kind } from "../data/_build_table.ts";
+
+function _kindOf(cols: readonly QueryColumn[], name: string): QueryColumn["kind"] {
+  return cols.find((k) => k.name === name)!.kind;
+}
 
 /**
  * Every numeric column of a query source screened (or those named). Create
@@ -44,20 +50,37 @@ export class QuerySurvey implements Displayable {
   async #run(): Promise<Survey> {
     const o = this.#options;
     const cols = await this.#engine.columns();
-    // A string is one column; a name given twice is screened once (`repeated` says so).
+    // Text columns are counted too: one that reads mostly as numbers is screened as in memory.
+    const textual = cols.filter((k) => k.kind === "text").map((k) => k.name);
     const given = typeof o.columns === "string" ? [o.columns] : o.columns;
-    const names: string[] = [];
-    const repeated: string[] = [];
-    for (const c of given ?? cols.filter((k) => k.kind === "numeric").map((k) => k.name)) {
+    for (const c of given ?? []) {
       if (!cols.some((k) => k.name === c)) {
         throw new PlumbError("unknown-column", `No column named ${JSON.stringify(c)} to survey`);
       }
+    }
+    // Every column named, numeric or text is counted once (one pass), so that those not
+    // screened still report their empty and text cells, and columns with no value are left out.
+    const asked = cols.map((k) => k.name).filter((n) =>
+      given?.includes(n) || (given === undefined && _kindOf(cols, n) === "numeric") ||
+      textual.includes(n)
+    );
+    const counts = new Map((await this.#engine.counts(asked)).map((c) => [c.column, c]));
+    // The in-memory rule (lib/data/_build_table.ts): numeric when there is at least one
+    // number and fewer text cells than numbers; empty when every cell is missing.
+    const kind = (name: string) => {
+      const c = counts.get(name)!;
+      return _kindOf(cols, name) === "text" ? _kind(c.rows - c.missing - c.text, c.text) : null;
+    };
+    // A string is one column; a name given twice is screened once (`repeated` says so).
+    const names: string[] = [];
+    const repeated: string[] = [];
+    const numeric = cols.map((k) => k.name).filter((n) =>
+      _kindOf(cols, n) === "numeric" || kind(n) === "numeric"
+    );
+    for (const c of given ?? numeric) {
       if (!names.includes(c)) names.push(c);
       else if (!repeated.includes(c)) repeated.push(c);
     }
-    // Every column named or numeric is counted once, so that those not screened still
-    // report their empty and text cells, and columns with no value at all are left out.
-    const counts = new Map((await this.#engine.counts(names)).map((c) => [c.column, c]));
     const omitted: SurveyOmission[] = [];
     if (given === undefined) {
       for (const c of counts.values()) {
@@ -70,8 +93,10 @@ export class QuerySurvey implements Displayable {
       const c = cols.find((k) => k.name === name)!;
       const { missing } = counts.get(name)!;
       if (omitted.some((o) => o.column === name)) continue;
-      if (c.kind === "numeric" || (c.kind === "text" && o.dropText)) wanted.push(name);
-      else rows.push({ column: name, missing, textDropped: 0, skipped: `a ${c.type} column` });
+      if (c.kind === "numeric" || kind(name) === "numeric") wanted.push(name);
+      else if (kind(name) === "text") {
+        rows.push({ column: name, missing, textDropped: 0, skipped: "a text column" });
+      } else rows.push({ column: name, missing, textDropped: 0, skipped: `a ${c.type} column` });
     }
     const screened = await this.#engine.screen(
       wanted.map((column) => ({ column, label: column, dropText: o.dropText })),
@@ -102,7 +127,7 @@ export class QuerySurvey implements Displayable {
           : `none: the departure comes from ${a.reading.reason}`,
       });
     });
-    const text = cols.filter((c) => c.kind === "text").map((c) => c.name);
+    const text = textual.filter((c) => kind(c) === "text");
     const result = surveyResult(
       this.#engine.name,
       checkAdjustment(o.adjust),
