@@ -7,7 +7,9 @@
  * Central sums from cells are exact algebra, not an approximation: with
  * d = c − x̄, Σ(v − x̄)ʲ = Σ_cells Σ_i C(j, i)·dʲ⁻ⁱ·S_i. The offsets are at
  * most half a cell wide, so each engine sum is of small, similar terms
- * and loses nothing that shows (a per-cell form of the shifted-data
+ * and loses nothing that shows; each offset carries one rounding, of
+ * v − lo (the grid's origin), at most half a unit in the last place of the
+ * value's distance from the origin (a per-cell form of the shifted-data
  * algorithm, Chan, Golub & LeVeque 1983, The American Statistician
  * 37:242–247); the cells are combined here with compensated (Neumaier
  * 1974, ZAMM 54:39–51) sums, and the rounding left in the mean is folded

@@ -14,7 +14,7 @@ import { _boxCoxProfile } from "../reexpress/_profile.ts";
 import type { LambdaFit } from "../reexpress/lambda_fit.ts";
 import { andersonDarling } from "../stats/anderson_darling.ts";
 import { _dagostinoPearsonOf, type DagostinoPearsonResult } from "../stats/dagostino_pearson.ts";
-import { _histogramFinish, _histogramLayout } from "../stats/histogram_layout.ts";
+import { _histogramFinish } from "../stats/histogram_layout.ts";
 import { _jarqueBeraOf } from "../stats/jarque_bera.ts";
 import { lilliefors } from "../stats/lilliefors.ts";
 import { _momentsOf, type _Shape } from "../stats/moments.ts";
@@ -24,10 +24,19 @@ import type { TestResult } from "../stats/result.ts";
 import { shapiroFrancia } from "../stats/shapiro_francia.ts";
 import { shapiroWilk } from "../stats/shapiro_wilk.ts";
 import { sortFloat64 } from "../numeric/sort.ts";
-import { cellShape, locateRanks } from "./cells.ts";
+import { cellShape } from "./cells.ts";
 import { cellBoxCoxProfile, seriesHolds } from "./log_profile.ts";
-import { type ColumnQuery, gather, summarise } from "./select.ts";
-import { histogramSql, sampleSql } from "./sql.ts";
+import { type ColumnQuery, summarise } from "./select.ts";
+import { sampleSql } from "./sql.ts";
+import { PILE_UP_SHARE } from "../stats/histogram_bins.ts";
+import { formatCompact, formatCount } from "../results/format.ts";
+import {
+  _quartileRanks,
+  _readExact,
+  _readFromCells,
+  EXACT_ORDER_STATISTICS_MAX,
+  type OrderStatisticsRead,
+} from "./order_read.ts";
 import type { Pass } from "./engine.ts";
 
 /** The sample the order-statistic tests used. */
@@ -53,6 +62,11 @@ export interface ScanAnalysis extends Analysis {
     readonly text: number;
     readonly nonFinite: number;
   };
+  /**
+   * Whether the QQ values and histogram counts are exact, or read from the
+   * cells of the one pass, and then how far off they can be.
+   */
+  readonly orderStatistics: OrderStatisticsRead;
   /** Every query run, in order: what it computes, its SQL text and its seconds. */
   readonly passes: readonly Pass[];
   /** Seconds the Box–Cox fit took in JavaScript (NaN when not fitted). */
@@ -65,6 +79,12 @@ export interface ScreenOptions {
   readonly seed: number;
   readonly qq: QqOptions;
   readonly boxCox: boolean;
+  /**
+   * Exact QQ values and bin counts (one more pass), or read from the cells
+   * with a stated error; by default exact up to
+   * {@linkcode EXACT_ORDER_STATISTICS_MAX} values.
+   */
+  readonly exactOrderStatistics?: boolean;
 }
 
 /** What the count pass found. */
@@ -85,6 +105,17 @@ function _sampleNote(size: number, n: number): string {
       `subsample of ${size} of the ${n} values (drawn by the SQL engine); the moments, ` +
       `D'Agostino–Pearson, Jarque–Bera, the QQ plot and the histogram use all ${n}`
     : `every test uses all ${n} values`;
+}
+
+/** What the reading says when the QQ values and bin counts come from the cells. */
+function _cellsNote(read: OrderStatisticsRead, n: number, sd: number): string {
+  const off = read.maxValueError;
+  return `The QQ values and histogram counts come from ${formatCount(read.cells)} cells ` +
+    `counted in one pass over the ${formatCount(n)} values, not from a sort: each QQ value is ` +
+    `within ${formatCompact(off, 2)} (${formatCompact(off / sd, 2)} sd) of the exact order ` +
+    `statistic and each bin count within ${formatCount(read.maxCountError)} of the exact count; ` +
+    `the moments and every test are unaffected (pass { exactOrderStatistics: true } to scan() ` +
+    `for exact ones, at the cost of one more pass)`;
 }
 
 /** A screening and the sorted seeded sample its order-statistic tests used. */
@@ -114,29 +145,19 @@ export async function screenColumn(
   const tailPoints = options.qq.tailPoints ?? 200;
   const kept = thinRanks(n, maxPoints, tailPoints);
   // Ranks for the type-7 quartiles (Hyndman & Fan 1996), for the histogram's IQR.
-  const quart = [0.25, 0.75].flatMap((p) => {
-    const h = (n - 1) * p;
-    return [Math.floor(h) + 1, Math.min(n, Math.floor(h) + 2)];
-  });
+  const quart = _quartileRanks(n);
   const ranks = [...new Set([...kept, ...quart])].sort((a, b) => a - b);
   const logs = options.boxCox && lo > 0;
-  const summary = await summarise(q, lo, hi, ranks, logs);
+  const exact = options.exactOrderStatistics ?? n <= EXACT_ORDER_STATISTICS_MAX;
+  // Without a gather, a value piled up often enough to change the histogram's
+  // rule must be found by splitting its cell.
+  const crowded = exact ? Infinity : Math.ceil(PILE_UP_SHARE * n);
+  const summary = await summarise(q, lo, hi, ranks, logs, crowded);
   const shape: _Shape = cellShape(summary.cells);
-  // The histogram's bins need the IQR, known exactly only after the gather;
-  // but the cells holding the quartile ranks bound it, and at large n the
-  // bin cap decides alone, so the bins are usually known now and counted in
-  // the same gather pass.
-  const places = locateRanks(summary.cells, quart);
-  const span = (j: number) => summary.cells[places[j].cell];
-  const iqrMin = span(2).lo - span(1).hi;
-  const iqrMax = span(3).hi - span(0).lo;
-  const layoutAt = (iqr: number) => _histogramLayout(n, lo, hi, shape.sd, {}, () => iqr);
-  const [wide, narrow] = [layoutAt(iqrMax), layoutAt(Math.max(iqrMin, 0))];
-  const known = iqrMin > 0 && wide.k === narrow.k && wide.rule === narrow.rule;
-  const edges = known ? wide.edges.slice(1, -1) : [];
-  const got = await gather(q, summary, ranks, logs, edges);
-  const valueAt = new Map<number, number>();
-  ranks.forEach((r, i) => valueAt.set(r, got.values[i]));
+  const input = { q, summary, ranks, n, lo, hi, shape, logs };
+  const { valueAt, layout, binCounts, raw, read } = exact
+    ? await _readExact(input)
+    : await _readFromCells(input);
 
   const m = _momentsOf(n, shape);
   const note = _sampleNote(sample.length, n);
@@ -159,26 +180,6 @@ export async function screenColumn(
     value: Float64Array.from(rs, (r) => valueAt.get(r)!),
     row: new Int32Array(rs.length).fill(-1),
   }));
-  const q7 = (p: number) => {
-    const h = (n - 1) * p;
-    const a = valueAt.get(Math.floor(h) + 1)!;
-    const b = valueAt.get(Math.min(n, Math.floor(h) + 2))!;
-    return h === Math.floor(h) ? a : a + (h - Math.floor(h)) * (b - a);
-  };
-  const layout = _histogramLayout(n, lo, hi, shape.sd, {}, () => q7(0.75) - q7(0.25));
-  let binCounts: number[];
-  if (known) {
-    const below = [0, ...got.below, n];
-    binCounts = Array.from({ length: layout.k }, (_, j) => below[j + 1] - below[j]);
-  } else {
-    const binRows = await q.engine.rows(
-      histogramSql(q, lo, layout.width, layout.k),
-      "counting the histogram",
-      q.subject,
-    );
-    binCounts = new Array(layout.k).fill(0);
-    for (const [b, c] of binRows as [number, number][]) binCounts[b] = c;
-  }
   const histogram = _histogramFinish(layout, binCounts, n, shape.mean, shape.sd);
 
   let boxCox: LambdaFit | { skipped: string };
@@ -190,7 +191,7 @@ export async function screenColumn(
     };
   } else {
     const t0 = q.engine.elapsed();
-    const profile = cellBoxCoxProfile(summary.cells.filter(seriesHolds), got.raw);
+    const profile = cellBoxCoxProfile(summary.cells.filter(seriesHolds), raw);
     boxCox = _fitLambda(profile, _boxCoxProfile(sorted), {}, "a Box–Cox fit");
     fitSeconds = +(q.engine.elapsed() - t0).toFixed(3);
   }
@@ -211,6 +212,7 @@ export async function screenColumn(
     subsample,
     subsampleSorted: subsample ? sorted : undefined,
   });
+  const notes = read.exact ? [] : [_cellsNote(read, n, shape.sd)];
   const analysis: ScanAnalysis = Object.freeze({
     origin: Object.freeze({
       label: label.label,
@@ -219,6 +221,7 @@ export async function screenColumn(
       ...(label.transform === undefined ? {} : { transform: label.transform }),
       missingDropped: counts.missing,
       textDropped: counts.text,
+      ...(notes.length ? { notes: Object.freeze(notes) } : {}),
     }),
     n,
     moments: m,
@@ -227,7 +230,9 @@ export async function screenColumn(
     tests: Object.freeze(tests),
     qq,
     histogram,
-    reading,
+    reading: notes.length
+      ? Object.freeze({ ...reading, points: Object.freeze([...notes, ...reading.points]) })
+      : reading,
     sample: Object.freeze({
       size: sample.length,
       seed: options.seed,
@@ -240,6 +245,7 @@ export async function screenColumn(
       text: counts.text,
       nonFinite: counts.nonFinite,
     }),
+    orderStatistics: read,
     passes: Object.freeze(q.engine.log()),
     fitSeconds,
   });

@@ -66,12 +66,21 @@ async function _cellPass(
     const left = lo + key * w;
     const right = left + w;
     const margin = 4 * Number.EPSILON * Math.max(Math.abs(left), Math.abs(right), Math.abs(lo));
+    // The engine sums offsets in cell widths; w is a power of two, so scaling back is exact.
+    const w2 = w * w;
     return Object.freeze({
       n: r[1] as number,
       lo: Math.max(a, left - margin),
       hi: Math.min(b, right + margin),
       centre: lo + (key + 0.5) * w,
-      s: Object.freeze([r[2], r[3], r[4], r[5]] as [number, number, number, number]),
+      s: Object.freeze(
+        [
+          (r[2] as number) * w,
+          (r[3] as number) * w2,
+          (r[4] as number) * w2 * w,
+          (r[5] as number) * w2 * w2,
+        ] as [number, number, number, number],
+      ),
       grid: g,
       key,
     });
@@ -98,8 +107,10 @@ async function _probe(
 
 /**
  * Summarise the values in [lo, hi] by cells, then split cells until every
- * wanted rank sits in a cell of at most `PICK_MAX` values and (when `logs`)
- * the cells the log series cannot sum hold at most `RAW_MAX` values.
+ * wanted rank sits in a cell of at most `PICK_MAX` values, (when `logs`)
+ * the cells the log series cannot sum hold at most `RAW_MAX` values, and
+ * no cell of more than one value holds `crowded` values or more (so that a
+ * value piled up that often is found without a gather).
  */
 export async function summarise(
   q: ColumnQuery,
@@ -107,12 +118,16 @@ export async function summarise(
   hi: number,
   ranks: readonly number[],
   logs: boolean,
+  crowded = Infinity,
 ): Promise<CellSummary> {
   const grids: CellGrid[] = [];
   let cells = await _cellPass(q, grids, lo, hi, "summing the values by cells");
   let passes = 1;
   for (let round = 0; round < REFINE_PASSES; round++) {
     const runs: [number, number][] = [];
+    cells.forEach((c, i) => {
+      if (c.n >= crowded && c.value === undefined) runs.push([i, i]);
+    });
     for (const p of locateRanks(cells, ranks)) {
       const c = cells[p.cell];
       if (
@@ -173,6 +188,8 @@ export interface Gathered {
   readonly raw: Float64Array;
   /** For each edge asked for, how many values lie below it. */
   readonly below: Float64Array;
+  /** The most values at one value among the values gathered (0 when none were). */
+  readonly longestTie: number;
 }
 
 /**
@@ -212,7 +229,7 @@ export async function gather(
     }
   });
   if (chosen.size === 0) {
-    return Object.freeze({ values, raw: new Float64Array(0), below });
+    return Object.freeze({ values, raw: new Float64Array(0), below, longestTie: 0 });
   }
   // The chosen cells' values, sorted, fall into one block per cell (cells are
   // contiguous ranges), in the order of the cells.
@@ -253,5 +270,11 @@ export async function gather(
     }
     below[s.id] += lo - from;
   }
-  return Object.freeze({ values, raw, below });
+  // A value maps to one cell, and each chosen cell is gathered whole, so a run here is exact.
+  let longestTie = sel.length > 0 ? 1 : 0;
+  for (let j = 1, run = 1; j < sel.length; j++) {
+    run = sel[j] === sel[j - 1] ? run + 1 : 1;
+    if (run > longestTie) longestTie = run;
+  }
+  return Object.freeze({ values, raw, below, longestTie });
 }

@@ -66,7 +66,7 @@ export interface BinLayout {
 }
 
 /** The share of the values at one value from which the Freedman–Diaconis rule gives way to Scott's. */
-const PILE_UP_SHARE = 0.25;
+export const PILE_UP_SHARE = 0.25;
 
 const _RULES: readonly BinRule[] = ["freedman-diaconis", "scott", "sturges"];
 

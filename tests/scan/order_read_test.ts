@@ -1,0 +1,144 @@
+/**
+ * QQ values and histogram counts read from the cells (no gather pass)
+ * against the exact ones: every value within the stated error of the exact
+ * order statistic of the same values in memory, every bin count within the
+ * stated count error; moments, tests and λ unchanged; the note in the
+ * reading. And the histogram's pile-up rule on scanned columns, both ways.
+ *
+ * @module
+ */
+import assert from "node:assert/strict";
+import { scan } from "../../mod.ts";
+import { analyse } from "../../lib/plumb/analysis.ts";
+import { sortFloat64 } from "../../lib/numeric/sort.ts";
+import { DuckDBInstance } from "@duckdb/node-api";
+import { writeShape } from "./_data.ts";
+
+const N = 200_000;
+const quiet = { progress: false } as const;
+
+/** How many values lie in [a, b) (the last bin closed at b). */
+function countIn(sorted: Float64Array, a: number, b: number, last: boolean): number {
+  const below = (e: number, strict: boolean) => {
+    let lo = 0;
+    let hi = sorted.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >>> 1;
+      if (strict ? sorted[mid] < e : sorted[mid] <= e) lo = mid + 1;
+      else hi = mid;
+    }
+    return lo;
+  };
+  return below(b, !last) - below(a, true);
+}
+
+for (const shape of ["lognormal", "offsetNormal", "exponential"] as const) {
+  Deno.test(`QQ values and bin counts from cells stay within their stated error: ${shape}`, async () => {
+    const dir = await Deno.makeTempDir();
+    try {
+      const { path, values } = await writeShape(dir, shape, N);
+      const sorted = sortFloat64(values);
+      const cells = await scan(path, { ...quiet, exactOrderStatistics: false }).analyse("x");
+      const exact = await scan(path, { ...quiet, exactOrderStatistics: true }).analyse("x");
+      assert.equal(exact.orderStatistics.exact, true);
+      assert.equal(exact.orderStatistics.maxValueError, 0);
+      assert.equal(exact.origin.notes, undefined);
+      const r = cells.orderStatistics;
+      assert.equal(r.exact, false);
+      // No gather pass, except for the raw values near zero the log series cannot sum.
+      const gathered = cells.passes.some((p) => p.step === "gathering order statistics");
+      assert.equal(gathered, shape === "exponential");
+      // The bounds are real and useful: positive, and small beside the spread.
+      const span = sorted[N - 1] - sorted[0];
+      assert.ok(r.maxValueError > 0 && r.maxValueError < span / 5000, `${r.maxValueError}`);
+      assert.ok(r.maxCountError > 0 && r.maxCountError < N / 100, `${r.maxCountError}`);
+      // Every QQ value within the stated error of the exact order statistic.
+      assert.deepEqual(cells.qq.rank, exact.qq.rank);
+      let worst = 0;
+      cells.qq.rank.forEach((rank, i) => {
+        const off = Math.abs(cells.qq.value[i] - sorted[rank - 1]);
+        worst = Math.max(worst, off);
+        assert.ok(off <= r.maxValueError, `rank ${rank}: off by ${off} > ${r.maxValueError}`);
+      });
+      assert.deepEqual(exact.qq.value, Array.from(exact.qq.rank, (k) => sorted[k - 1]));
+      // Every bin count within the stated count error of the count of the values in memory.
+      const h = cells.histogram;
+      assert.equal(h.counts.reduce((t, c) => t + c, 0), N);
+      h.counts.forEach((c, j) => {
+        const truth = countIn(sorted, h.edges[j], h.edges[j + 1], j === h.counts.length - 1);
+        assert.ok(
+          Math.abs(c - truth) <= r.maxCountError,
+          `bin ${j}: ${c} against ${truth} (stated ${r.maxCountError})`,
+        );
+      });
+      // Moments, tests and λ do not depend on how the order statistics were read.
+      assert.deepEqual(cells.moments, exact.moments);
+      assert.deepEqual(
+        cells.tests.map((t) => t.result?.pValue),
+        exact.tests.map((t) => t.result?.pValue),
+      );
+      assert.deepEqual(cells.boxCox, exact.boxCox);
+      assert.equal(cells.reading.verdict, exact.reading.verdict);
+      // The reading says so first.
+      assert.match(cells.reading.points[0], /come from [\d,]+ cells .* not from a sort/);
+      assert.match(cells.reading.points[0], /exactOrderStatistics: true/);
+      assert.deepEqual(cells.origin.notes, [cells.reading.points[0]]);
+    } finally {
+      await Deno.remove(dir, { recursive: true });
+    }
+  });
+}
+
+Deno.test("a scan reads exact order statistics by default up to 10 million values", async () => {
+  const dir = await Deno.makeTempDir();
+  try {
+    const { path } = await writeShape(dir, "lognormal", 20_000);
+    const a = await scan(path, quiet).analyse("x");
+    assert.equal(a.orderStatistics.exact, true);
+    assert.ok(a.passes.some((p) => p.step === "gathering order statistics"));
+  } finally {
+    await Deno.remove(dir, { recursive: true });
+  }
+});
+
+/** 30% of the values at 2.5, the rest uniform on (0, 10): the pile-up sits inside the IQR. */
+async function writePileUp(
+  dir: string,
+  n: number,
+): Promise<{ path: string; values: Float64Array }> {
+  const path = `${dir}/pile.parquet`;
+  const inst = await DuckDBInstance.create(":memory:");
+  const con = await inst.connect();
+  try {
+    await con.run(
+      `COPY (SELECT CASE WHEN i % 10 < 3 THEN 2.5 ELSE ` +
+        `((hash(i) % 2147483629) + 0.5) / 2147483629.0 * 10 END AS x ` +
+        `FROM range(${n}) t(i)) TO '${path}' (FORMAT parquet)`,
+    );
+    const r = await con.runAndReadAll(`SELECT x FROM read_parquet('${path}')`);
+    return { path, values: Float64Array.from(r.getColumns()[0] as number[]) };
+  } finally {
+    con.closeSync();
+    inst.closeSync();
+  }
+}
+
+Deno.test("scanned histograms follow the pile-up rule as in memory", async () => {
+  const dir = await Deno.makeTempDir();
+  try {
+    const { path, values } = await writePileUp(dir, 100_000);
+    const mem = analyse(values, { label: "x", column: "x", missingDropped: 0, textDropped: 0 });
+    assert.equal(mem.histogram.rule, "scott");
+    const exact = await scan(path, quiet).analyse("x");
+    assert.equal(exact.histogram.rule, "scott");
+    assert.equal(exact.histogram.ruleNote, mem.histogram.ruleNote);
+    assert.deepEqual(exact.histogram.edges, mem.histogram.edges);
+    assert.deepEqual(exact.histogram.counts, mem.histogram.counts);
+    const cells = await scan(path, { ...quiet, exactOrderStatistics: false }).analyse("x");
+    assert.equal(cells.histogram.rule, "scott");
+    assert.equal(cells.histogram.ruleNote, mem.histogram.ruleNote);
+    assert.match(cells.histogram.ruleNote, /30% of the values sit at one value/);
+  } finally {
+    await Deno.remove(dir, { recursive: true });
+  }
+});
