@@ -253,6 +253,7 @@ export {
   type QueryScreening,
   type QuerySource,
   type QueryTransform,
+  type RowRun,
 } from "./lib/results/query_source.ts";
 export {
   scan,

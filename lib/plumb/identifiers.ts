@@ -16,6 +16,7 @@
  * @module
  */
 import type { Table } from "../data/table.ts";
+import type { RowRun } from "../results/query_source.ts";
 
 /** A column left out as an identifier, and why. */
 export interface IdentifierColumn {
@@ -41,7 +42,7 @@ const _ROW_NAME_HEADERS = new Set([
 ]);
 
 /** Fewest rows for a sequence to count as an index. */
-const _MIN_ROWS = 5;
+export const IDENTIFIER_MIN_ROWS = 5;
 
 /**
  * The identifier columns among the named numeric columns of a table.
@@ -67,18 +68,14 @@ export function identifierColumns(table: Table, names: readonly string[]): Ident
   for (const name of names) {
     const cells = table.numericCells(name);
     const n = cells.values.length;
-    if (n < _MIN_ROWS) continue;
-    let complete = true;
+    if (n < IDENTIFIER_MIN_ROWS) continue;
+    let whole = true;
     let consecutive = true;
     let increasing = true;
     for (let i = 0; i < n; i++) {
-      if (cells.missing[i] || cells.nonNumeric[i]) {
-        complete = false;
-        break;
-      }
       const v = cells.values[i];
-      if (!Number.isInteger(v)) {
-        increasing = consecutive = false;
+      if (cells.missing[i] || cells.nonNumeric[i] || !Number.isInteger(v)) {
+        whole = false;
         break;
       }
       if (i > 0) {
@@ -87,27 +84,95 @@ export function identifierColumns(table: Table, names: readonly string[]): Ident
         if (!(d > 0)) increasing = false;
       }
     }
-    if (!complete) continue;
-    if (consecutive) {
-      out.push(Object.freeze({
-        name,
-        reason: `its values run ${cells.values[0]}, ${cells.values[1]}, … ${
-          cells.values[n - 1]
-        } down the rows, like a row number`,
-      }));
-      continue;
-    }
-    const original = table.info(name).provenance.originalName.trim().toLowerCase();
-    const rowNameHeader = emptyHeader.has(name) || _ROW_NAME_HEADERS.has(original);
-    if (increasing && name === first && rowNameHeader) {
-      const header = table.info(name).provenance.originalName.trim();
-      out.push(Object.freeze({
-        name,
-        reason: `the first column, ${
-          header === "" ? "with no header" : `headed "${header}"`
-        }, holds whole numbers increasing down the rows, like the row names an export writes`,
-      }));
-    }
+    const run: RowRun = {
+      name,
+      rows: n,
+      whole,
+      runsFrom: whole && consecutive ? cells.values[0] : null,
+      increasing: whole && increasing,
+    };
+    const header = table.info(name).provenance.originalName;
+    const id = identifierOf(run, {
+      first: name === first,
+      header,
+      emptyHeader: emptyHeader.has(name),
+    });
+    if (id) out.push(id);
   }
   return out;
+}
+
+/** Where a column stands in its table, for the row-name rule. */
+export interface HeaderFacts {
+  /** The column is the table's first. */
+  readonly first: boolean;
+  /** Its header as the source wrote it. */
+  readonly header: string;
+  /** Its header was empty (and the column was given a name). */
+  readonly emptyHeader: boolean;
+}
+
+/**
+ * Whether a header is one that exports write for a row-name column (or was
+ * empty): the first column with such a header and increasing whole numbers
+ * names rows.
+ *
+ * @param facts the column's place and header
+ */
+export function rowNameHeader(facts: HeaderFacts): boolean {
+  return facts.first &&
+    (facts.emptyHeader || _ROW_NAME_HEADERS.has(facts.header.trim().toLowerCase()));
+}
+
+/**
+ * The rules applied to one column's facts: the identifier and its reason,
+ * or null. Shared by the in-memory survey and the survey of a query source,
+ * so both leave out the same columns with the same words.
+ *
+ * @param run how the column runs down the rows
+ * @param facts its place and header
+ *
+ * @example
+ * ```ts
+ * import { identifierOf } from "./identifiers.ts";
+ * const run = { name: "lot", rows: 8, whole: true, runsFrom: 41, increasing: true };
+ * const id = identifierOf(run, { first: false, header: "lot", emptyHeader: false });
+ * if (!id?.reason.startsWith("its values run 41, 42, … 48")) throw new Error("a run");
+ * ```
+ */
+export function identifierOf(run: RowRun, facts: HeaderFacts): IdentifierColumn | null {
+  if (run.rows < IDENTIFIER_MIN_ROWS || !run.whole) return null;
+  if (run.runsFrom !== null) {
+    const k = run.runsFrom;
+    return Object.freeze({
+      name: run.name,
+      reason: `its values run ${k}, ${k + 1}, … ${
+        k + run.rows - 1
+      } down the rows, like a row number`,
+    });
+  }
+  if (run.increasing && rowNameHeader(facts)) {
+    const header = facts.header.trim();
+    return Object.freeze({
+      name: run.name,
+      reason: `the first column, ${
+        header === "" ? "with no header" : `headed "${header}"`
+      }, holds whole numbers increasing down the rows, like the row names an export writes`,
+    });
+  }
+  return null;
+}
+
+/**
+ * Why a column left out as an identifier was left out, and how to screen
+ * it: the words every survey shows.
+ *
+ * @param id the identifier column
+ */
+export function identifierOmission(id: IdentifierColumn): { column: string; reason: string } {
+  return {
+    column: id.name,
+    reason: `${id.reason}, so it names rows rather than measuring anything; ` +
+      `screen it with identifiers: true or by naming it in columns`,
+  };
 }

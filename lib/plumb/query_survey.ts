@@ -7,7 +7,7 @@
  */
 import { PlumbError } from "../errors.ts";
 import { DISPLAY, type Displayable, type MimeBundle } from "../results/display.ts";
-import type { QueryColumn, QueryEngine } from "../results/query_source.ts";
+import type { QueryColumn, QueryCounts, QueryEngine } from "../results/query_source.ts";
 import { checkAdjustment } from "../stats/multiplicity.ts";
 import { suggestReexpression } from "./reexpress_view.ts";
 import { Survey } from "./survey.ts";
@@ -20,6 +20,14 @@ import {
 } from "./survey_screen.ts";
 import { _why } from "./query_groups.ts";
 import { _kind } from "../data/_build_table.ts";
+import {
+  type HeaderFacts,
+  IDENTIFIER_MIN_ROWS,
+  type IdentifierColumn,
+  identifierOf,
+  identifierOmission,
+  rowNameHeader,
+} from "./identifiers.ts";
 
 function _kindOf(cols: readonly QueryColumn[], name: string): QueryColumn["kind"] {
   return cols.find((k) => k.name === name)!.kind;
@@ -87,6 +95,11 @@ export class QuerySurvey implements Displayable {
         if (c.missing === c.rows) omitted.push({ column: c.column, reason: "every cell is empty" });
       }
     }
+    if (given === undefined && !o.identifiers) {
+      for (const id of await this.#identifiers(cols, names, counts)) {
+        omitted.push(identifierOmission(id));
+      }
+    }
     const rows: SurveyRow[] = [];
     const wanted: string[] = [];
     for (const name of names) {
@@ -137,6 +150,37 @@ export class QuerySurvey implements Displayable {
       omitted,
     );
     return new Survey(result, o);
+  }
+
+  /**
+   * The columns to leave out as row identifiers, by the in-memory rules
+   * (`identifiers.ts`): the counts and ranges already read rule out most
+   * columns (a run k … k + n − 1 has no empty or text cell and spans n − 1),
+   * and the engine reads the row order of the few left, in one pass.
+   */
+  async #identifiers(
+    cols: readonly QueryColumn[],
+    names: readonly string[],
+    counts: ReadonlyMap<string, QueryCounts>,
+  ): Promise<IdentifierColumn[]> {
+    if (this.#engine.rowRuns === undefined) return [];
+    const first = cols[0]?.name;
+    // DuckDB's CSV reader names a column with an empty header column0 (the first) (checked
+    // with DuckDB 1.5.6): the unnamed row-name column many exports write.
+    const facts = (name: string): HeaderFacts => {
+      const empty = name === first && name === "column0";
+      return { first: name === first, header: empty ? "" : name, emptyHeader: empty };
+    };
+    const candidates = names.filter((name) => {
+      const c = counts.get(name)!;
+      if (c.missing > 0 || c.text > 0 || c.rows < IDENTIFIER_MIN_ROWS) return false;
+      return c.range === undefined || c.range[1] - c.range[0] === c.rows - 1 ||
+        rowNameHeader(facts(name));
+    });
+    if (candidates.length === 0) return [];
+    const increasing = candidates.filter((n) => rowNameHeader(facts(n)));
+    const runs = await this.#engine.rowRuns(candidates, increasing);
+    return runs.flatMap((run) => identifierOf(run, facts(run.name)) ?? []);
   }
 
   /** The survey as plain data. */

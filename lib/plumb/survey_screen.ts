@@ -14,7 +14,7 @@ import { type Adjustment, adjustPValues, checkAdjustment } from "../stats/multip
 import { ANALYSE_MIN_N } from "./analysis.ts";
 import { analyseSides } from "./censored_analysis.ts";
 import { suggestCensoredReexpression } from "./censored_suggest.ts";
-import { identifierColumns } from "./identifiers.ts";
+import { identifierColumns, identifierOmission } from "./identifiers.ts";
 import { suggestReexpression } from "./reexpress_view.ts";
 import { rowLabelOf } from "./_loaded.ts";
 import { pickColumn } from "./source.ts";
@@ -151,13 +151,7 @@ export function screenColumns(t: Table, options: SurveyOptions): SurveyResult {
     }
     if (!options.identifiers) {
       const ids = identifierColumns(t, names);
-      for (const id of ids) {
-        omitted.push({
-          column: id.name,
-          reason: `${id.reason}, so it names rows rather than measuring anything; ` +
-            `screen it with identifiers: true or by naming it in columns`,
-        });
-      }
+      for (const id of ids) omitted.push(identifierOmission(id));
       const left = new Set(ids.map((c) => c.name));
       names = names.filter((n) => !left.has(n));
     }

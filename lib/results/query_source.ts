@@ -48,6 +48,25 @@ export interface QueryCounts {
   readonly missing: number;
   /** Cells that are not empty and do not read as numbers (0 for a numeric column). */
   readonly text: number;
+  /** The smallest and largest value of a numeric column with one at least (absent for text). */
+  readonly range?: readonly [min: number, max: number];
+}
+
+/**
+ * How a column runs down the rows: the facts the identifier rules look at
+ * (`lib/plumb/identifiers.ts`), measured in memory or by a query engine.
+ */
+export interface RowRun {
+  /** The column's name. */
+  readonly name: string;
+  /** Rows of the table. */
+  readonly rows: number;
+  /** Every cell holds a finite whole number (none missing, none text). */
+  readonly whole: boolean;
+  /** The first value, when the values run k, k + 1, … k + rows − 1 down the rows; else null. */
+  readonly runsFrom: number | null;
+  /** Every value is larger than the one above it (false when not asked). */
+  readonly increasing: boolean;
 }
 
 /** A re-expression the engine applies to a column before screening it. */
@@ -109,6 +128,14 @@ export interface QueryEngine {
    * `column` (re-expressed when `transform` is given) in each.
    */
   groups(column: string, by: string, transform?: QueryTransform): Promise<readonly QueryGroup[]>;
+  /**
+   * How each of `columns` runs down the rows, in the order the engine reads
+   * the source, in one pass over those columns only; whether each value
+   * exceeds the one above is found for the columns in `increasing` only. An
+   * engine that reads in no fixed order leaves this out, and the survey then
+   * takes no column for a row identifier.
+   */
+  rowRuns?(columns: readonly string[], increasing: readonly string[]): Promise<readonly RowRun[]>;
   /**
    * Screen each request in turn on one connection; a request the methods
    * cannot screen gives its `PlumbError` in place of the screening.

@@ -2,6 +2,11 @@
  * The {@linkcode QueryEngine} of a scanned source: what `plumb`, `survey`
  * and `.by()` ask of it, answered through DuckDB. Private to `lib/scan`.
  *
+ * Kept in one file because it is the one implementation of the protocol:
+ * every method opens an engine, checks the names it is given against the
+ * source and reads the same value expressions, and they are read side by
+ * side with `lib/results/query_source.ts`.
+ *
  * @module
  */
 import { PlumbError } from "../errors.ts";
@@ -13,6 +18,7 @@ import type {
   QueryRequest,
   QueryScreening,
   QueryTransform,
+  RowRun,
 } from "../results/query_source.ts";
 import { _NUMERIC, _screen } from "./column.ts";
 import type { Screened } from "./screen.ts";
@@ -27,6 +33,7 @@ import {
   presenceSql,
   reexpressedSql,
   residualRelation,
+  rowRunsSql,
   valueExpr,
 } from "./sql.ts";
 
@@ -84,10 +91,10 @@ export function scanQueryEngine(relation: string, name: string, options: ScanOpt
       try {
         const cols = await _describe(engine, relation, what());
         for (const c of columns) _known(cols, c, name);
-        const which = columns.map((c) => ({
-          name: c,
-          textual: /^VARCHAR$/i.test(cols.find((k) => k.name === c)!.type),
-        }));
+        const which = columns.map((c) => {
+          const type = cols.find((k) => k.name === c)!.type;
+          return { name: c, textual: /^VARCHAR$/i.test(type), numeric: _NUMERIC.test(type) };
+        });
         const [r] = await engine.rows(
           presenceSql(DUCKDB, relation, which),
           "counting the cells",
@@ -95,12 +102,56 @@ export function scanQueryEngine(relation: string, name: string, options: ScanOpt
         );
         const rows = Number(r[0]);
         return which.map((c, i) => {
-          const present = Number(r[1 + 2 * i]);
+          const [present, numeric, lo, hi] = r.slice(1 + 4 * i, 5 + 4 * i);
           return Object.freeze({
             column: c.name,
             rows,
-            missing: rows - present,
-            text: c.textual ? present - Number(r[2 + 2 * i]) : 0,
+            missing: rows - Number(present),
+            text: c.textual ? Number(present) - Number(numeric) : 0,
+            ...(lo === null || hi === null
+              ? {}
+              : { range: Object.freeze([Number(lo), Number(hi)] as const) }),
+          });
+        });
+      } finally {
+        engine.close();
+      }
+    },
+    async rowRuns(
+      columns: readonly string[],
+      increasing: readonly string[],
+    ): Promise<readonly RowRun[]> {
+      if (columns.length === 0) return [];
+      const engine = await _Engine.open(options);
+      try {
+        const cols = await _describe(engine, relation, what());
+        for (const c of columns) _known(cols, c, name);
+        const [r] = await engine.rows(
+          rowRunsSql(
+            DUCKDB,
+            relation,
+            columns.map((c) => ({
+              v: _value(cols, c, undefined),
+              increasing: increasing.includes(c),
+            })),
+          ),
+          "reading the row order",
+          what(),
+        );
+        const rows = Number(r[0]);
+        return columns.map((c, i) => {
+          const [a, b, f, d] = r.slice(1 + 4 * i, 5 + 4 * i).map((
+            x,
+          ) => (x === null ? NaN : Number(x)));
+          const whole = rows > 0 && f === 0;
+          // v − (row number) is the same whole number k − 1 on every row of a run from k.
+          const runs = whole && a === b && Number.isInteger(a);
+          return Object.freeze({
+            name: c,
+            rows,
+            whole,
+            runsFrom: runs ? a + 1 : null,
+            increasing: whole && (rows === 1 || d > 0),
           });
         });
       } finally {

@@ -14,6 +14,14 @@
  *   +Infinity in DuckDB, so range comparisons cannot exclude it);
  * - reading text as numbers: `TRY_CAST(c AS DOUBLE)` (DuckDB, Trino,
  *   Snowflake, Spark 3.2+; `SAFE_CAST` in BigQuery);
+ * - row order, for telling a row number from a measurement: DuckDB keeps
+ *   the order in which it reads one source (files in name order, rows in
+ *   file order) through a window with an empty `OVER ()` clause, so
+ *   `row_number() OVER ()` and `lag(v) OVER ()` see the rows as the file
+ *   holds them (DuckDB documentation, "Order preservation"; checked with
+ *   DuckDB 1.5.6 on a two-file glob); a distributed engine reads in no
+ *   fixed order and needs a row key (file name, row number in the file) to
+ *   order the window by;
  * - approximate quantiles are not used: the order statistics are exact (a
  *   window `row_number()` over the few cells that hold the wanted ranks),
  *   so no engine's sketch error enters the QQ plot.
@@ -37,6 +45,10 @@ export interface Dialect {
   sample(relation: string, size: number, seed: number): string;
   /** Text column `c` read as a double, NULL where it is not a number. */
   tryDouble(c: string): string;
+  /** Each row's 1-based position in the source's own order (see the module doc). */
+  readonly rowNumber: string;
+  /** The value of `v` on the row above, in the source's own order (NULL on the first row). */
+  previous(v: string): string;
 }
 
 /** DuckDB's spelling. */
@@ -46,6 +58,8 @@ export const DUCKDB: Dialect = Object.freeze({
   sample: (relation: string, size: number, seed: number) =>
     `SELECT * FROM ${relation} USING SAMPLE reservoir(${size} ROWS) REPEATABLE (${seed})`,
   tryDouble: (c: string) => `TRY_CAST(${c} AS DOUBLE)`,
+  rowNumber: "row_number() OVER ()",
+  previous: (v: string) => `lag(${v}) OVER ()`,
 });
 
 /** `"name"` with inner quotes doubled. */
@@ -162,21 +176,58 @@ export function quickCountsSql(relation: string, column: string, v: string): str
 /**
  * One pass over several columns: rows, and for each column its present
  * cells and (`textual`) those that read as numbers, so that columns not
- * screened still report what they hold. Columns: `total`, then `p<i>`, `q<i>`.
+ * screened still report what they hold; for a column of numbers (`numeric`),
+ * its smallest and largest value too (from a Parquet file's statistics when
+ * the engine can). Columns: `total`, then `p<i>`, `q<i>`, `lo<i>`, `hi<i>`.
  */
 export function presenceSql(
   dialect: Dialect,
   relation: string,
-  columns: readonly { readonly name: string; readonly textual: boolean }[],
+  columns: readonly {
+    readonly name: string;
+    readonly textual: boolean;
+    readonly numeric: boolean;
+  }[],
 ): string {
   const parts = columns.map((c, i) => {
     const q = quoteIdent(c.name);
     const numeric = c.textual ? `count(${dialect.tryDouble(q)})` : `count(${q})`;
-    return `CAST(count(${q}) AS DOUBLE) AS p${i}, CAST(${numeric} AS DOUBLE) AS q${i}`;
+    const range = !c.numeric
+      ? `NULL AS lo${i}, NULL AS hi${i}`
+      : `CAST(min(${q}) AS DOUBLE) AS lo${i}, CAST(max(${q}) AS DOUBLE) AS hi${i}`;
+    return `CAST(count(${q}) AS DOUBLE) AS p${i}, CAST(${numeric} AS DOUBLE) AS q${i}, ${range}`;
   });
   return `SELECT CAST(count(*) AS DOUBLE) AS total${
     parts.map((x) => `, ${x}`).join("")
   } FROM ${relation}`;
+}
+
+/**
+ * How columns run down the rows, in one windowed pass (row order: see the
+ * module doc): for each value expression `v`, the smallest and largest of
+ * v − (row number), equal and whole when the values run k, k + 1, … (then
+ * k − 1 is that value); the rows where v is not a finite whole number; and,
+ * when `increasing` is asked, the smallest step from the row above.
+ * Columns: `total`, then `a<i>`, `b<i>`, `f<i>`, `d<i>` (NULL when not asked).
+ */
+export function rowRunsSql(
+  dialect: Dialect,
+  relation: string,
+  columns: readonly { readonly v: string; readonly increasing: boolean }[],
+): string {
+  const inner = columns.map((c, i) => `${c.v} AS v${i}`).join(", ");
+  const windowed = columns.map((c, i) =>
+    `v${i}${c.increasing ? `, ${dialect.previous(`v${i}`)} AS u${i}` : ""}`
+  ).join(", ");
+  const parts = columns.map((c, i) =>
+    `min(v${i} - r) AS a${i}, max(v${i} - r) AS b${i}, ` +
+    `CAST(count(*) FILTER (WHERE v${i} IS NULL OR NOT ${dialect.finite(`v${i}`)} ` +
+    `OR v${i} <> floor(v${i})) AS DOUBLE) AS f${i}, ` +
+    (c.increasing ? `min(v${i} - u${i}) AS d${i}` : `NULL AS d${i}`)
+  );
+  return `SELECT CAST(count(*) AS DOUBLE) AS total, ${parts.join(", ")} FROM ` +
+    `(SELECT ${dialect.rowNumber} AS r, ${windowed} FROM ` +
+    `(SELECT ${inner} FROM ${relation}) AS s0) AS s1`;
 }
 
 /** The distinct values of a group column, as text (NULL for empty cells), at most `limit`. */

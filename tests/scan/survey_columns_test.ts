@@ -100,3 +100,95 @@ Deno.test("a scanned text column that reads mostly as numbers is screened as in 
     await Deno.remove(dir, { recursive: true });
   }
 });
+
+/**
+ * Invented tray log, 300 rows: a row-name column first (increasing whole
+ * numbers with gaps), a run number 1…300, a batch number 1001…1300 stored
+ * as doubles, a tray number that holds 1…300 in another order, a bottle
+ * count with one gap, and a fill volume.
+ */
+const _TRAYS = `SELECT i * 2 + (i % 3 = 0)::INTEGER AS "index", i + 1 AS run_no, ` +
+  `CAST(i + 1001 AS DOUBLE) AS batch, (i * 7) % 300 + 1 AS tray, ` +
+  `CASE WHEN i = 150 THEN NULL ELSE i + 1 END AS bottles, ` +
+  `round(500 + 2 * ${_Z}, 2) AS fill_ml FROM range(300) t(i)`;
+
+Deno.test("a scanned survey leaves out identifier columns as the in-memory survey does", async () => {
+  const dir = await Deno.makeTempDir({ prefix: "plumbline-survey-" });
+  try {
+    for (const path of await _write(dir, "trays", _TRAYS)) {
+      const { scanned, memory } = await _both(path);
+      assert.deepEqual(
+        scanned.omitted.map((o) => o.column),
+        ["index", "run_no", "batch"],
+        `${path}: left out`,
+      );
+      assert.equal(
+        scanned.omitted[1].reason,
+        "its values run 1, 2, … 300 down the rows, like a row number, so it names rows rather " +
+          "than measuring anything; screen it with identifiers: true or by naming it in columns",
+      );
+      assert.match(scanned.omitted[0].reason, /^the first column, headed "index", holds whole/);
+      // tray holds 1…300 out of order, bottles has a gap: both are screened.
+      assert.ok(scanned.rows.find((r) => r.column === "tray")?.analysis, `${path}: tray`);
+      assert.ok(scanned.rows.find((r) => r.column === "bottles")?.analysis, `${path}: bottles`);
+      assert.deepEqual(_decisions(scanned), _decisions(memory), `${path}: as in memory`);
+
+      const all = await _both(path, { identifiers: true });
+      assert.equal(all.scanned.omitted.length, 0, `${path}: identifiers: true`);
+      assert.deepEqual(_decisions(all.scanned), _decisions(all.memory), `${path}: opt-in`);
+      const named = await _both(path, { columns: ["run_no", "fill_ml"] });
+      assert.equal(named.scanned.rows.filter((r) => r.analysis).length, 2, `${path}: named`);
+      assert.deepEqual(_decisions(named.scanned), _decisions(named.memory), `${path}: named`);
+    }
+  } finally {
+    await Deno.remove(dir, { recursive: true });
+  }
+});
+
+Deno.test("a scanned CSV's unnamed first column of row names is left out as in memory", async () => {
+  const dir = await Deno.makeTempDir({ prefix: "plumbline-survey-" });
+  try {
+    // The row names an export writes: an empty header, 1, 3, 4, 7, … (rows filtered before).
+    const lines = [",fill_ml,line"];
+    for (let i = 0; i < 40; i++) {
+      lines.push(`${i * 2 + (i % 2)},${500 + ((i * 37) % 11) / 10},L${i % 2}`);
+    }
+    const path = `${dir}/export.csv`;
+    await Deno.writeTextFile(path, lines.join("\n") + "\n");
+    const { scanned, memory } = await _both(path);
+    assert.equal(scanned.omitted.length, 1);
+    assert.equal(memory.omitted.length, 1);
+    // DuckDB names the column column0, the in-memory reader column_1: the same reason.
+    assert.equal(scanned.omitted[0].reason, memory.omitted[0].reason);
+    assert.match(
+      scanned.omitted[0].reason,
+      /^the first column, with no header, holds whole numbers/,
+    );
+    assert.deepEqual(_decisions(scanned).rows, _decisions(memory).rows);
+  } finally {
+    await Deno.remove(dir, { recursive: true });
+  }
+});
+
+Deno.test("the row order of a Parquet file read in parallel row groups is the file's", async () => {
+  const dir = await Deno.makeTempDir({ prefix: "plumbline-survey-" });
+  try {
+    // 100,000 rows in row groups of 2,048, read by several threads: the run is still a run,
+    // and a run with two neighbours swapped (rows 70,000 and 70,001) is not.
+    const path = `${dir}/long.parquet`;
+    const inst = await DuckDBInstance.create(":memory:");
+    const con = await inst.connect();
+    await con.run(
+      `COPY (SELECT i + 1 AS seq, CASE WHEN i = 70000 THEN 70002 WHEN i = 70001 THEN 70001 ` +
+        `ELSE i + 1 END AS swapped, 500 + ${_Z} AS fill_ml FROM range(100000) t(i)) ` +
+        `TO '${path}' (FORMAT parquet, ROW_GROUP_SIZE 2048)`,
+    );
+    con.closeSync();
+    inst.closeSync();
+    const s = await survey(scan(path, { progress: false, threads: 2 })).result();
+    assert.deepEqual(s.omitted.map((o) => o.column), ["seq"]);
+    assert.ok(s.rows.find((r) => r.column === "swapped")?.analysis, "swapped is screened");
+  } finally {
+    await Deno.remove(dir, { recursive: true });
+  }
+});
