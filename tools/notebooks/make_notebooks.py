@@ -286,6 +286,22 @@ NOTEBOOKS = {
                  '  { progress: false },\n'
                  ');\n'
                  '(await plumb(steady, "fill_ml").sentence()).text;'),
+        ("md", "## A file with a row number and a text column\n\nExports often carry a row number, and "
+         "a sensor that now and then logged a word instead of a reading makes DuckDB read its column as "
+         "text. The survey decides as it would in memory: the row number is left out, with the reason in "
+         "the notes, and the torque column, which reads mostly as numbers, is screened once its text "
+         "cells are left out on request (`dropText`), their count shown beside the missing cells."),
+        ("code", 'const checks = `${dir}/capper_checks.csv`;\n'
+                 'const db2 = await DuckDBInstance.create(":memory:");\n'
+                 'const con2 = await db2.connect();\n'
+                 'await con2.run(`COPY (\n'
+                 '  SELECT i + 1 AS check_no,\n'
+                 '         CASE WHEN i % 50 = 7 THEN \'jammed\' ELSE CAST(round(1.9 * exp(0.12 * ${z(4, 5)}), 3) AS VARCHAR) END AS cap_torque_nm,\n'
+                 '         round(500 + 0.9 * ${z(6, 7)}, 2) AS fill_ml\n'
+                 '  FROM range(20000) t(i)) TO \'${checks}\' (FORMAT csv, HEADER)`);\n'
+                 'con2.closeSync();\n'
+                 'db2.closeSync();\n'
+                 'survey(scan(checks, { progress: false }), { dropText: true });'),
         ("code", "await Deno.remove(dir, { recursive: true });"),
     ],
     "08_models_and_order.ipynb": [
