@@ -36,6 +36,18 @@ import { type CandidatesView, candidatesView } from "./reexpress_view.ts";
 import { type Sentence, sentenceOf, type SentenceOptions, writeSentence } from "./sentence.ts";
 import { type TestsTable, testsView } from "./tests_view.ts";
 
+/** A screening with `note` leading its origin's notes and its reading's points. */
+function _withNote(s: QueryScreening, note: string | undefined): QueryScreening {
+  if (note === undefined) return s;
+  const a = s.analysis;
+  const analysis: Analysis = Object.freeze({
+    ...a,
+    origin: Object.freeze({ ...a.origin, notes: Object.freeze([note, ...(a.origin.notes ?? [])]) }),
+    reading: Object.freeze({ ...a.reading, points: Object.freeze([note, ...a.reading.points]) }),
+  });
+  return { ...s, analysis };
+}
+
 function _single(s: QueryScreening | Error): QueryScreening {
   if (s instanceof Error) throw s;
   return s;
@@ -187,9 +199,10 @@ export class PlumbQuery implements Displayable {
   #screen(): Promise<QueryScreening> {
     return (this.#screened ??= (async () => {
       const [column, transform] = await Promise.all([this.#name(), this.#transformed()]);
-      // "best" that keeps the data as they are: the parent's screening, not another scan.
+      // "best" that keeps the data as they are: the parent's screening, not another scan,
+      // with the reason as the reading's first point (as in memory).
       const s = transform === undefined && this.#from !== undefined
-        ? await this.#from.parent.#screen()
+        ? _withNote(await this.#from.parent.#screen(), this.#choice?.reason)
         : _single(
           (await this.#engine.screen([{
             column,

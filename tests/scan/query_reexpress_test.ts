@@ -11,6 +11,7 @@ import assert from "node:assert/strict";
 import { DuckDBInstance } from "@duckdb/node-api";
 import { plumb, type PlumbError, scan } from "../../mod.ts";
 import type { Analysis } from "../../lib/results/analysis.ts";
+import { DISPLAY } from "../../lib/results/display.ts";
 import { assertClose } from "../_assert_close.ts";
 
 const _U = (k: number) => `((hash(i + ${k}) % 2147483629) + 0.5) / 2147483629.0`;
@@ -101,11 +102,34 @@ Deno.test("reexpress('best') on a scan uses the Box–Cox λ fitted over every v
   assert.equal(a.moments.mean, b.moments.mean);
   assert.match(a.origin.transform!, /^Box–Cox\[λ = /);
   assert.deepEqual(a.subsample, { size: 5000, seed: 1 }, "the sample is stated");
-  // Kept as they are (no clear departure): the same screening as the chain plumb() made.
+  // Kept as they are (no clear departure): the same screening as the chain plumb() made, with
+  // the reason leading the reading, as in memory.
   const flat = scan(`SELECT 10 + ${_Z} AS gap_mm FROM range(3000) t(i)`, { progress: false });
   const kept = plumb(flat, "gap_mm").reexpress();
-  assert.equal((await kept.choice())!.reexpression, null);
-  assert.deepEqual(await kept.analysis(), await plumb(flat, "gap_mm").analysis());
+  const why = (await kept.choice())!;
+  assert.equal(why.reexpression, null);
+  const k = await kept.analysis();
+  const plain = await plumb(flat, "gap_mm").analysis();
+  assert.equal(k.reading.points[0], why.reason);
+  assert.deepEqual(k.reading.points.slice(1), plain.reading.points);
+  assert.deepEqual(k.origin.notes, [why.reason]);
+  assert.deepEqual({ ...k, origin: plain.origin, reading: plain.reading }, plain);
+});
+
+Deno.test("reexpress('best') on a scan keeps a separate cluster as it is and says why first", async () => {
+  // Invented potassium readings: 5,430 around 4.2 and 170 around 6.8 (a second analyser batch).
+  const sql = `SELECT CASE WHEN i % 33 = 0 THEN 6.8 + 0.3 * ${_Z} ELSE 4.2 + 0.35 * ${_Z} END ` +
+    `AS potassium FROM range(5600) t(i)`;
+  const kept = plumb(scan(sql, { progress: false }), "potassium").reexpress();
+  const why = (await kept.choice())!;
+  assert.equal(why.reexpression, null);
+  assert.match(
+    why.reason,
+    /^No re-expression applied: the departure comes from a separate cluster/,
+  );
+  assert.equal((await kept.analysis()).reading.points[0], why.reason);
+  // The card a notebook shows says so.
+  assert.match((await kept[DISPLAY]())["text/plain"], /separate cluster/);
 });
 
 Deno.test("a scanned chain refuses what it cannot do, saying what to do instead", async () => {
