@@ -28,7 +28,8 @@
  */
 import { DuckDBInstance } from "@duckdb/node-api";
 import { parseArgs } from "node:util";
-import { DUCKDB, presenceSql, quoteText, rowRunsSql, valueExpr } from "../lib/scan/sql.ts";
+import { DUCKDB, quoteText, valueExpr } from "../lib/scan/sql.ts";
+import { presenceSql, rowRunsSql } from "../lib/scan/sql_survey.ts";
 
 const { values: args } = parseArgs({
   args: Deno.args,

@@ -10,7 +10,7 @@ import type { _Engine } from "./engine.ts";
 import type { ScanOptions } from "./scan.ts";
 import { type ColumnCounts, screenColumn, type Screened } from "./screen.ts";
 import type { ColumnQuery } from "./select.ts";
-import { countsSql, DUCKDB, quickCountsSql, textCellsSql, valueExpr } from "./sql.ts";
+import { cellExpr, countsSql, DUCKDB, quickCountsSql, textCellsSql, valueExpr } from "./sql.ts";
 
 export const _NUMERIC =
   /^(TINYINT|SMALLINT|INTEGER|BIGINT|HUGEINT|UTINYINT|USMALLINT|UINTEGER|UBIGINT|UHUGEINT|FLOAT|DOUBLE|REAL|DECIMAL.*)$/i;
@@ -43,18 +43,19 @@ export async function _columnQuery(
     );
   }
   const v = value ?? valueExpr(DUCKDB, name, textual, 1);
+  const cell = cellExpr(name, textual);
   // From the file's statistics when it can; a filtered pass when NaN or ±Infinity are present.
   let [c] = textual
     ? [[]]
     : await engine.rows(quickCountsSql(relation, name, v), "counting", subject);
   if (textual || !(Number.isFinite(c[4]) && Number.isFinite(c[5]))) {
-    [c] = await engine.rows(countsSql(DUCKDB, relation, name, v), "counting", subject);
+    [c] = await engine.rows(countsSql(DUCKDB, relation, cell, v), "counting", subject);
   }
   const [rows, present, numeric, nonFinite] = c as number[];
   const text = present - numeric;
   if (text > 0 && !o.dropText) {
     const shown = await engine.rows(
-      textCellsSql(relation, name, v, 5),
+      textCellsSql(relation, cell, v, 5),
       "finding text",
       subject,
     );

@@ -26,16 +26,16 @@ import { _Engine } from "./engine.ts";
 import { _progressReporter } from "./progress.ts";
 import type { ScanOptions } from "./scan.ts";
 import {
+  cellExpr,
   describeSql,
   DUCKDB,
   groupCountsSql,
   groupRelation,
-  presenceSql,
   reexpressedSql,
   residualRelation,
-  rowRunsSql,
   valueExpr,
 } from "./sql.ts";
+import { presenceSql, rowRunsSql } from "./sql_survey.ts";
 
 /** The most groups one `.by()` screens through a scan: each costs one screening. */
 export const MAX_SCAN_GROUPS = 200;
@@ -168,8 +168,9 @@ export function scanQueryEngine(relation: string, name: string, options: ScanOpt
         const all = await _describe(engine, relation, what());
         for (const c of [column, by]) _known(all, c, name);
         const v = _value(all, column, transform);
+        const textual = /^VARCHAR$/i.test(all.find((c) => c.name === column)!.type);
         const rows = await engine.rows(
-          groupCountsSql(DUCKDB, relation, column, v, by, MAX_SCAN_GROUPS + 2),
+          groupCountsSql(DUCKDB, relation, cellExpr(column, textual), v, by, MAX_SCAN_GROUPS + 2),
           "counting the groups",
           what(by),
         );

@@ -35,6 +35,8 @@
  * @module
  */
 
+import { DEFAULT_MISSING } from "../data/missing.ts";
+
 /** The engine-specific fragments. */
 export interface Dialect {
   /** The engine's name, for messages. */
@@ -90,8 +92,24 @@ export function describeSql(relation: string): string {
 }
 
 /**
+ * A cell of `column` as the screening sees it: for a text column, NULL
+ * where the cell holds a missing-value token (`DEFAULT_MISSING` of
+ * `lib/data/missing.ts`: the empty cell, `NA`, `N/A`, `null`, `NaN`, `-`,
+ * `.`, compared trimmed and in lower case), so that such cells count as
+ * missing, not as text, as in memory.
+ */
+export function cellExpr(column: string, textual: boolean): string {
+  const c = quoteIdent(column);
+  if (!textual) return c;
+  const tokens = [...new Set(DEFAULT_MISSING.map((t) => t.trim().toLowerCase()))];
+  return `(CASE WHEN lower(trim(${c})) IN (${tokens.map(quoteText).join(", ")}) ` +
+    `THEN NULL ELSE ${c} END)`;
+}
+
+/**
  * The value expression analysed: the column as a double (`TRY_CAST` for a
- * text column), times an exact power of two when magnitudes are extreme.
+ * text column, its missing-value tokens NULL), times an exact power of two
+ * when magnitudes are extreme.
  */
 export function valueExpr(
   dialect: Dialect,
@@ -99,7 +117,7 @@ export function valueExpr(
   textual: boolean,
   scale: number,
 ): string {
-  const c = quoteIdent(column);
+  const c = cellExpr(column, textual);
   const v = textual ? dialect.tryDouble(c) : `CAST(${c} AS DOUBLE)`;
   return scale === 1 ? v : `(${v} * ${num(scale)})`;
 }
@@ -149,16 +167,17 @@ export function reexpressedSql(v: string, r: SqlReexpression): string {
 }
 
 /**
- * Pass 0: rows, present cells, numbers, non-finite numbers, and the finite
- * range. For a text column, `present − numeric` cells hold text.
+ * Pass 0: rows, present cells (of the cell expression `cell`, see
+ * {@linkcode cellExpr}), numbers, non-finite numbers, and the finite range.
+ * For a text column, `present − numeric` cells hold text.
  */
-export function countsSql(dialect: Dialect, relation: string, column: string, v: string): string {
+export function countsSql(dialect: Dialect, relation: string, cell: string, v: string): string {
   const f = dialect.finite("v");
   return `SELECT CAST(count(*) AS DOUBLE) AS total, CAST(count(c) AS DOUBLE) AS present, ` +
     `CAST(count(v) AS DOUBLE) AS numeric, ` +
     `CAST(count(*) FILTER (WHERE v IS NOT NULL AND NOT ${f}) AS DOUBLE) AS nonfinite, ` +
     `min(v) FILTER (WHERE ${f}) AS lo, max(v) FILTER (WHERE ${f}) AS hi ` +
-    `FROM (SELECT ${quoteIdent(column)} AS c, ${v} AS v FROM ${relation}) AS s`;
+    `FROM (SELECT ${cell} AS c, ${v} AS v FROM ${relation}) AS s`;
 }
 
 /**
@@ -171,63 +190,6 @@ export function quickCountsSql(relation: string, column: string, v: string): str
   return `SELECT CAST(count(*) AS DOUBLE) AS total, CAST(count(c) AS DOUBLE) AS present, ` +
     `CAST(count(v) AS DOUBLE) AS numeric, 0.0 AS nonfinite, min(v) AS lo, max(v) AS hi ` +
     `FROM (SELECT ${quoteIdent(column)} AS c, ${v} AS v FROM ${relation}) AS s`;
-}
-
-/**
- * One pass over several columns: rows, and for each column its present
- * cells and (`textual`) those that read as numbers, so that columns not
- * screened still report what they hold; for a column of numbers (`numeric`),
- * its smallest and largest value too (from a Parquet file's statistics when
- * the engine can). Columns: `total`, then `p<i>`, `q<i>`, `lo<i>`, `hi<i>`.
- */
-export function presenceSql(
-  dialect: Dialect,
-  relation: string,
-  columns: readonly {
-    readonly name: string;
-    readonly textual: boolean;
-    readonly numeric: boolean;
-  }[],
-): string {
-  const parts = columns.map((c, i) => {
-    const q = quoteIdent(c.name);
-    const numeric = c.textual ? `count(${dialect.tryDouble(q)})` : `count(${q})`;
-    const range = !c.numeric
-      ? `NULL AS lo${i}, NULL AS hi${i}`
-      : `CAST(min(${q}) AS DOUBLE) AS lo${i}, CAST(max(${q}) AS DOUBLE) AS hi${i}`;
-    return `CAST(count(${q}) AS DOUBLE) AS p${i}, CAST(${numeric} AS DOUBLE) AS q${i}, ${range}`;
-  });
-  return `SELECT CAST(count(*) AS DOUBLE) AS total${
-    parts.map((x) => `, ${x}`).join("")
-  } FROM ${relation}`;
-}
-
-/**
- * How columns run down the rows, in one windowed pass (row order: see the
- * module doc): for each value expression `v`, the smallest and largest of
- * v − (row number), equal and whole when the values run k, k + 1, … (then
- * k − 1 is that value); the rows where v is not a finite whole number; and,
- * when `increasing` is asked, the smallest step from the row above.
- * Columns: `total`, then `a<i>`, `b<i>`, `f<i>`, `d<i>` (NULL when not asked).
- */
-export function rowRunsSql(
-  dialect: Dialect,
-  relation: string,
-  columns: readonly { readonly v: string; readonly increasing: boolean }[],
-): string {
-  const inner = columns.map((c, i) => `${c.v} AS v${i}`).join(", ");
-  const windowed = columns.map((c, i) =>
-    `v${i}${c.increasing ? `, ${dialect.previous(`v${i}`)} AS u${i}` : ""}`
-  ).join(", ");
-  const parts = columns.map((c, i) =>
-    `min(v${i} - r) AS a${i}, max(v${i} - r) AS b${i}, ` +
-    `CAST(count(*) FILTER (WHERE v${i} IS NULL OR NOT ${dialect.finite(`v${i}`)} ` +
-    `OR v${i} <> floor(v${i})) AS DOUBLE) AS f${i}, ` +
-    (c.increasing ? `min(v${i} - u${i}) AS d${i}` : `NULL AS d${i}`)
-  );
-  return `SELECT CAST(count(*) AS DOUBLE) AS total, ${parts.join(", ")} FROM ` +
-    `(SELECT ${dialect.rowNumber} AS r, ${windowed} FROM ` +
-    `(SELECT ${inner} FROM ${relation}) AS s0) AS s1`;
 }
 
 /** The distinct values of a group column, as text (NULL for empty cells), at most `limit`. */
@@ -246,13 +208,14 @@ export function groupRelation(relation: string, group: string, value: string | n
 /**
  * The groups of `group` (as text, NULL for empty cells, the empty group
  * last) with, in each, the finite numbers of the value expression `v` and
- * their mean, the missing cells of `column`, and its cells that are text or
- * not finite; at most `limit` groups.
+ * their mean, the missing cells of the cell expression `cell` (see
+ * {@linkcode cellExpr}), and its cells that are text or not finite; at most
+ * `limit` groups.
  */
 export function groupCountsSql(
   dialect: Dialect,
   relation: string,
-  column: string,
+  cell: string,
   v: string,
   group: string,
   limit: number,
@@ -262,9 +225,7 @@ export function groupCountsSql(
     `avg(v) FILTER (WHERE v IS NOT NULL AND ${f}) AS mean, ` +
     `CAST(count(*) FILTER (WHERE c IS NULL) AS DOUBLE) AS missing, ` +
     `CAST(count(*) FILTER (WHERE c IS NOT NULL AND (v IS NULL OR NOT ${f})) AS DOUBLE) AS other ` +
-    `FROM (SELECT CAST(${quoteIdent(group)} AS VARCHAR) AS g, ${
-      quoteIdent(column)
-    } AS c, ${v} AS v ` +
+    `FROM (SELECT CAST(${quoteIdent(group)} AS VARCHAR) AS g, ${cell} AS c, ${v} AS v ` +
     `FROM ${relation}) AS s GROUP BY g ORDER BY g NULLS LAST LIMIT ${limit}`;
 }
 
@@ -289,9 +250,12 @@ export function residualRelation(
     `WHERE s.v IS NOT NULL AND ${dialect.finite("s.v")}) AS res`;
 }
 
-/** A few cells of a text column that are not numbers, for the error message. */
-export function textCellsSql(relation: string, column: string, v: string, limit: number): string {
-  const c = quoteIdent(column);
+/**
+ * A few cells of a text column (its cell expression `cell`, see
+ * {@linkcode cellExpr}) that are not numbers, for the error message.
+ */
+export function textCellsSql(relation: string, cell: string, v: string, limit: number): string {
+  const c = cell;
   return `SELECT CAST(${c} AS VARCHAR) FROM ${relation} ` +
     `WHERE ${c} IS NOT NULL AND ${v} IS NULL LIMIT ${limit}`;
 }

@@ -1,0 +1,66 @@
+/**
+ * The statements a survey runs over many columns of the source at once,
+ * before any is screened: counting their cells (with their ranges) and
+ * reading how they run down the rows. The dialect and the shared pieces
+ * are in `sql.ts`.
+ *
+ * @module
+ */
+import { cellExpr, type Dialect } from "./sql.ts";
+
+/**
+ * One pass over several columns: rows, and for each column its present
+ * cells and (`textual`) those that read as numbers, so that columns not
+ * screened still report what they hold; for a column of numbers (`numeric`),
+ * its smallest and largest value too (from a Parquet file's statistics when
+ * the engine can). Columns: `total`, then `p<i>`, `q<i>`, `lo<i>`, `hi<i>`.
+ */
+export function presenceSql(
+  dialect: Dialect,
+  relation: string,
+  columns: readonly {
+    readonly name: string;
+    readonly textual: boolean;
+    readonly numeric: boolean;
+  }[],
+): string {
+  const parts = columns.map((c, i) => {
+    const q = cellExpr(c.name, c.textual);
+    const numeric = c.textual ? `count(${dialect.tryDouble(q)})` : `count(${q})`;
+    const range = !c.numeric
+      ? `NULL AS lo${i}, NULL AS hi${i}`
+      : `CAST(min(${q}) AS DOUBLE) AS lo${i}, CAST(max(${q}) AS DOUBLE) AS hi${i}`;
+    return `CAST(count(${q}) AS DOUBLE) AS p${i}, CAST(${numeric} AS DOUBLE) AS q${i}, ${range}`;
+  });
+  return `SELECT CAST(count(*) AS DOUBLE) AS total${
+    parts.map((x) => `, ${x}`).join("")
+  } FROM ${relation}`;
+}
+
+/**
+ * How columns run down the rows, in one windowed pass (row order: see the
+ * module doc of `sql.ts`): for each value expression `v`, the smallest and largest of
+ * v − (row number), equal and whole when the values run k, k + 1, … (then
+ * k − 1 is that value); the rows where v is not a finite whole number; and,
+ * when `increasing` is asked, the smallest step from the row above.
+ * Columns: `total`, then `a<i>`, `b<i>`, `f<i>`, `d<i>` (NULL when not asked).
+ */
+export function rowRunsSql(
+  dialect: Dialect,
+  relation: string,
+  columns: readonly { readonly v: string; readonly increasing: boolean }[],
+): string {
+  const inner = columns.map((c, i) => `${c.v} AS v${i}`).join(", ");
+  const windowed = columns.map((c, i) =>
+    `v${i}${c.increasing ? `, ${dialect.previous(`v${i}`)} AS u${i}` : ""}`
+  ).join(", ");
+  const parts = columns.map((c, i) =>
+    `min(v${i} - r) AS a${i}, max(v${i} - r) AS b${i}, ` +
+    `CAST(count(*) FILTER (WHERE v${i} IS NULL OR NOT ${dialect.finite(`v${i}`)} ` +
+    `OR v${i} <> floor(v${i})) AS DOUBLE) AS f${i}, ` +
+    (c.increasing ? `min(v${i} - u${i}) AS d${i}` : `NULL AS d${i}`)
+  );
+  return `SELECT CAST(count(*) AS DOUBLE) AS total, ${parts.join(", ")} FROM ` +
+    `(SELECT ${dialect.rowNumber} AS r, ${windowed} FROM ` +
+    `(SELECT ${inner} FROM ${relation}) AS s0) AS s1`;
+}
