@@ -30,6 +30,7 @@ import {
   describeSql,
   DUCKDB,
   groupCountsSql,
+  groupExpr,
   groupRelation,
   reexpressedSql,
   residualRelation,
@@ -170,7 +171,14 @@ export function scanQueryEngine(relation: string, name: string, options: ScanOpt
         const v = _value(all, column, transform);
         const textual = /^VARCHAR$/i.test(all.find((c) => c.name === column)!.type);
         const rows = await engine.rows(
-          groupCountsSql(DUCKDB, relation, cellExpr(column, textual), v, by, MAX_SCAN_GROUPS + 2),
+          groupCountsSql(
+            DUCKDB,
+            relation,
+            cellExpr(column, textual),
+            v,
+            _groupOf(all, by),
+            MAX_SCAN_GROUPS + 2,
+          ),
           "counting the groups",
           what(by),
         );
@@ -253,6 +261,11 @@ function _value(
   return transform === undefined ? v : reexpressedSql(v, transform.reexpression);
 }
 
+/** The group column `by` as text, its empty cells and missing-value tokens in no group. */
+function _groupOf(cols: readonly { name: string; type: string }[], by: string): string {
+  return groupExpr(by, /^VARCHAR$/i.test(cols.find((c) => c.name === by)!.type));
+}
+
 const _REFUSALS = new Set(["too-few", "constant", "non-numeric", "bad-option"]);
 
 function _known(cols: readonly { name: string }[], column: string, name: string): void {
@@ -284,7 +297,7 @@ async function _one(
   if (r.residuals !== undefined) {
     const { by, means } = r.residuals;
     _known(cols, by, what());
-    const res = residualRelation(DUCKDB, relation, r.column, v, by, means);
+    const res = residualRelation(DUCKDB, relation, r.column, v, _groupOf(cols, by), means);
     return await _screen(engine, res, [{ name: r.column, type: "DOUBLE" }], r.column, o, {
       subject: `${what(r.column)}, residuals within ${JSON.stringify(by)}`,
       label: r.label,
@@ -295,7 +308,7 @@ async function _one(
     _known(cols, r.group.by, what());
     return await _screen(
       engine,
-      groupRelation(relation, r.group.by, r.group.value),
+      groupRelation(relation, _groupOf(cols, r.group.by), r.group.value),
       cols,
       r.column,
       o,

@@ -16,7 +16,7 @@ import { _columnQuery, _pick, _screen } from "./column.ts";
 import { _describe, _openEngine, scanQueryEngine } from "./query_engine.ts";
 import { scanAggregates } from "./scan_aggregates.ts";
 import type { ColumnAggregates } from "../results/aggregates.ts";
-import { groupRelation, groupValuesSql } from "./sql.ts";
+import { groupExpr, groupRelation, groupValuesSql } from "./sql.ts";
 import { _relation, _relationIsQuery } from "./relation.ts";
 
 /** Options for {@linkcode scan}. */
@@ -183,7 +183,8 @@ export class ScanSource implements QuerySource {
    * Shapiro–Wilk p-values across the groups.
    *
    * @param column the numeric column
-   * @param group the column whose values define the groups (read as text; empty cells form their own group)
+   * @param group the column whose values define the groups (read as text; empty cells, and a
+   *   text column's missing-value tokens such as "NA", form their own group)
    */
   async analyseBy(column: string, group: string): Promise<ScanGroups> {
     const engine = await this.#open();
@@ -191,8 +192,9 @@ export class ScanSource implements QuerySource {
       const cols = await this.#columns(engine);
       const name = _pick(cols, column);
       _pick(cols, group);
+      const g = groupExpr(group, /^VARCHAR$/i.test(cols.find((c) => c.name === group)!.type));
       const values = await engine.rows(
-        groupValuesSql(this.#relation, group, _MAX_GROUPS + 1),
+        groupValuesSql(this.#relation, g, _MAX_GROUPS + 1),
         "listing the groups",
         this.#what(group),
       );
@@ -212,7 +214,7 @@ export class ScanSource implements QuerySource {
           value,
           analysis: (await _screen(
             engine,
-            groupRelation(this.#relation, group, value),
+            groupRelation(this.#relation, g, value),
             cols,
             name,
             this.#options,

@@ -192,22 +192,33 @@ export function quickCountsSql(relation: string, column: string, v: string): str
     `FROM (SELECT ${quoteIdent(column)} AS c, ${v} AS v FROM ${relation}) AS s`;
 }
 
-/** The distinct values of a group column, as text (NULL for empty cells), at most `limit`. */
-export function groupValuesSql(relation: string, group: string, limit: number): string {
-  return `SELECT DISTINCT CAST(${quoteIdent(group)} AS VARCHAR) AS g FROM ${relation} ` +
+/**
+ * A group column's cells as text: NULL for empty cells and, in a text
+ * column, for missing-value tokens (see {@linkcode cellExpr}), so that such
+ * rows belong to no group, as in memory.
+ */
+export function groupExpr(group: string, textual: boolean): string {
+  return `CAST(${cellExpr(group, textual)} AS VARCHAR)`;
+}
+
+/** The distinct values of a group column (`g`, see {@linkcode groupExpr}), at most `limit`. */
+export function groupValuesSql(relation: string, g: string, limit: number): string {
+  return `SELECT DISTINCT ${g} AS g FROM ${relation} ` +
     `ORDER BY g NULLS LAST LIMIT ${limit}`;
 }
 
-/** The rows of one group (its value as text, or null for empty cells) as a relation. */
-export function groupRelation(relation: string, group: string, value: string | null): string {
-  const g = `CAST(${quoteIdent(group)} AS VARCHAR)`;
+/**
+ * The rows of one group of `g` (see {@linkcode groupExpr}; its value as
+ * text, or null for the rows of no group) as a relation.
+ */
+export function groupRelation(relation: string, g: string, value: string | null): string {
   const where = value === null ? `${g} IS NULL` : `${g} = ${quoteText(value)}`;
   return `(SELECT * FROM ${relation} WHERE ${where}) AS grp`;
 }
 
 /**
- * The groups of `group` (as text, NULL for empty cells, the empty group
- * last) with, in each, the finite numbers of the value expression `v` and
+ * The groups of `g` (see {@linkcode groupExpr}; NULL for the rows of no
+ * group, last) with, in each, the finite numbers of the value expression `v` and
  * their mean, the missing cells of the cell expression `cell` (see
  * {@linkcode cellExpr}), and its cells that are text or not finite; at most
  * `limit` groups.
@@ -217,7 +228,7 @@ export function groupCountsSql(
   relation: string,
   cell: string,
   v: string,
-  group: string,
+  g: string,
   limit: number,
 ): string {
   const f = dialect.finite("v");
@@ -225,13 +236,13 @@ export function groupCountsSql(
     `avg(v) FILTER (WHERE v IS NOT NULL AND ${f}) AS mean, ` +
     `CAST(count(*) FILTER (WHERE c IS NULL) AS DOUBLE) AS missing, ` +
     `CAST(count(*) FILTER (WHERE c IS NOT NULL AND (v IS NULL OR NOT ${f})) AS DOUBLE) AS other ` +
-    `FROM (SELECT CAST(${quoteIdent(group)} AS VARCHAR) AS g, ${cell} AS c, ${v} AS v ` +
+    `FROM (SELECT ${g} AS g, ${cell} AS c, ${v} AS v ` +
     `FROM ${relation}) AS s GROUP BY g ORDER BY g NULLS LAST LIMIT ${limit}`;
 }
 
 /**
  * The residuals of the value expression `v` from the given mean of their
- * group of `group`, as a relation with one DOUBLE column named `column`:
+ * group of `g` (see {@linkcode groupExpr}), as a relation with one DOUBLE column named `column`:
  * rows of groups not listed, and values that are not finite numbers, are
  * left out. The means come as a join on VALUES (standard SQL).
  */
@@ -240,12 +251,12 @@ export function residualRelation(
   relation: string,
   column: string,
   v: string,
-  group: string,
+  g: string,
   means: readonly (readonly [string, number])[],
 ): string {
   const rows = means.map(([g, m]) => `(${quoteText(g)}, ${num(m)})`).join(", ");
   return `(SELECT s.v - m.mu AS ${quoteIdent(column)} ` +
-    `FROM (SELECT CAST(${quoteIdent(group)} AS VARCHAR) AS g, ${v} AS v FROM ${relation}) AS s ` +
+    `FROM (SELECT ${g} AS g, ${v} AS v FROM ${relation}) AS s ` +
     `JOIN (VALUES ${rows}) AS m(g, mu) ON s.g = m.g ` +
     `WHERE s.v IS NOT NULL AND ${dialect.finite("s.v")}) AS res`;
 }
