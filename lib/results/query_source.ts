@@ -121,7 +121,11 @@ export interface QueryEngine {
   readonly name: string;
   /** The source's columns. */
   columns(): Promise<readonly QueryColumn[]>;
-  /** Rows, empty cells and text cells of each of `columns`, in one pass. */
+  /**
+   * Rows, empty cells and text cells of each of `columns`, and the range of
+   * each numeric one, in one pass. A text column's missing-value tokens
+   * (`NA`, `-`, … as in memory) count as empty cells.
+   */
   counts(columns: readonly string[]): Promise<readonly QueryCounts[]>;
   /**
    * The groups of `by` (sorted, the empty group last) with the counts of
