@@ -9,20 +9,23 @@
  *
  *   deno run -A bench/scan_identifiers_cost.ts --rows 10000000 --dir <scratch folder>
  *
- * Writes `ids_<rows>.parquet` and `ids_<rows>.csv` there once (a run number,
- * a tray number holding 1…n out of order, a measurement); never inside the
- * repository.
+ * Writes `survey_cost_<rows>.parquet` and `.csv` there once (a run number, a
+ * tray number holding 1…n out of order, a measurement, a line label); never
+ * inside the repository.
  *
- * One run, 10^7 rows, 2 threads, load average 4.2 on 2 cores (CPU seconds):
- * Parquet: count(*) 0.01 (file statistics), plain read of one column 0.04,
- * counting pass with ranges 0.01 (statistics, as without them), row-order
- * pass 0.40–0.60 for one column, 0.61–0.66 for two; CSV: count(*)
- * 1.07–1.55, counting pass 1.04–1.14 without ranges and 1.16–1.21 with
- * them, row-order pass 1.01–1.22 for one column, 1.45–2.03 for two. The
- * row-order pass runs only when a complete column spans exactly n − 1 (or
- * is a row-name first column). DuckDB's Parquet-only `file_row_number`
- * would halve it on one file (0.29–0.33 against 0.63–0.69 in one run) but
- * restarts in each file of a glob; not used.
+ * Three runs, 10^7 rows, 2 threads, load average 2.6–4.4 on 2 cores (CPU
+ * seconds). Parquet: count(*) 0.01 (file statistics), plain read of one
+ * column 0.03–0.04, counting pass with ranges 0.00–0.01 (statistics, as
+ * without them), plus one text column 1.19–1.25 (every cell read as a
+ * number, missing-value tokens first), row-order pass 0.31–0.70 for one
+ * column, 0.61–1.40 for two. CSV: count(*) 0.69–1.55, plain read
+ * 0.76–1.02, counting pass 1.01–1.16 without ranges and 1.13–1.30 with
+ * them, 2.59–2.62 with the text column, row-order pass 1.01–2.06 for one
+ * column, 1.45–3.39 for two. The row-order pass runs only when a complete
+ * column spans exactly n − 1 (or is a row-name first column). DuckDB's
+ * Parquet-only `file_row_number` would halve it on one file (0.29–0.33
+ * against 0.63–0.69 in one run) but restarts in each file of a glob; not
+ * used.
  *
  * @module
  */
@@ -44,11 +47,12 @@ const cpu = () => {
   return (Number(f[11]) + Number(f[12])) / 100;
 };
 const load = () => Deno.readTextFileSync("/proc/loadavg").split(" ")[0];
-const base = `${args.dir}/ids_${rows}`;
+const base = `${args.dir}/survey_cost_${rows}`;
 const exists = (p: string) => Deno.stat(p).then(() => true, () => false);
 // 7919 is prime and does not divide 10^k, so (i · 7919) mod n + 1 runs over 1…n out of order.
 const select = `SELECT i + 1 AS run_no, (i * 7919) % ${rows} + 1 AS tray, ` +
-  `500 + ((hash(i) % 1000003) / 1000003.0 - 0.5) AS fill_ml FROM range(${rows}) t(i)`;
+  `500 + ((hash(i) % 1000003) / 1000003.0 - 0.5) AS fill_ml, 'L' || (i % 4 + 1) AS line ` +
+  `FROM range(${rows}) t(i)`;
 for (const [ext, format] of [["parquet", "parquet"], ["csv", "csv, HEADER"]]) {
   if (!(await exists(`${base}.${ext}`))) {
     await con.run(`COPY (${select}) TO ${quoteText(`${base}.${ext}`)} (FORMAT ${format})`);
@@ -76,6 +80,13 @@ for (const ext of ["parquet", "csv"]) {
     ["plain read: sum(fill_ml)", `SELECT sum(fill_ml) FROM ${rel}`],
     ["counting pass, no ranges", counts(false, rel)],
     ["counting pass with ranges (shipped)", counts(true, rel)],
+    [
+      "counting pass with ranges and the text column line",
+      presenceSql(DUCKDB, rel, [
+        ...cols.map((name) => ({ name, textual: false, numeric: true })),
+        { name: "line", textual: true, numeric: false },
+      ]),
+    ],
     ["row-order pass, 1 column (run_no)", runs(["run_no"], rel)],
     ["row-order pass, 1 column, with the step (lag)", runs(["run_no"], rel, true)],
     ["row-order pass, 2 columns (run_no, tray)", runs(["run_no", "tray"], rel)],
