@@ -1,6 +1,6 @@
 /**
- * Why the full screening through `scan` costs about 8–9× DuckDB's own
- * `SELECT avg(x), stddev_samp(x)`: each pass, and the variants tried to
+ * Where the full screening through `scan` spends its time against DuckDB's
+ * own `SELECT avg(x), stddev_samp(x)`: each pass, and the variants tried to
  * make it cheaper, timed side by side in one process over the same Parquet
  * file (CPU seconds of this process, and wall seconds; note the load).
  *
@@ -9,6 +9,8 @@
  * @module
  */
 import { DuckDBInstance } from "@duckdb/node-api";
+import { gridFor } from "../lib/scan/cells.ts";
+import { cellsSql, DUCKDB } from "../lib/scan/sql.ts";
 
 const path = Deno.args[0];
 if (!path) throw new Error("give the Parquet file written by bench/scan_side_by_side.ts");
@@ -23,8 +25,12 @@ const cpu = () => {
 const [range] = (await con.runAndReadAll(`SELECT min(x), max(x) FROM ${R}`)).getRows();
 const [lo0, hi0] = range as number[];
 // The grid the screening uses: about 32,768 cells of a power-of-two width.
-const w = 2 ** Math.floor(Math.log2((hi0 - lo0) / 32768));
-const lo = Math.floor(lo0 / w) * w;
+const { lo, w } = gridFor(lo0, hi0, 32768);
+const shipped = cellsSql(
+  { dialect: DUCKDB, relation: R, v: `CAST("x" AS DOUBLE)`, keep: "all" },
+  { a: lo0, b: hi0, lo, w },
+  true,
+);
 const key = `floor((x - ${lo}) / ${w})`;
 const sums = (k: string) =>
   `SELECT k, count(*), sum(e), sum(e2), sum(e2 * e), sum(e2 * e2) FROM (SELECT k, e, e * e AS e2 ` +
@@ -40,11 +46,17 @@ const variants: [string, string][] = [
       lo0 + (hi0 - lo0) / 2
     } AS e FROM ${R})`,
   ],
-  ["cell pass as shipped (DOUBLE key)", sums(key)],
+  ["cell pass as shipped (in cell widths, lib/scan/sql.ts)", shipped],
+  ["cell pass, key and offset apart (before)", sums(key)],
   ["cell pass, INTEGER key", sums(`CAST(${key} AS INTEGER)`)],
   [
     "cell pass, perfect hash (USMALLINT)",
     sums(`CAST(least(greatest(${key}, 0), 65535) AS USMALLINT)`),
+  ],
+  [
+    "grouped count + Σe, Σe² (no Σe³, Σe⁴)",
+    `SELECT k, count(*), sum(e), sum(e * e) FROM (SELECT k, x - (${lo} + (k + 0.5) * ${w}) AS e ` +
+    `FROM (SELECT x, ${key} AS k FROM ${R})) GROUP BY k`,
   ],
   [
     "grouped count only",
