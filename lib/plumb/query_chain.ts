@@ -35,23 +35,7 @@ import type { PlumbOptions } from "./_chain_options.ts";
 import { type CandidatesView, candidatesView } from "./reexpress_view.ts";
 import { type Sentence, sentenceOf, type SentenceOptions, writeSentence } from "./sentence.ts";
 import { type TestsTable, testsView } from "./tests_view.ts";
-
-/** A screening with `note` leading its origin's notes and its reading's points. */
-function _withNote(s: QueryScreening, note: string | undefined): QueryScreening {
-  if (note === undefined) return s;
-  const a = s.analysis;
-  const analysis: Analysis = Object.freeze({
-    ...a,
-    origin: Object.freeze({ ...a.origin, notes: Object.freeze([note, ...(a.origin.notes ?? [])]) }),
-    reading: Object.freeze({ ...a.reading, points: Object.freeze([note, ...a.reading.points]) }),
-  });
-  return { ...s, analysis };
-}
-
-function _single(s: QueryScreening | Error): QueryScreening {
-  if (s instanceof Error) throw s;
-  return s;
-}
+import { _single, _withNote } from "./_query_screening.ts";
 
 /**
  * The chain over one column of a query source. Create it with
