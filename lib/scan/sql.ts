@@ -108,8 +108,9 @@ export function cellExpr(column: string, textual: boolean): string {
 
 /**
  * The value expression analysed: the column as a double (`TRY_CAST` for a
- * text column, its missing-value tokens NULL), times an exact power of two
- * when magnitudes are extreme.
+ * text column, its missing-value tokens NULL, and text that reads as an
+ * infinite number, such as `inf` or `1e400`, NULL too: text in memory),
+ * times an exact power of two when magnitudes are extreme.
  */
 export function valueExpr(
   dialect: Dialect,
@@ -118,7 +119,8 @@ export function valueExpr(
   scale: number,
 ): string {
   const c = cellExpr(column, textual);
-  const v = textual ? dialect.tryDouble(c) : `CAST(${c} AS DOUBLE)`;
+  const t = dialect.tryDouble(c);
+  const v = textual ? `(CASE WHEN ${dialect.finite(t)} THEN ${t} END)` : `CAST(${c} AS DOUBLE)`;
   return scale === 1 ? v : `(${v} * ${num(scale)})`;
 }
 

@@ -6,11 +6,11 @@
  *
  * @module
  */
-import { cellExpr, type Dialect } from "./sql.ts";
+import { cellExpr, type Dialect, valueExpr } from "./sql.ts";
 
 /**
  * One pass over several columns: rows, and for each column its present
- * cells and (`textual`) those that read as numbers, so that columns not
+ * cells and (`textual`) those that read as finite numbers, so that columns not
  * screened still report what they hold; for a column of numbers (`numeric`),
  * its smallest and largest value too (from a Parquet file's statistics when
  * the engine can). Columns: `total`, then `p<i>`, `q<i>`, `lo<i>`, `hi<i>`.
@@ -26,7 +26,7 @@ export function presenceSql(
 ): string {
   const parts = columns.map((c, i) => {
     const q = cellExpr(c.name, c.textual);
-    const numeric = c.textual ? `count(${dialect.tryDouble(q)})` : `count(${q})`;
+    const numeric = c.textual ? `count(${valueExpr(dialect, c.name, true, 1)})` : `count(${q})`;
     const range = !c.numeric
       ? `NULL AS lo${i}, NULL AS hi${i}`
       : `CAST(min(${q}) AS DOUBLE) AS lo${i}, CAST(max(${q}) AS DOUBLE) AS hi${i}`;

@@ -61,7 +61,7 @@ async function _both(path: string, options: Parameters<typeof survey>[1] = {}) {
  */
 const _SHEET = `SELECT ` +
   `CASE WHEN i % 17 = 0 THEN NULL WHEN i % 23 = 0 THEN 'NA' WHEN i % 29 = 0 THEN ' - ' ` +
-  `WHEN i % 8 = 0 THEN 'void' ` +
+  `WHEN i % 8 = 0 THEN 'void' WHEN i % 37 = 0 THEN 'inf' ` +
   `ELSE CAST(round(20 * exp(0.3 * ${_Z}), 3) AS VARCHAR) END AS reading, ` +
   `CASE WHEN i % 3 = 0 THEN CAST(i AS VARCHAR) ELSE 'ok ' || CAST(i % 5 AS VARCHAR) END ` +
   `AS remark, ` +
@@ -72,19 +72,20 @@ Deno.test("a scanned text column that reads mostly as numbers is screened as in 
   try {
     for (const path of await _write(dir, "sheet", _SHEET)) {
       // 300 rows of reading: 18 empty (i % 17 = 0), then 13 "NA" (i % 23 = 0) and 10 " - "
-      // (i % 29 = 0), missing as in memory; 33 "void" (i % 8 = 0), text; 226 numbers.
+      // (i % 29 = 0), missing as in memory; 33 "void" (i % 8 = 0) and 7 "inf" (i % 37 = 0),
+      // text as in memory; 219 numbers.
       // remark: 100 numbers, 200 words.
       const { scanned, memory } = await _both(path);
       const reading = scanned.rows.find((r) => r.column === "reading")!;
       assert.equal(reading.missing, 18 + 13 + 10, `${path}: reading missing`);
-      assert.match(reading.skipped!, /33 of 259 cells are text/, `${path}: refused, named`);
+      assert.match(reading.skipped!, /40 of 259 cells are text/, `${path}: refused, named`);
       assert.deepEqual(scanned.textColumns, ["remark"], `${path}: remark is a text column`);
       assert.deepEqual(_decisions(scanned), _decisions(memory), `${path}: as in memory`);
 
       const kept = await _both(path, { dropText: true });
       const r = kept.scanned.rows.find((x) => x.column === "reading")!;
-      assert.equal(r.textDropped, 33, `${path}: text cells counted`);
-      assert.equal(r.analysis?.n, 226, `${path}: n`);
+      assert.equal(r.textDropped, 40, `${path}: text cells counted`);
+      assert.equal(r.analysis?.n, 219, `${path}: n`);
       assert.deepEqual(_decisions(kept.scanned), _decisions(kept.memory), `${path}: dropText`);
       assert.equal(
         r.analysis?.moments.mean,
