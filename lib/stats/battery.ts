@@ -77,6 +77,13 @@ export interface NormalityTest {
    * gives exactly the result of `run(sample.values)`.
    */
   readonly runPrepared: (s: PreparedSample) => TestResult;
+  /**
+   * For a test that needs nothing but n and the moment summary (the moment
+   * tests): the result from those alone, as a query engine gives them from
+   * its sums over every value; the same as `runPrepared` on a sample with
+   * that n and summary. Absent for a test that needs the values in order.
+   */
+  readonly fromShape?: (n: number, shape: _Shape) => TestResult;
 }
 
 /**
@@ -115,10 +122,12 @@ export const NORMALITY_TESTS: readonly NormalityTest[] = Object.freeze([
     name: "D'Agostino–Pearson",
     run: dagostinoPearson,
     runPrepared: (s: PreparedSample) => _dagostinoPearsonOf(s.n, s.shape),
+    fromShape: _dagostinoPearsonOf,
   }),
   Object.freeze({
     name: "Jarque–Bera",
     run: jarqueBera,
     runPrepared: (s: PreparedSample) => _jarqueBeraOf(s.n, s.shape),
+    fromShape: _jarqueBeraOf,
   }),
 ]);
