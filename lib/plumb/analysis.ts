@@ -1,23 +1,23 @@
 /**
- * The full screening of one sample: moments, every normality test that
- * applies at this n, the QQ data with its envelope, the histogram, and the
- * reading. Plain data, computed once per chain and cached there.
+ * The full screening of one sample held in memory: moments, every normality
+ * test that applies at this n, the QQ data with its envelope, the histogram,
+ * and the reading. Plain data, computed once per chain and cached there.
+ * This file validates the values and answers from one sorted copy; the
+ * screening is put together from those answers by `screenFromAnswers`
+ * (`screening.ts`), as for a column scanned through SQL.
  *
  * @module
  */
 import { PlumbError } from "../errors.ts";
-import { randomSubsample } from "../numeric/random.ts";
-import { sortedCopy, sortFloat64 } from "../numeric/sort.ts";
+import { selectFromSorted } from "../numeric/select.ts";
+import { sortedCopy } from "../numeric/sort.ts";
 import { checkFinite, checkSize } from "../stats/_input.ts";
-import { NORMALITY_TESTS, prepareSample } from "../stats/battery.ts";
-import type { DagostinoPearsonResult } from "../stats/dagostino_pearson.ts";
+import { prepareSample } from "../stats/battery.ts";
 import { _histogramDataSorted } from "../stats/histogram_data.ts";
-import { _momentsOf, _sampleShape } from "../stats/moments.ts";
-import { _qqDataSorted, type QqOptions } from "../stats/qq_data.ts";
-import type { TestResult } from "../stats/result.ts";
-import { SHAPIRO_WILK_MAX_N } from "../stats/shapiro_wilk.ts";
-import type { Analysis, SampleOrigin, Subsample, TestOutcome } from "../results/analysis.ts";
-import { readShape } from "./reading.ts";
+import { _sampleShape } from "../stats/moments.ts";
+import type { QqOptions } from "../stats/qq_data.ts";
+import type { Analysis, SampleOrigin } from "../results/analysis.ts";
+import { screenFromAnswers } from "./screening.ts";
 import { cardBundle, cardCharts } from "../render/card.ts";
 import type { MimeBundle } from "../results/display.ts";
 
@@ -65,18 +65,6 @@ export const ANALYSE_MIN_N = 4;
 /** The name input errors give, as `moments()` would (the first step of the analysis). */
 const _MOMENTS = "the skewness and kurtosis summary";
 
-/** Run one test; a sample too small or too large for it gives a skipped outcome with the reason. */
-export function _runTest(name: string, f: () => TestResult): TestOutcome {
-  try {
-    return Object.freeze({ test: name, result: f() });
-  } catch (e) {
-    if (e instanceof PlumbError && (e.code === "too-few" || e.code === "too-many")) {
-      return Object.freeze({ test: name, skipped: e.message });
-    }
-    throw e;
-  }
-}
-
 /**
  * Screen one sample for normality: every test, the QQ data, the histogram
  * and the reading.
@@ -113,87 +101,24 @@ export function analyse(
   checkSize(n, ANALYSE_MIN_N, Number.POSITIVE_INFINITY, _MOMENTS);
   checkFinite(values, _MOMENTS);
   const shape = _sampleShape(values, _MOMENTS);
-  const m = _momentsOf(n, shape);
   const sorted = sortedCopy(values);
-  const prepared = prepareSample(values, sorted, shape);
-  // The battery's first test, Shapiro–Wilk, is the primary one.
-  const [first, ...others] = NORMALITY_TESTS;
-  let primary: TestResult;
-  let subsample: Subsample | null = null;
-  let subSorted: Float64Array | undefined;
-  if (n > SHAPIRO_WILK_MAX_N) {
-    subsample = Object.freeze({ size: SHAPIRO_WILK_MAX_N, seed: options.seed ?? 1 });
-    // Sorted once here: the test runs on it, and so do the σ estimates behind W.
-    subSorted = sortFloat64(randomSubsample(values, subsample.size, subsample.seed));
-    const sub = first.run(subSorted);
-    primary = Object.freeze({
-      ...sub,
-      method: `${sub.method}, on a seeded random subsample of ${subsample.size} of the ${n} values`,
-      warnings: Object.freeze([
-        `Shapiro–Wilk's p-value is calibrated for at most ${SHAPIRO_WILK_MAX_N} values, so W and p ` +
-        `come from a seeded random subsample of ${subsample.size}; the other tests use all ${n}`,
-        ...sub.warnings,
-      ]),
-    });
-  } else {
-    primary = first.runPrepared(prepared);
-  }
-  const tests: TestOutcome[] = [
-    Object.freeze({ test: first.name, result: primary }),
-    ...others.map((t) => _runTest(t.name, () => t.runPrepared(prepared))),
-  ];
-  const own = options.rowLabel
-    ? _qqDataSorted(values, sorted, shape, { ...options.qq }, options.rowLabel)
-    : _qqDataSorted(
-      values,
-      sorted,
+  return screenFromAnswers(
+    {
+      n,
       shape,
-      origin.rows ? { ...options.qq, rows: origin.rows } : { ...options.qq },
-    );
-  const qq = options.envelope ? withEnvelope(own, options.envelope(own.rank)) : own;
-  const histogram = _histogramDataSorted(
-    values,
-    sorted,
-    shape,
-    options.step !== undefined ? { step: options.step } : {},
+      orderStatistics: (ranks) => selectFromSorted(values, sorted, ranks),
+      histogram: () =>
+        _histogramDataSorted(
+          values,
+          sorted,
+          shape,
+          options.step !== undefined ? { step: options.step } : {},
+        ),
+      values: { every: prepareSample(values, sorted, shape), seed: options.seed ?? 1 },
+    },
+    origin,
+    options,
   );
-  const k2 = tests.find((t) => t.test === "D'Agostino–Pearson")?.result as
-    | DagostinoPearsonResult
-    | undefined;
-  const reading = readShape({
-    n,
-    moments: m,
-    primary,
-    dagostino: k2,
-    qq,
-    sortedSample: sorted,
-    values,
-    rows: origin.rows,
-    rowLabel: options.rowLabel,
-    step: options.step,
-    subsample,
-    subsampleSorted: subSorted,
-  });
-  const notes = origin.notes ?? [];
-  return Object.freeze({
-    // No notes key when there are none, so that analyses compare equal however made.
-    origin: Object.freeze({
-      ...origin,
-      rows: undefined,
-      notes: undefined,
-      ...(notes.length ? { notes } : {}),
-    }),
-    n,
-    moments: m,
-    primary,
-    subsample,
-    tests: Object.freeze(tests),
-    qq,
-    histogram,
-    reading: notes.length
-      ? Object.freeze({ ...reading, points: Object.freeze([...notes, ...reading.points]) })
-      : reading,
-  });
 }
 
 /**
@@ -262,34 +187,4 @@ export function checkScreenable(
  */
 export async function cardOf(a: Analysis, label: string): Promise<MimeBundle> {
   return cardBundle(a, await cardCharts(a, label));
-}
-
-/**
- * The QQ data with another envelope at the same ranks (e.g. the simulated
- * envelope of studentised residuals), its exits counted again.
- *
- * @example
- * ```ts
- * import { withEnvelope } from "./analysis.ts";
- * import { qqData } from "@plumbline/plumbline";
- * const q = withEnvelope(qqData([1, 2, 3, 4, 9]), { lower: [0, 0, 0, 0, 0], upper: [5, 5, 5, 5, 5], method: "fixed" });
- * if (q.outsideCount !== 1 || q.envelopeMethod !== "fixed") throw new Error("envelope");
- * ```
- */
-export function withEnvelope(
-  qq: Analysis["qq"],
-  env: { readonly lower: readonly number[]; readonly upper: readonly number[]; method: string },
-): Analysis["qq"] {
-  const outside = qq.value.map((v, k): -1 | 0 | 1 =>
-    v < env.lower[k] ? -1 : v > env.upper[k] ? 1 : 0
-  );
-  return Object.freeze({
-    ...qq,
-    envelope: "pointwise" as const,
-    envelopeMethod: env.method,
-    lower: Object.freeze([...env.lower]),
-    upper: Object.freeze([...env.upper]),
-    outside: Object.freeze(outside),
-    outsideCount: outside.filter((o) => o !== 0).length,
-  });
 }

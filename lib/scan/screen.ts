@@ -7,7 +7,7 @@
  * @module
  */
 import type { Analysis, Subsample, TestOutcome } from "../results/analysis.ts";
-import { _runTest } from "../plumb/analysis.ts";
+import { _runTest } from "../plumb/screening.ts";
 import { readShape } from "../plumb/reading.ts";
 import { _fitLambda } from "../reexpress/_fit.ts";
 import { _boxCoxProfile } from "../reexpress/_profile.ts";

@@ -19,11 +19,11 @@
  */
 import { PlumbError } from "../errors.ts";
 import { checkOptions, optionNames } from "../results/options.ts";
-import { type Selected, selectFromSorted, selectRanks } from "../numeric/select.ts";
+import { type Selected, selectRanks } from "../numeric/select.ts";
 import { thinRanks } from "../numeric/thin_ranks.ts";
 import { checkNotConstant, checkSize, checkSpreadFinite, finiteCopy } from "./_input.ts";
 import { normalEnvelope } from "./envelope.ts";
-import { _sampleShape, type _Shape } from "./moments.ts";
+import { _sampleShape } from "./moments.ts";
 import { BLOM_OFFSET, normalScores } from "./plotting_positions.ts";
 
 /** Options for {@linkcode qqData}. */
@@ -167,35 +167,6 @@ export function qqData(x: ArrayLike<number>, options: QqOptions | null = {}): Qq
   const { mean, sd, min, max } = _moments(data);
   checkNotConstant(Float64Array.of(min, max), what, data.length);
   return _qqBuild(data.length, mean, sd, options, (ranks) => selectRanks(data, ranks));
-}
-
-/**
- * {@linkcode qqData} for a sample whose sorted copy and
- * {@linkcode _sampleShape} the caller already holds: `values` in their
- * original order (finite, not constant; they give each point its row) and
- * `sorted` the same values ascending. Gives the same result as
- * `qqData(values, options)` without copying or sorting the sample again.
- * `rowLabel`, when given, labels the point at a 0-based position in
- * `values` in place of `options.rows`, and is asked only for the points kept.
- */
-export function _qqDataSorted(
-  values: Float64Array,
-  sorted: Float64Array,
-  shape: _Shape,
-  options: QqOptions = {},
-  rowLabel?: (position: number) => number,
-): QqData {
-  const what = "a QQ plot";
-  checkSize(values.length, 3, Infinity, what);
-  checkSpreadFinite(shape.sd, what);
-  return _qqBuild(
-    values.length,
-    shape.mean,
-    shape.sd,
-    rowLabel ? { ...options, rows: undefined } : options,
-    (ranks) => selectFromSorted(values, sorted, ranks),
-    rowLabel,
-  );
 }
 
 /**
