@@ -2,27 +2,22 @@
  * The full screening of one column through the SQL engine: counts, moments,
  * K² and Jarque–Bera from the cells; the order-statistic tests on the seeded
  * sample; the QQ plot from exact order statistics; the histogram; the
- * Box–Cox λ with its interval; the reading. Private to `lib/scan`.
+ * Box–Cox λ with its interval; the reading. The passes here answer the
+ * aggregates; the tests, QQ data, reading and `Analysis` are put together by
+ * `screenFromAnswers` (`lib/plumb/screening.ts`), the same code as in
+ * memory. Private to `lib/scan`.
  *
  * @module
  */
-import type { Analysis, Subsample, TestOutcome } from "../results/analysis.ts";
-import { _runTest } from "../plumb/screening.ts";
-import { readShape } from "../plumb/reading.ts";
+import type { Analysis } from "../results/analysis.ts";
+import { screenFromAnswers } from "../plumb/screening.ts";
 import { _fitLambda } from "../reexpress/_fit.ts";
 import { _boxCoxProfile } from "../reexpress/_profile.ts";
 import type { LambdaFit } from "../reexpress/lambda_fit.ts";
-import { andersonDarling } from "../stats/anderson_darling.ts";
-import { _dagostinoPearsonOf, type DagostinoPearsonResult } from "../stats/dagostino_pearson.ts";
 import { _histogramFinish } from "../stats/histogram_layout.ts";
-import { _jarqueBeraOf } from "../stats/jarque_bera.ts";
-import { lilliefors } from "../stats/lilliefors.ts";
-import { _momentsOf, type _Shape } from "../stats/moments.ts";
-import { _qqBuild, type QqOptions } from "../stats/qq_data.ts";
+import type { _Shape } from "../stats/moments.ts";
+import type { QqOptions } from "../stats/qq_data.ts";
 import { thinRanks } from "../numeric/thin_ranks.ts";
-import type { TestResult } from "../stats/result.ts";
-import { shapiroFrancia } from "../stats/shapiro_francia.ts";
-import { shapiroWilk } from "../stats/shapiro_wilk.ts";
 import { sortFloat64 } from "../numeric/sort.ts";
 import { cellShape } from "./cells.ts";
 import { cellBoxCoxProfile, seriesHolds } from "./log_profile.ts";
@@ -98,15 +93,6 @@ export interface ColumnCounts {
   readonly hi: number;
 }
 
-/** The note every sampled result carries. */
-function _sampleNote(size: number, n: number): string {
-  return size < n
-    ? `Shapiro–Wilk, Shapiro–Francia, Anderson–Darling and Lilliefors use a seeded random ` +
-      `subsample of ${size} of the ${n} values (drawn by the SQL engine); the moments, ` +
-      `D'Agostino–Pearson, Jarque–Bera, the QQ plot and the histogram use all ${n}`
-    : `every test uses all ${n} values`;
-}
-
 /** What the reading says when the QQ values and bin counts come from the cells. */
 function _cellsNote(read: OrderStatisticsRead, n: number, sd: number): string {
   const off = read.maxValueError;
@@ -159,27 +145,6 @@ export async function screenColumn(
     ? await _readExact(input)
     : await _readFromCells(input);
 
-  const m = _momentsOf(n, shape);
-  const note = _sampleNote(sample.length, n);
-  const sampled = (f: (x: Float64Array) => TestResult) => (): TestResult => {
-    const r = f(sorted);
-    return sample.length < n
-      ? Object.freeze({ ...r, warnings: Object.freeze([note, ...r.warnings]) })
-      : r;
-  };
-  const primary = sampled(shapiroWilk)();
-  const tests: TestOutcome[] = [
-    Object.freeze({ test: "Shapiro–Wilk", result: primary }),
-    _runTest("Shapiro–Francia", sampled(shapiroFrancia)),
-    _runTest("Anderson–Darling", sampled(andersonDarling)),
-    _runTest("Lilliefors", sampled(lilliefors)),
-    _runTest("D'Agostino–Pearson", () => _dagostinoPearsonOf(n, shape)),
-    _runTest("Jarque–Bera", () => _jarqueBeraOf(n, shape)),
-  ];
-  const qq = _qqBuild(n, shape.mean, shape.sd, options.qq, (rs) => ({
-    value: Float64Array.from(rs, (r) => valueAt.get(r)!),
-    row: new Int32Array(rs.length).fill(-1),
-  }));
   const histogram = _histogramFinish(layout, binCounts, n, shape.mean, shape.sd);
 
   let boxCox: LambdaFit | { skipped: string };
@@ -195,26 +160,19 @@ export async function screenColumn(
     boxCox = _fitLambda(profile, _boxCoxProfile(sorted), {}, "a Box–Cox fit");
     fitSeconds = +(q.engine.elapsed() - t0).toFixed(3);
   }
-  const k2 = tests[4].result as DagostinoPearsonResult | undefined;
-  const subsample: Subsample | null = sample.length < n
-    ? Object.freeze({ size: sample.length, seed: options.seed })
-    : null;
-  const reading = readShape({
-    n,
-    moments: m,
-    primary,
-    dagostino: k2,
-    qq,
-    values: sorted,
-    sortedSample: sorted,
-    // The engine hands over values without their source rows.
-    rows: new Int32Array(sorted.length).fill(-1),
-    subsample,
-    subsampleSorted: subsample ? sorted : undefined,
-  });
   const notes = read.exact ? [] : [_cellsNote(read, n, shape.sd)];
-  const analysis: ScanAnalysis = Object.freeze({
-    origin: Object.freeze({
+  const screened = screenFromAnswers(
+    {
+      n,
+      shape,
+      orderStatistics: (rs) => ({
+        value: Float64Array.from(rs, (r) => valueAt.get(r)!),
+        row: new Int32Array(rs.length).fill(-1),
+      }),
+      histogram: () => histogram,
+      values: { sample: sorted, seed: options.seed, drawnBy: "the SQL engine" },
+    },
+    {
       label: label.label,
       column: label.column,
       ...(label.group === undefined ? {} : { group: label.group }),
@@ -222,17 +180,11 @@ export async function screenColumn(
       missingDropped: counts.missing,
       textDropped: counts.text,
       ...(notes.length ? { notes: Object.freeze(notes) } : {}),
-    }),
-    n,
-    moments: m,
-    primary,
-    subsample,
-    tests: Object.freeze(tests),
-    qq,
-    histogram,
-    reading: notes.length
-      ? Object.freeze({ ...reading, points: Object.freeze([...notes, ...reading.points]) })
-      : reading,
+    },
+    { qq: options.qq },
+  );
+  const analysis: ScanAnalysis = Object.freeze({
+    ...screened,
     sample: Object.freeze({
       size: sample.length,
       seed: options.seed,
