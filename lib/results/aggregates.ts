@@ -10,6 +10,16 @@
  * written once against this interface run on both
  * (`tests/scan/aggregates_test.ts`).
  *
+ * The screening is put together once from these answers:
+ * `screenFromAnswers` (`lib/plumb/screening.ts`) takes n, the shape, the
+ * order statistics at ranks, the histogram counted by the source and the
+ * sorted sample, and decides which test runs on what, builds the QQ data
+ * and the reading and assembles the `Analysis`. The in-memory `analyse`
+ * answers from its one sorted copy, the scanned screening
+ * (`lib/scan/screen.ts`) from one cell pass and one gather that answer the
+ * ranks, edges and log sums together; neither goes through one call per
+ * answer, which in the engine would cost a pass each.
+ *
  * Every answer is exact or states its error: order statistics and counts
  * below an edge are exact; central moments come from compensated central
  * sums (never raw power sums, which lose every digit on x + 1e6); the
