@@ -263,7 +263,7 @@ export {
   ScanSource,
 } from "./lib/scan/scan.ts";
 export type { ScanAnalysis, ScanSample } from "./lib/scan/screen.ts";
-export type { OrderStatisticsRead } from "./lib/scan/order_read.ts";
+export type { ScanPrecision } from "./lib/scan/order_read.ts";
 export type { EngineOptions, Pass, ScanProgress } from "./lib/scan/engine.ts";
 
 // What the departure changes downstream

@@ -33,8 +33,13 @@ export interface Cell {
   readonly value?: number;
   /** The cell's centre c (exact). */
   readonly centre: number;
-  /** Σe, Σe², Σe³, Σe⁴ of e = v − c. */
+  /** Σe, Σe², Σe³, Σe⁴ of e = v − c (Σe³ and Σe⁴ estimated when `slack` is given). */
   readonly s: readonly [number, number, number, number];
+  /**
+   * When the pass left out Σe³ and Σe⁴: how far the estimates in `s` can
+   * be from the true sums (see {@linkcode higherSums}).
+   */
+  readonly slack?: readonly [number, number];
   /** The grid the cell belongs to (its index in the scan's list of grids). */
   readonly grid: number;
   /** The cell's key in its grid, ⌊(v − lo)/w⌋. */
@@ -55,6 +60,59 @@ export class _Sum {
   value(): number {
     return this.#s + this.#c;
   }
+}
+
+/**
+ * Σe³ and Σe⁴ of a cell from its count m and Σe, Σe² alone, in units of
+ * the cell's width (so −½ ≤ e < ½), with bounds on their error. Every
+ * offset has |e| ≤ ½, so |Σe³| ≤ Σe²/2 and Σe⁴ ≤ Σe²/4, and Σe⁴ ≥ (Σe²)²/m
+ * (Cauchy–Schwarz). The estimates are those of a density that is linear
+ * across the cell, exact for values spread evenly over it (Σe³ = 0.15·Σe,
+ * Σe⁴ = 1.8·(Σe²)²/m, from the moments of a linear density on [−½, ½]:
+ * E e = b/12, E e³ = b/80, E e² = 1/12, E e⁴ = 1/80), held within the
+ * bounds; the errors stated are the distances to the far ends of the
+ * bounds, whatever the values in the cell are.
+ */
+export function higherSums(
+  m: number,
+  s1: number,
+  s2: number,
+): { s3: number; s4: number; slack3: number; slack4: number } {
+  const s3 = Math.min(s2 / 2, Math.max(-s2 / 2, 0.15 * s1));
+  const floor4 = (s2 * s2) / m;
+  const s4 = Math.min(s2 / 4, Math.max(floor4, 1.8 * floor4));
+  return { s3, s4, slack3: s2 / 2 + Math.abs(s3), slack4: Math.max(s2 / 4 - s4, s4 - floor4) };
+}
+
+/**
+ * How far g1 and g2 from {@linkcode cellShape} can be from those of the
+ * values, when some cells' Σe³ and Σe⁴ were estimated: the bounds on the
+ * sums carried through the central sums (Σ(v − x̄)³ takes each cell's Σe³
+ * once; Σ(v − x̄)⁴ takes 4·|c − x̄|·Σe³ and Σe⁴), then divided as g1 and g2
+ * are. Both 0 when every cell's sums were computed.
+ */
+export function cellShapeSlack(
+  cells: readonly Cell[],
+  shape: _Shape,
+): { readonly g1: number; readonly g2: number } {
+  let n = 0;
+  let d3 = 0;
+  let d4 = 0;
+  for (const c of cells) {
+    n += c.n;
+    if (c.slack === undefined) continue;
+    // Deviations are taken about the centre c0 the sums were combined at.
+    const d = Math.abs(c.centre - shape.centreHi);
+    d3 += c.slack[0];
+    d4 += 4 * d * c.slack[0] + c.slack[1];
+  }
+  // Folding the residual δ back takes 4·δ·Σ(v − c0)³ from the fourth sum.
+  d4 += 4 * Math.abs(shape.centreLo) * d3;
+  if (d3 === 0 && d4 === 0) return { g1: 0, g2: 0 };
+  const m2 = (shape.sd * shape.sd * (n - 1)) / n;
+  // Rounded up a little, so that rounding in these few operations cannot understate them.
+  const up = 1 + 1e-12;
+  return { g1: (up * d3) / n / (m2 * Math.sqrt(m2)), g2: (up * d4) / n / (m2 * m2) };
 }
 
 /**
@@ -115,4 +173,21 @@ export function gridFor(a: number, b: number, target: number): { lo: number; w: 
   const floorExp = big > 0 ? Math.ceil(Math.log2(big)) - 50 : -1074;
   const w = 2 ** Math.max(floorExp, Math.floor(Math.log2(span / target)));
   return { lo: Math.floor(a / w) * w, w };
+}
+
+/** A cell found to hold the one value `a`: its estimated higher sums become exact. */
+export function oneValueCell(c: Cell, a: number): Cell {
+  if (c.slack === undefined) return Object.freeze({ ...c, lo: a, hi: a, value: a });
+  const e = a - c.centre;
+  const s = Object.freeze([c.s[0], c.s[1], c.n * e * e * e, c.n * e * e * e * e] as const);
+  return Object.freeze({
+    n: c.n,
+    lo: a,
+    hi: a,
+    value: a,
+    centre: c.centre,
+    s,
+    grid: c.grid,
+    key: c.key,
+  });
 }

@@ -110,9 +110,7 @@ export async function _screen(
       seed: o.seed ?? 1,
       qq: o.qq ?? {},
       boxCox: o.boxCox ?? true,
-      ...(o.exactOrderStatistics === undefined
-        ? {}
-        : { exactOrderStatistics: o.exactOrderStatistics }),
+      ...(o.exact === undefined ? {} : { exact: o.exact }),
     },
   );
 }

@@ -27,20 +27,30 @@ import { seriesHolds } from "./log_profile.ts";
 import { type CellSummary, type ColumnQuery, gather } from "./select.ts";
 import { histogramSql } from "./sql.ts";
 
-/** Above this many values, a screening reads its order statistics from the cells by default. */
-export const EXACT_ORDER_STATISTICS_MAX = 10_000_000;
+/** Above this many values, a screening reads from the cells alone by default. */
+export const EXACT_MAX_VALUES = 10_000_000;
 
-/** How exact the QQ values and the histogram counts are. */
-export interface OrderStatisticsRead {
-  /** Every QQ value is the exact order statistic and every bin count exact. */
+/** How exact a scanned screening's QQ values, bin counts, skewness and kurtosis are. */
+export interface ScanPrecision {
+  /** Every QQ value, bin count and moment is exact (computed from every value). */
   readonly exact: boolean;
   /** The largest possible distance between a QQ value and the exact order statistic (0 when exact). */
   readonly maxValueError: number;
   /** The largest possible difference between a bin count and the exact count (0 when exact). */
   readonly maxCountError: number;
+  /** The largest possible difference between the skewness G1's g1 and the exact one (0 when exact). */
+  readonly maxSkewnessError: number;
+  /** The largest possible difference between the excess kurtosis g2 and the exact one (0 when exact). */
+  readonly maxKurtosisError: number;
   /** Cells the values were counted in, over all grids. */
   readonly cells: number;
 }
+
+/** How exact the QQ values and bin counts are (the moments' part is the screening's). */
+export type _OrderPrecision = Pick<
+  ScanPrecision,
+  "exact" | "maxValueError" | "maxCountError" | "cells"
+>;
 
 /** What a reader hands back to the screening. */
 export interface _OrderRead {
@@ -53,7 +63,7 @@ export interface _OrderRead {
   /** The raw values of the cells the log series cannot sum (when the logs are wanted). */
   readonly raw: Float64Array;
   /** How exact the values and counts are. */
-  readonly read: OrderStatisticsRead;
+  readonly read: _OrderPrecision;
 }
 
 /** What both readers take. */

@@ -49,15 +49,13 @@ export interface ScanOptions extends Omit<EngineOptions, "onProgress"> {
    */
   readonly qq?: QqOptions;
   /**
-   * Exact QQ values and histogram counts (`true`: one more pass over the
-   * values, about half the cost of the rest at 1e8 values), or read from the
-   * cells every screening counts (`false`: each QQ value within its cell's
-   * width of the exact order statistic, and each bin count within the count
-   * of the cells its edges cut; both bounds stated in `orderStatistics` and
-   * in the reading). Moments, tests and λ are the same either way.
-   * @default exact up to 10,000,000 values, from the cells above
+   * The exact screening (`true`: one more pass, and Σe³, Σe⁴ summed in each
+   * cell), or the lighter one (`false`: QQ values, bin counts, skewness and
+   * kurtosis from the cells, within bounds stated in `precision` and first
+   * in the reading; the sampled tests are the same).
+   * @default exact up to 10,000,000 values, the lighter one above
    */
-  readonly exactOrderStatistics?: boolean;
+  readonly exact?: boolean;
   /**
    * Progress for scans longer than about two seconds: `true` shows it (a
    * line that updates in a notebook, on standard error in a terminal),

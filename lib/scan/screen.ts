@@ -19,7 +19,7 @@ import type { _Shape } from "../stats/moments.ts";
 import type { QqOptions } from "../stats/qq_data.ts";
 import { thinRanks } from "../numeric/thin_ranks.ts";
 import { sortFloat64 } from "../numeric/sort.ts";
-import { cellShape } from "./cells.ts";
+import { cellShape, cellShapeSlack } from "./cells.ts";
 import { cellBoxCoxProfile, seriesHolds } from "./log_profile.ts";
 import { type ColumnQuery, summarise } from "./select.ts";
 import { sampleSql } from "./sql.ts";
@@ -29,8 +29,8 @@ import {
   _quartileRanks,
   _readExact,
   _readFromCells,
-  EXACT_ORDER_STATISTICS_MAX,
-  type OrderStatisticsRead,
+  EXACT_MAX_VALUES,
+  type ScanPrecision,
 } from "./order_read.ts";
 import type { Pass } from "./engine.ts";
 
@@ -58,10 +58,11 @@ export interface ScanAnalysis extends Analysis {
     readonly nonFinite: number;
   };
   /**
-   * Whether the QQ values and histogram counts are exact, or read from the
-   * cells of the one pass, and then how far off they can be.
+   * Whether the QQ values, histogram counts, skewness and kurtosis are
+   * exact, or read from the cells of the one pass, and then how far off
+   * they can be.
    */
-  readonly orderStatistics: OrderStatisticsRead;
+  readonly precision: ScanPrecision;
   /** Every query run, in order: what it computes, its SQL text and its seconds. */
   readonly passes: readonly Pass[];
   /** Seconds the Box–Cox fit took in JavaScript (NaN when not fitted). */
@@ -75,11 +76,12 @@ export interface ScreenOptions {
   readonly qq: QqOptions;
   readonly boxCox: boolean;
   /**
-   * Exact QQ values and bin counts (one more pass), or read from the cells
-   * with a stated error; by default exact up to
-   * {@linkcode EXACT_ORDER_STATISTICS_MAX} values.
+   * Exact QQ values, bin counts, skewness and kurtosis (one more pass, and
+   * two more sums in the cell pass), or read from the cells with stated
+   * errors; by default exact up to
+   * {@linkcode EXACT_MAX_VALUES} values.
    */
-  readonly exactOrderStatistics?: boolean;
+  readonly exact?: boolean;
 }
 
 /** What the count pass found. */
@@ -93,15 +95,16 @@ export interface ColumnCounts {
   readonly hi: number;
 }
 
-/** What the reading says when the QQ values and bin counts come from the cells. */
-function _cellsNote(read: OrderStatisticsRead, n: number, sd: number): string {
-  const off = read.maxValueError;
-  return `The QQ values and histogram counts come from ${formatCount(read.cells)} cells ` +
-    `counted in one pass over the ${formatCount(n)} values, not from a sort: each QQ value is ` +
-    `within ${formatCompact(off, 2)} (${formatCompact(off / sd, 2)} sd) of the exact order ` +
-    `statistic and each bin count within ${formatCount(read.maxCountError)} of the exact count; ` +
-    `the moments and every test are unaffected (pass { exactOrderStatistics: true } to scan() ` +
-    `for exact ones, at the cost of one more pass)`;
+/** What the reading says when the screening comes from the cells alone. */
+function _cellsNote(p: ScanPrecision, n: number, sd: number): string {
+  const off = p.maxValueError;
+  const g = (x: number) => (x < 1e-15 ? "1e−15" : formatCompact(x, 1));
+  return `Read from ${formatCount(p.cells)} cells counted in one pass over the ${formatCount(n)} ` +
+    `values, not from a sort: each QQ value is within ${formatCompact(off, 2)} ` +
+    `(${formatCompact(off / sd, 2)} sd) of the exact order statistic, each bin count within ` +
+    `${formatCount(p.maxCountError)}, the skewness within ${g(p.maxSkewnessError)} and the ` +
+    `kurtosis within ${g(p.maxKurtosisError)}, far inside their sampling error; ` +
+    `pass { exact: true } to scan() for exact ones, at the cost of one more pass`;
 }
 
 /** A screening and the sorted seeded sample its order-statistic tests used. */
@@ -134,12 +137,14 @@ export async function screenColumn(
   const quart = _quartileRanks(n);
   const ranks = [...new Set([...kept, ...quart])].sort((a, b) => a - b);
   const logs = options.boxCox && lo > 0;
-  const exact = options.exactOrderStatistics ?? n <= EXACT_ORDER_STATISTICS_MAX;
+  const exact = options.exact ?? n <= EXACT_MAX_VALUES;
   // Without a gather, a value piled up often enough to change the histogram's
   // rule must be found by splitting its cell.
   const crowded = exact ? Infinity : Math.ceil(PILE_UP_SHARE * n);
-  const summary = await summarise(q, lo, hi, ranks, logs, crowded);
+  // Without the exact pass, the cells leave out Σe³ and Σe⁴ too (estimated within bounds).
+  const summary = await summarise(q, lo, hi, ranks, logs, crowded, exact ? 4 : 2);
   const shape: _Shape = cellShape(summary.cells);
+  const slack = cellShapeSlack(summary.cells, shape);
   const input = { q, summary, ranks, n, lo, hi, shape, logs };
   const { valueAt, layout, binCounts, raw, read } = exact
     ? await _readExact(input)
@@ -160,7 +165,12 @@ export async function screenColumn(
     boxCox = _fitLambda(profile, _boxCoxProfile(sorted), {}, "a Box–Cox fit");
     fitSeconds = +(q.engine.elapsed() - t0).toFixed(3);
   }
-  const notes = read.exact ? [] : [_cellsNote(read, n, shape.sd)];
+  const precision: ScanPrecision = Object.freeze({
+    ...read,
+    maxSkewnessError: slack.g1,
+    maxKurtosisError: slack.g2,
+  });
+  const notes = read.exact ? [] : [_cellsNote(precision, n, shape.sd)];
   const screened = screenFromAnswers(
     {
       n,
@@ -197,7 +207,7 @@ export async function screenColumn(
       text: counts.text,
       nonFinite: counts.nonFinite,
     }),
-    orderStatistics: read,
+    precision,
     passes: Object.freeze(q.engine.log()),
     fitSeconds,
   });

@@ -16,7 +16,7 @@
  * @module
  */
 import type { _Engine } from "./engine.ts";
-import { type Cell, gridFor, locateRanks } from "./cells.ts";
+import { type Cell, gridFor, higherSums, locateRanks, oneValueCell } from "./cells.ts";
 import { seriesHolds } from "./log_profile.ts";
 import { type CellGrid, cellsSql, gatherSql, probeSql, type Values } from "./sql.ts";
 import { sortFloat64 } from "../numeric/sort.ts";
@@ -53,12 +53,13 @@ async function _cellPass(
   a: number,
   b: number,
   step: string,
+  sums: 2 | 4,
 ): Promise<Cell[]> {
   const { lo, w } = gridFor(a, b, CELLS);
   const grid: CellGrid = { a, b, lo, w };
   const g = grids.length;
   grids.push(grid);
-  const rows = await q.engine.rows(cellsSql(q, grid, g === 0), step, q.subject);
+  const rows = await q.engine.rows(cellsSql(q, grid, g === 0, sums), step, q.subject);
   return rows.map((r) => {
     const key = r[0] as number;
     // Bounds from the grid: floor((v − lo)/w) = key puts v in [lo + key·w, lo + (key + 1)·w)
@@ -68,6 +69,9 @@ async function _cellPass(
     const margin = 4 * Number.EPSILON * Math.max(Math.abs(left), Math.abs(right), Math.abs(lo));
     // The engine sums offsets in cell widths; w is a power of two, so scaling back is exact.
     const w2 = w * w;
+    const [s1, s2] = [r[2] as number, r[3] as number];
+    // Without Σe³ and Σe⁴ from the engine, their estimates and bounds (in cell widths).
+    const est = sums === 2 ? higherSums(r[1] as number, s1, s2) : undefined;
     return Object.freeze({
       n: r[1] as number,
       lo: Math.max(a, left - margin),
@@ -75,12 +79,15 @@ async function _cellPass(
       centre: lo + (key + 0.5) * w,
       s: Object.freeze(
         [
-          (r[2] as number) * w,
-          (r[3] as number) * w2,
-          (r[4] as number) * w2 * w,
-          (r[5] as number) * w2 * w2,
+          s1 * w,
+          s2 * w2,
+          (est ? est.s3 : r[4] as number) * w2 * w,
+          (est ? est.s4 : r[5] as number) * w2 * w2,
         ] as [number, number, number, number],
       ),
+      ...(est
+        ? { slack: Object.freeze([est.slack3 * w2 * w, est.slack4 * w2 * w2] as const) }
+        : {}),
       grid: g,
       key,
     });
@@ -110,7 +117,8 @@ async function _probe(
  * wanted rank sits in a cell of at most `PICK_MAX` values, (when `logs`)
  * the cells the log series cannot sum hold at most `RAW_MAX` values, and
  * no cell of more than one value holds `crowded` values or more (so that a
- * value piled up that often is found without a gather).
+ * value piled up that often is found without a gather). `sums`: 2 when the
+ * cell passes leave out Σe³ and Σe⁴ (estimated within bounds, `cells.ts`).
  */
 export async function summarise(
   q: ColumnQuery,
@@ -119,9 +127,10 @@ export async function summarise(
   ranks: readonly number[],
   logs: boolean,
   crowded = Infinity,
+  sums: 2 | 4 = 4,
 ): Promise<CellSummary> {
   const grids: CellGrid[] = [];
-  let cells = await _cellPass(q, grids, lo, hi, "summing the values by cells");
+  let cells = await _cellPass(q, grids, lo, hi, "summing the values by cells", sums);
   let passes = 1;
   for (let round = 0; round < REFINE_PASSES; round++) {
     const runs: [number, number][] = [];
@@ -167,9 +176,11 @@ export async function summarise(
       for (let k = at; k < i; k++) next.push(cells[k]);
       const a = ends.get(i)![0];
       const b = ends.get(j)![1];
-      if (i === j && a === b) next.push(Object.freeze({ ...cells[i], lo: a, hi: b, value: a }));
+      if (i === j && a === b) next.push(oneValueCell(cells[i], a));
       else {
-        for (const c of await _cellPass(q, grids, a, b, "splitting crowded cells")) next.push(c);
+        for (const c of await _cellPass(q, grids, a, b, "splitting crowded cells", sums)) {
+          next.push(c);
+        }
         passes++;
       }
       at = j + 1;
