@@ -163,3 +163,27 @@ function _checkRange(subject: string, n: number, lo: number, hi: number): void {
     );
   }
 }
+
+/**
+ * Refuse a sample size or seed the sampled tests cannot use: Shapiro–Wilk's
+ * p-value is calibrated for 3 to 5000 values (Royston 1995), and the
+ * engine's repeatable sample takes a whole, non-negative seed.
+ */
+export function _checkSampleOptions(o: { sampleSize?: number; seed?: number }): void {
+  const size = o.sampleSize;
+  if (size !== undefined && !(Number.isInteger(size) && size >= 3 && size <= 5000)) {
+    throw new PlumbError(
+      "bad-option",
+      `Cannot draw a sample of ${size} for the order-statistic tests: give a whole number from 3 ` +
+        `to 5000 (Shapiro–Wilk's p-value is calibrated for at most 5000 values); the moments, ` +
+        `QQ plot and histogram use every value whatever the sample size`,
+    );
+  }
+  const seed = o.seed;
+  if (seed !== undefined && !(Number.isInteger(seed) && seed >= 0)) {
+    throw new PlumbError(
+      "bad-option",
+      `Cannot seed the sample with ${seed}: give a whole number of 0 or more`,
+    );
+  }
+}

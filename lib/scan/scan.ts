@@ -12,7 +12,7 @@ import type { QqOptions } from "../stats/qq_data.ts";
 import { QUERY_SOURCE, type QueryEngine, type QuerySource } from "../results/query_source.ts";
 import type { _Engine, EngineOptions } from "./engine.ts";
 import type { ScanAnalysis } from "./screen.ts";
-import { _columnQuery, _pick, _screen } from "./column.ts";
+import { _checkSampleOptions, _columnQuery, _pick, _screen } from "./column.ts";
 import { _describe, _openEngine, scanQueryEngine } from "./query_engine.ts";
 import { scanAggregates } from "./scan_aggregates.ts";
 import type { ColumnAggregates } from "../results/aggregates.ts";
@@ -23,7 +23,7 @@ import { _relation, _relationIsQuery } from "./relation.ts";
 export interface ScanOptions extends Omit<EngineOptions, "onProgress"> {
   /**
    * Size of the seeded sample for Shapiro–Wilk, Shapiro–Francia,
-   * Anderson–Darling and Lilliefors.
+   * Anderson–Darling and Lilliefors (3 to 5000).
    * @default 5000
    */
   readonly sampleSize?: number;
@@ -294,5 +294,6 @@ export function scan(pathOrSql: string, options: ScanOptions = {}): ScanSource {
       "Cannot scan an empty source: give a Parquet or CSV path, or an SQL query",
     );
   }
+  _checkSampleOptions(options);
   return new ScanSource(pathOrSql, options);
 }

@@ -144,3 +144,25 @@ catch (e) { console.log(e.code, e.message); }`;
     /unavailable Cannot start DuckDB for a scan: .*; run with --allow-ffi \(or -A\)/,
   );
 });
+
+Deno.test("scan: a sample size or seed the sampled tests cannot use is refused up front", () => {
+  const sql = "SELECT i AS x FROM range(100000) t(i)";
+  for (const sampleSize of [6000, 2, 2.5, Number.NaN]) {
+    assert.throws(
+      () => scan(sql, { sampleSize }),
+      (e: PlumbError) =>
+        e.code === "bad-option" &&
+        e.message.includes(`sample of ${sampleSize}`) && e.message.includes("from 3 to 5000"),
+    );
+  }
+  for (const seed of [-1, 0.5]) {
+    assert.throws(
+      () => scan(sql, { seed }),
+      (e: PlumbError) =>
+        e.code === "bad-option" && e.message.includes(`seed the sample with ${seed}`),
+    );
+  }
+  // The limits themselves are accepted.
+  scan(sql, { sampleSize: 5000, seed: 0 });
+  scan(sql, { sampleSize: 3 });
+});
