@@ -144,8 +144,9 @@ export function cardBundle(
   const html = [
     `<div class="plumbline-card" style="font-family:sans-serif;max-width:940px;border:1px solid #bbb;` +
     `border-radius:6px;padding:10px 14px;background:#ffffff;color:#111111">`,
-    `<div><span style="font-size:16px;font-weight:bold">${escapeHtml(a.origin.label)}</span>` +
-    `<span style="color:#555;font-size:88%;margin-left:10px">${
+    // A space between the name and the counts: a viewer that strips styles keeps it.
+    `<div><span style="font-size:16px;font-weight:bold">${escapeHtml(a.origin.label)}</span> ` +
+    `<span style="color:#555;font-size:88%;margin-left:6px">${
       escapeHtml(countsLine(a))
     }</span></div>`,
     `<div style="margin:8px 0;padding:6px 12px;border-left:7px solid ${colour};background:#f5f5f5">` +
