@@ -51,7 +51,7 @@ export interface ScanOptions extends Omit<EngineOptions, "onProgress"> {
   /**
    * The exact screening (`true`: one more pass, and Σe³, Σe⁴ summed in each
    * cell), or the lighter one (`false`: QQ values, bin counts, skewness and
-   * kurtosis from the cells, within bounds stated in `precision` and first
+   * kurtosis from the cells, within bounds stated in `precision` and last
    * in the reading; the sampled tests are the same).
    * @default exact up to 10,000,000 values, the lighter one above
    */

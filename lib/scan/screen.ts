@@ -15,7 +15,7 @@ import { _fitLambda } from "../reexpress/_fit.ts";
 import { _boxCoxProfile } from "../reexpress/_profile.ts";
 import type { LambdaFit } from "../reexpress/lambda_fit.ts";
 import { _histogramFinish } from "../stats/histogram_layout.ts";
-import type { _Shape } from "../stats/moments.ts";
+import { _momentsOf, type _Shape } from "../stats/moments.ts";
 import type { QqOptions } from "../stats/qq_data.ts";
 import { thinRanks } from "../numeric/thin_ranks.ts";
 import { sortFloat64 } from "../numeric/sort.ts";
@@ -96,15 +96,25 @@ export interface ColumnCounts {
 }
 
 /** What the reading says when the screening comes from the cells alone. */
-function _cellsNote(p: ScanPrecision, n: number, sd: number): string {
+function _cellsNote(
+  p: ScanPrecision,
+  n: number,
+  m: { sd: number; seG1: number; seG2: number },
+): string {
   const off = p.maxValueError;
+  const sd = m.sd;
+  // Bounds far below the standard errors change nothing a reader weighs; otherwise say so.
+  const small = p.maxSkewnessError < 0.01 * m.seG1 && p.maxKurtosisError < 0.01 * m.seG2;
   const g = (x: number) => (x < 1e-15 ? "1e−15" : formatCompact(x, 1));
-  return `Read from ${formatCount(p.cells)} cells counted in one pass over the ${formatCount(n)} ` +
-    `values, not from a sort: each QQ value is within ${formatCompact(off, 2)} ` +
-    `(${formatCompact(off / sd, 2)} sd) of the exact order statistic, each bin count within ` +
-    `${formatCount(p.maxCountError)}, the skewness within ${g(p.maxSkewnessError)} and the ` +
-    `kurtosis within ${g(p.maxKurtosisError)}, far inside their sampling error; ` +
-    `pass { exact: true } to scan() for exact ones, at the cost of one more pass`;
+  return `The QQ values, bin counts, skewness and kurtosis come from ${formatCount(p.cells)} ` +
+    `cells counted in one pass over the ${formatCount(n)} values, not from a sort: each QQ value ` +
+    `within ${formatCompact(off, 2)} (${formatCompact(off / sd, 2)} sd) of the exact order ` +
+    `statistic, each bin count within ${formatCount(p.maxCountError)}, the skewness within ` +
+    `${g(p.maxSkewnessError)} and the kurtosis within ${g(p.maxKurtosisError)}` +
+    (small
+      ? ", far inside their sampling error"
+      : "; weigh these bounds against the standard errors") +
+    ` (the exact screening: scan(…, { exact: true }))`;
 }
 
 /** A screening and the sorted seeded sample its order-statistic tests used. */
@@ -170,7 +180,8 @@ export async function screenColumn(
     maxSkewnessError: slack.g1,
     maxKurtosisError: slack.g2,
   });
-  const notes = read.exact ? [] : [_cellsNote(precision, n, shape.sd)];
+  // Said last among the reading's points: how the figures were read, not what they show.
+  const said = read.exact ? undefined : _cellsNote(precision, n, _momentsOf(n, shape));
   const screened = screenFromAnswers(
     {
       n,
@@ -189,12 +200,17 @@ export async function screenColumn(
       ...(label.transform === undefined ? {} : { transform: label.transform }),
       missingDropped: counts.missing,
       textDropped: counts.text,
-      ...(notes.length ? { notes: Object.freeze(notes) } : {}),
     },
     { qq: options.qq },
   );
   const analysis: ScanAnalysis = Object.freeze({
     ...screened,
+    ...(said === undefined ? {} : {
+      reading: Object.freeze({
+        ...screened.reading,
+        points: Object.freeze([...screened.reading.points, said]),
+      }),
+    }),
     sample: Object.freeze({
       size: sample.length,
       seed: options.seed,

@@ -305,7 +305,7 @@ NOTEBOOKS = {
         ("md", "## The lighter screening, for hundreds of millions of rows\n\nAbove 10 million values a scan "
          "reads the QQ values, the histogram counts, the skewness and the kurtosis from its one pass over "
          "the cells, instead of a second pass and two more sums per cell: about half the work. Each is then "
-         "within a bound the scan computes and states, in `precision` and as the reading's first point; "
+         "within a bound the scan computes and states, in `precision` and as the reading's last point; "
          "the sampled tests are the same. `exact: false` asks for it here, on the million values, to show "
          "what it says (`exact: true` asks for the exact screening at any size)."),
         ("code", 'const light = await scan(path, { progress: false, exact: false }).analyse("fill_ml");\n'
@@ -317,7 +317,7 @@ NOTEBOOKS = {
                  '  binCountWithin: p.maxCountError,\n'
                  '  skewnessWithin: +p.maxSkewnessError.toPrecision(1),\n'
                  '  kurtosisWithin: +p.maxKurtosisError.toPrecision(1),\n'
-                 '  firstPoint: light.reading.points[0],\n'
+                 '  readingSays: light.reading.points.at(-1),\n'
                  '});'),
         ("code", "await Deno.remove(dir, { recursive: true });"),
     ],
