@@ -78,6 +78,8 @@ export interface _ReadInput {
   readonly shape: _Shape;
   /** Whether the Box–Cox log series is wanted (positive values, λ asked for). */
   readonly logs: boolean;
+  /** The measurement step every value sits on (`null`: none), for bins at half-steps. */
+  readonly step: number | null;
 }
 
 /** The type-7 quantile (Hyndman & Fan 1996) from the values at its two neighbouring ranks. */
@@ -97,7 +99,7 @@ function _singleValued(cells: readonly Cell[]): number {
 
 /** The bins for the final quartiles and pile-up share. */
 function _layout(x: _ReadInput, iqr: () => number, tie: () => number): _HistogramLayout {
-  return _histogramLayout(x.n, x.lo, x.hi, x.shape.sd, {}, iqr, null, tie);
+  return _histogramLayout(x.n, x.lo, x.hi, x.shape.sd, {}, iqr, x.step, tie);
 }
 
 /** Exact order statistics and counts: one gather pass (and a counting pass when the bins move). */
@@ -113,7 +115,7 @@ export async function _readExact(x: _ReadInput): Promise<_OrderRead> {
   const span = (j: number) => cells[places[j].cell];
   const iqrMin = span(2).lo - span(1).hi;
   const iqrMax = span(3).hi - span(0).lo;
-  const layoutAt = (iqr: number) => _histogramLayout(n, lo, hi, shape.sd, {}, () => iqr);
+  const layoutAt = (iqr: number) => _histogramLayout(n, lo, hi, shape.sd, {}, () => iqr, x.step);
   const [wide, narrow] = [layoutAt(iqrMax), layoutAt(Math.max(iqrMin, 0))];
   const known = iqrMin > 0 && wide.k === narrow.k && wide.rule === narrow.rule;
   const edges = known ? wide.edges.slice(1, -1) : [];

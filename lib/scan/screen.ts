@@ -22,7 +22,8 @@ import { sortFloat64 } from "../numeric/sort.ts";
 import { cellShape, cellShapeSlack } from "./cells.ts";
 import { cellBoxCoxProfile, seriesHolds } from "./log_profile.ts";
 import { type ColumnQuery, summarise } from "./select.ts";
-import { sampleSql } from "./sql.ts";
+import { offGridSql, sampleSql } from "./sql.ts";
+import { _measurementStepSorted, _refine } from "../stats/measurement_step.ts";
 import { PILE_UP_SHARE } from "../stats/histogram_bins.ts";
 import { formatCompact, formatCount } from "../results/format.ts";
 import {
@@ -117,6 +118,48 @@ function _cellsNote(
     ` (the exact screening: scan(…, { exact: true }))`;
 }
 
+/**
+ * The measurement step every value sits on, or `null`: found on the seeded
+ * sample as in memory (`stats/measurement_step.ts`), refined over the whole
+ * range, then checked over every value by one counting pass (run only when
+ * the sample shows a step, so continuous data pay nothing).
+ */
+async function _stepOf(
+  q: ColumnQuery,
+  sorted: Float64Array,
+  n: number,
+  lo: number,
+  hi: number,
+): Promise<number | null> {
+  if (sorted.length < 2 || sorted[0] === sorted[sorted.length - 1]) return null;
+  let values = sorted;
+  // A few values off the sample's grid may sit on a finer one (a reading to 0.01 among
+  // readings to 0.1): they join the sample and the step is sought again, twice at most.
+  for (let round = 0; round < 3; round++) {
+    const h0 = _measurementStepSorted(values).step;
+    if (h0 === null) return null;
+    const h = _refine(h0, hi - lo);
+    if (sorted.length === n) return h;
+    // The sample's own tolerance: a gap within 1e-3 of a step plus a few ulps of the magnitude.
+    const tol = 1e-3 * h + 64 * Number.EPSILON * Math.max(Math.abs(lo), Math.abs(hi));
+    const more = await q.engine.doubles(
+      offGridSql(q, lo, h, tol, _OFF_GRID_MAX + 1),
+      "checking the measurement step",
+      q.subject,
+    );
+    if (more.length === 0) return h;
+    if (more.length > _OFF_GRID_MAX || round === 2) return null;
+    const joined = new Float64Array(values.length + more.length);
+    joined.set(values);
+    joined.set(more, values.length);
+    values = sortFloat64(joined);
+  }
+  return null;
+}
+
+/** At most this many values off a step found on the sample are read to seek a finer one. */
+const _OFF_GRID_MAX = 10_000;
+
 /** A screening and the sorted seeded sample its order-statistic tests used. */
 export interface Screened {
   readonly analysis: ScanAnalysis;
@@ -155,7 +198,8 @@ export async function screenColumn(
   const summary = await summarise(q, lo, hi, ranks, logs, crowded, exact ? 4 : 2);
   const shape: _Shape = cellShape(summary.cells);
   const slack = cellShapeSlack(summary.cells, shape);
-  const input = { q, summary, ranks, n, lo, hi, shape, logs };
+  const step = await _stepOf(q, sorted, n, lo, hi);
+  const input = { q, summary, ranks, n, lo, hi, shape, logs, step };
   const { valueAt, layout, binCounts, raw, read } = exact
     ? await _readExact(input)
     : await _readFromCells(input);
@@ -201,7 +245,7 @@ export async function screenColumn(
       missingDropped: counts.missing,
       textDropped: counts.text,
     },
-    { qq: options.qq },
+    { qq: options.qq, step },
   );
   const analysis: ScanAnalysis = Object.freeze({
     ...screened,

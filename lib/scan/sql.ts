@@ -300,6 +300,16 @@ function _finiteValues(src: Values, where: string[] = []): string {
     `${cond.length ? ` WHERE ${cond.join(" AND ")}` : ""}) AS s1`;
 }
 
+/**
+ * Up to `limit` of the finite values off the grid origin + k·step by more
+ * than `tol` (none: every value sits on the step found on the sample).
+ */
+export function offGridSql(src: Values, origin: number, step: number, tol: number, limit: number) {
+  const d = `(v - ${num(origin)})`;
+  return `SELECT v FROM ${_finiteValues(src)} ` +
+    `WHERE abs(${d} - round(${d} / ${num(step)}) * ${num(step)}) > ${num(tol)} LIMIT ${limit}`;
+}
+
 /** The seeded sample of finite values. */
 export function sampleSql(src: Values, size: number, seed: number): string {
   // Sampling the source itself lets the engine draw while it reads.

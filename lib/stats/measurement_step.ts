@@ -103,8 +103,9 @@ export function _measurementStepSorted(s: Float64Array): MeasurementStep {
 /**
  * The step from the whole range (which spans many steps, so rounding in one
  * gap matters less), shown as a short decimal when one lies within 1e-9 of it.
+ * (Exported for a step found on a sample and refined over every value's range.)
  */
-function _refine(h: number, range: number): number {
+export function _refine(h: number, range: number): number {
   const precise = range / Math.round(range / h);
   const short = Number(precise.toPrecision(10));
   return Math.abs(short - precise) <= 1e-9 * precise ? short : precise;

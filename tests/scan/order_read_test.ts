@@ -164,3 +164,63 @@ Deno.test("scanned histograms follow the pile-up rule as in memory", async () =>
     await Deno.remove(dir, { recursive: true });
   }
 });
+
+/** Values recorded to 0.1 (with `odd`, when given, one value off that grid), written by DuckDB. */
+async function writeRounded(
+  dir: string,
+  n: number,
+  odd: number | null,
+): Promise<{ path: string; values: Float64Array }> {
+  const path = `${dir}/rounded_${odd}.parquet`;
+  const inst = await DuckDBInstance.create(":memory:");
+  const con = await inst.connect();
+  const u = (k: number) => `((hash(i + ${k}) % 2147483629) + 0.5) / 2147483629.0`;
+  const z = `sqrt(-2 * ln(${u(0)})) * cos(2 * pi() * ${u(99)})`;
+  try {
+    await con.run(
+      `COPY (SELECT CASE WHEN ${odd !== null} AND i = 777 THEN ${odd ?? 0} ` +
+        `ELSE round(10 + 0.8 * ${z}, 1) END ` +
+        `AS x FROM range(${n}) t(i)) TO '${path}' (FORMAT parquet)`,
+    );
+    const r = await con.runAndReadAll(`SELECT x FROM read_parquet('${path}')`);
+    return { path, values: Float64Array.from(r.getColumns()[0] as number[]) };
+  } finally {
+    con.closeSync();
+    inst.closeSync();
+  }
+}
+
+Deno.test("scanned histograms follow the measurement step, found on the sample and checked on every value", async () => {
+  const dir = await Deno.makeTempDir();
+  try {
+    // On 0.1; one reading to 0.01 among them (the step becomes 0.01, in memory and here); one
+    // value on no grid (no step).
+    for (const [odd, step] of [[null, 0.1], [10.03, 0.01], [10.0314159265, null]] as const) {
+      const { path, values } = await writeRounded(dir, 100_000, odd);
+      const mem = analyse(values, { label: "x", column: "x", missingDropped: 0, textDropped: 0 });
+      const a = await scan(path, quiet).analyse("x");
+      assert.ok(a.passes.some((p) => p.step === "checking the measurement step"));
+      assert.equal(a.histogram.step, mem.histogram.step, `odd ${odd}`);
+      assert.equal(a.histogram.step, step);
+      assert.deepEqual(a.histogram.edges, mem.histogram.edges);
+      assert.deepEqual(a.histogram.counts, mem.histogram.counts);
+      assert.equal(a.histogram.ruleNote, mem.histogram.ruleNote);
+      // The reading speaks of the same recording step (its other figures come from the sample).
+      const stepWords = (points: readonly string[]) => points.filter((t) => /step/i.test(t));
+      assert.deepEqual(
+        stepWords(a.reading.points).map((t) => t.split(":")[0]),
+        stepWords(mem.reading.points).map((t) => t.split(":")[0]),
+      );
+      // The value off the sample's grid is read, and the step sought again with it.
+      const checks = a.passes.filter((p) => p.step === "checking the measurement step").length;
+      assert.equal(checks, odd === null ? 1 : odd === 10.03 ? 2 : 1);
+    }
+    // Continuous values pay nothing for it.
+    const { path } = await writeShape(dir, "lognormal", 50_000);
+    const c = await scan(path, quiet).analyse("x");
+    assert.ok(!c.passes.some((p) => p.step === "checking the measurement step"));
+    assert.equal(c.histogram.step, null);
+  } finally {
+    await Deno.remove(dir, { recursive: true });
+  }
+});
