@@ -23,7 +23,7 @@
  *
  * @module
  */
-import { parseNumber } from "./number_parse.ts";
+import { numberPatternSource, parseNumber } from "./number_parse.ts";
 
 /** A censored cell's side: −1 below the limit (left-censored), +1 above it (right-censored). */
 export type CensorSide = -1 | 1;
@@ -50,9 +50,48 @@ export interface ParseCensoredOptions {
   readonly thousands?: string;
 }
 
-const _BELOW = ["<=", "≤", "≦", "<", "＜"];
-const _ABOVE = [">=", "≥", "≧", ">", "＞"];
+/** The signs of a left-censored cell (`<0.5`), longest first where one starts another. */
+export const BELOW_SIGNS: readonly string[] = Object.freeze(["<=", "≤", "≦", "<", "＜"]);
+/** The signs of a right-censored cell (`>1000`), longest first where one starts another. */
+export const ABOVE_SIGNS: readonly string[] = Object.freeze([">=", "≥", "≧", ">", "＞"]);
+const _BELOW = BELOW_SIGNS;
+const _ABOVE = ABOVE_SIGNS;
 const _SIGN_STARTS = "<≤≦＜>≥≧＞";
+
+/**
+ * The characters `String.prototype.trim` removes (ECMAScript's WhiteSpace
+ * and LineTerminator), written out so that a pattern handed to another
+ * regular-expression engine strips exactly the same ones.
+ */
+const _TRIMMED = "\t\n\v\f\r \u00a0\u1680\u2000-\u200a\u2028\u2029\u202f\u205f\u3000\ufeff";
+
+/**
+ * The censored cells of one side as a regular expression's source, to be
+ * matched against the whole cell (anchors are the caller's): spaces, a sign
+ * of that side, spaces, a number (its digits in the one capturing group),
+ * spaces. It is built from {@linkcode BELOW_SIGNS}, {@linkcode ABOVE_SIGNS}
+ * and the number grammar of `number_parse.ts`, with literal characters and
+ * syntax that JavaScript and RE2 (DuckDB's `regexp_full_match`) read alike,
+ * so that a scan counts the cells {@linkcode parseCensored} reads as
+ * censored. One difference is left to the caller: a number that overflows
+ * (`<1e999`) matches the pattern but is not a limit, so the captured number
+ * must also be checked to be finite.
+ *
+ * @param side −1 for the cells below a limit, +1 above
+ * @param decimal the decimal mark of the number
+ * @example
+ * ```ts
+ * import { censoredPatternSource } from "./censored_cell.ts";
+ * const below = new RegExp(`^${censoredPatternSource(-1)}$`);
+ * if (below.exec(" <= 0.5")?.[1] !== "0.5" || below.test(">3")) throw new Error("unexpected");
+ * ```
+ */
+export function censoredPatternSource(side: CensorSide, decimal: "." | "," = "."): string {
+  const signs = (side === -1 ? BELOW_SIGNS : ABOVE_SIGNS)
+    .map((s) => s.replace(/[.*+?^${}()|[\]\\-]/g, "\\$&")).join("|");
+  const ws = `[${_TRIMMED}]*`;
+  return `${ws}(?:${signs})${ws}(${numberPatternSource(decimal)})${ws}`;
+}
 
 /**
  * Read a cell such as `<0.5` or `> 1000` as a censored value.

@@ -46,16 +46,36 @@ function _escape(c: string): string {
   return c.replace(/[.*+?^${}()|[\]\\-]/g, "\\$&");
 }
 
+/**
+ * The grammar of a number as a regular expression's source, without anchors
+ * or capturing groups: an optional sign, digits with an optional decimal
+ * mark, an optional exponent. It uses only syntax that JavaScript and RE2
+ * (the regular expressions of DuckDB and several other SQL engines) read
+ * alike, so that a query can match the same cells as this module.
+ *
+ * @param decimal the decimal mark
+ * @param thousands a thousands separator to accept, if any
+ * @example
+ * ```ts
+ * import { numberPatternSource } from "./number_parse.ts";
+ * const re = new RegExp(`^${numberPatternSource(".")}$`);
+ * if (!re.test("-1.5e3") || re.test("12abc")) throw new Error("unexpected");
+ * ```
+ */
+export function numberPatternSource(decimal: "." | ",", thousands?: string): string {
+  const d = _escape(decimal);
+  const int = thousands === undefined
+    ? "\\d+"
+    : `(?:\\d{1,3}(?:${_escape(thousands)}\\d{3})+|\\d+)`;
+  return `[+-]?(?:${int}(?:${d}\\d*)?|${d}\\d+)(?:[eE][+-]?\\d+)?`;
+}
+
 /** The full-match pattern for one (decimal, thousands) pair, cached. */
 function _pattern(decimal: string, thousands: string | undefined): RegExp {
   const key = decimal + "\u0000" + (thousands ?? "");
   let re = _patterns.get(key);
   if (re === undefined) {
-    const d = _escape(decimal);
-    const int = thousands === undefined
-      ? "\\d+"
-      : `(?:\\d{1,3}(?:${_escape(thousands)}\\d{3})+|\\d+)`;
-    re = new RegExp(`^[+-]?(?:${int}(?:${d}\\d*)?|${d}\\d+)(?:[eE][+-]?\\d+)?$`);
+    re = new RegExp(`^${numberPatternSource(decimal as "." | ",", thousands)}$`);
     _patterns.set(key, re);
   }
   return re;
