@@ -132,5 +132,15 @@ export function _why(e: Error, n: number): string {
   if (e instanceof PlumbError && e.code === "too-few") {
     return `only ${n} value${n === 1 ? "" : "s"}; at least 4 are needed`;
   }
+  if (e instanceof PlumbError && e.code === "censored") {
+    const d = e.detail as { below: number; above: number };
+    const sides = [
+      ...(d.below > 0 ? [`${d.below} below a limit`] : []),
+      ...(d.above > 0 ? [`${d.above} above one`] : []),
+    ].join(", ");
+    return `${d.below + d.above} censored cells (${sides}): the screening through SQL cannot ` +
+      `take them yet, and leaving them out would bias it; load the column into memory, where ` +
+      `plumb(table, column) runs the censored analysis`;
+  }
   return e.message;
 }

@@ -46,8 +46,17 @@ export interface QueryCounts {
   readonly rows: number;
   /** Empty cells. */
   readonly missing: number;
-  /** Cells that are not empty and do not read as numbers (0 for a numeric column). */
+  /**
+   * Cells that are not empty and read neither as numbers nor as censored
+   * values (0 for a numeric column).
+   */
   readonly text: number;
+  /**
+   * Cells that read as censored values, as in memory (`<0.5` below a limit,
+   * `>100` above one; 0 for a numeric column). An engine that cannot tell
+   * them from text counts them in `text` and gives 0 here.
+   */
+  readonly censored?: { readonly below: number; readonly above: number };
   /** The smallest and largest value of a numeric column with one at least (absent for text). */
   readonly range?: readonly [min: number, max: number];
 }

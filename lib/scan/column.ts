@@ -10,7 +10,8 @@ import type { _Engine } from "./engine.ts";
 import type { ScanOptions } from "./scan.ts";
 import { type ColumnCounts, screenColumn, type Screened } from "./screen.ts";
 import type { ColumnQuery } from "./select.ts";
-import { cellExpr, countsSql, DUCKDB, quickCountsSql, textCellsSql, valueExpr } from "./sql.ts";
+import { cellExpr, DUCKDB, valueExpr } from "./sql.ts";
+import { censoredLimitsSql, countsSql, quickCountsSql, textCellsSql } from "./sql_counts.ts";
 
 export const _NUMERIC =
   /^(TINYINT|SMALLINT|INTEGER|BIGINT|HUGEINT|UTINYINT|USMALLINT|UINTEGER|UBIGINT|UHUGEINT|FLOAT|DOUBLE|REAL|DECIMAL.*)$/i;
@@ -49,13 +50,21 @@ export async function _columnQuery(
     ? [[]]
     : await engine.rows(quickCountsSql(relation, name, v), "counting", subject);
   if (textual || !(Number.isFinite(c[4]) && Number.isFinite(c[5]))) {
-    [c] = await engine.rows(countsSql(DUCKDB, relation, cell, v), "counting", subject);
+    [c] = await engine.rows(
+      countsSql(DUCKDB, relation, cell, v, textual),
+      "counting",
+      subject,
+    );
   }
   const [rows, present, numeric, nonFinite] = c as number[];
+  const [below, above] = [c[6], c[7]] as number[];
+  if (below + above > 0) {
+    await _refuseCensored(engine, relation, cell, v, subject, { present, below, above }, o);
+  }
   const text = present - numeric;
   if (text > 0 && !o.dropText) {
     const shown = await engine.rows(
-      textCellsSql(relation, cell, v, 5),
+      textCellsSql(DUCKDB, relation, cell, v, 5),
       "finding text",
       subject,
     );
@@ -74,6 +83,52 @@ export async function _columnQuery(
   const keep = nonFinite > 0 ? "finite" : numeric < rows ? "present" : "all";
   const q: ColumnQuery = { engine, dialect: DUCKDB, relation, v, subject, keep };
   return { q, counts: { rows, missing: rows - present, text, nonFinite, n, lo, hi } };
+}
+
+/**
+ * Refuse a column with censored cells (`<0.5`, `>100`), whatever
+ * `dropText` says: the screening through SQL reads measured values only,
+ * and leaving out the cells below a limit (the smallest values) would bias
+ * every result, so the message names the cells, their commonest limits and
+ * the in-memory chain, which runs the censored analysis.
+ */
+async function _refuseCensored(
+  engine: _Engine,
+  relation: string,
+  cell: string,
+  v: string,
+  subject: string,
+  n: { present: number; below: number; above: number },
+  o: ScanOptions,
+): Promise<never> {
+  const rows = await engine.rows(
+    censoredLimitsSql(DUCKDB, relation, cell, v, 6),
+    "finding the limits",
+    subject,
+  );
+  const limits = rows.slice(0, 5).map(([side, limit, cells]) => ({
+    side: Number(side) as -1 | 1,
+    limit: Number(limit),
+    cells: Number(cells),
+  }));
+  const shown = limits.map((l) => `${l.side === -1 ? "<" : ">"}${l.limit} (${l.cells})`)
+    .join(", ") + (rows.length > 5 ? ", …" : "");
+  const sides = [
+    ...(n.below > 0 ? [`${n.below} below a limit`] : []),
+    ...(n.above > 0 ? [`${n.above} above one`] : []),
+  ].join(", ");
+  throw new PlumbError(
+    "censored",
+    `Cannot screen ${subject}: ${n.below + n.above} of ${n.present} cells are censored ` +
+      `(${sides}; limits with their cells: ${shown}), and the screening through SQL cannot ` +
+      `take censored values yet: leaving them out would bias every result (the cells below a ` +
+      `limit hold the smallest values)${
+        o.dropText ? ", and { dropText: true } leaves out stray text, not censored cells" : ""
+      }; load the column into memory, where plumb(table, column) runs the censored analysis ` +
+      `(loadTable(path) for a file that fits, or a sample of its rows written to a file ` +
+      `through an SQL query)`,
+    { below: n.below, above: n.above, limits },
+  );
 }
 
 /** Screen `name` of `relation` (its columns `cols` known) with one engine. */

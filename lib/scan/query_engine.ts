@@ -103,12 +103,16 @@ export function scanQueryEngine(relation: string, name: string, options: ScanOpt
         );
         const rows = Number(r[0]);
         return which.map((c, i) => {
-          const [present, numeric, lo, hi] = r.slice(1 + 4 * i, 5 + 4 * i);
+          const [present, numeric, lo, hi, below, above] = r.slice(1 + 6 * i, 7 + 6 * i).map((
+            x,
+          ) => (x === null ? null : Number(x)));
+          const censored = Object.freeze({ below: below!, above: above! });
           return Object.freeze({
             column: c.name,
             rows,
-            missing: rows - Number(present),
-            text: c.textual ? Number(present) - Number(numeric) : 0,
+            missing: rows - present!,
+            text: c.textual ? present! - numeric! - below! - above! : 0,
+            censored,
             ...(lo === null || hi === null
               ? {}
               : { range: Object.freeze([Number(lo), Number(hi)] as const) }),
@@ -266,7 +270,7 @@ function _groupOf(cols: readonly { name: string; type: string }[], by: string): 
   return groupExpr(by, /^VARCHAR$/i.test(cols.find((c) => c.name === by)!.type));
 }
 
-const _REFUSALS = new Set(["too-few", "constant", "non-numeric", "bad-option"]);
+const _REFUSALS = new Set(["too-few", "constant", "non-numeric", "bad-option", "censored"]);
 
 function _known(cols: readonly { name: string }[], column: string, name: string): void {
   if (cols.some((c) => c.name === column)) return;

@@ -14,6 +14,10 @@
  *   +Infinity in DuckDB, so range comparisons cannot exclude it);
  * - reading text as numbers: `TRY_CAST(c AS DOUBLE)` (DuckDB, Trino,
  *   Snowflake, Spark 3.2+; `SAFE_CAST` in BigQuery);
+ * - regular expressions, for censored cells (`<0.5`): DuckDB's
+ *   `regexp_full_match` and `regexp_extract` (RE2 syntax; Trino spells them
+ *   `regexp_like` with anchors and `regexp_extract`, Spark `rlike` and
+ *   `regexp_extract`);
  * - row order, for telling a row number from a measurement: DuckDB keeps
  *   the order in which it reads one source (files in name order, rows in
  *   file order) through a window with an empty `OVER ()` clause, so
@@ -51,6 +55,10 @@ export interface Dialect {
   readonly rowNumber: string;
   /** The value of `v` on the row above, in the source's own order (NULL on the first row). */
   previous(v: string): string;
+  /** A predicate true when the whole of text `t` matches the (RE2) pattern literal `p`. */
+  fullMatch(t: string, p: string): string;
+  /** The text of capturing group `g` of pattern literal `p` in text `t`. */
+  capture(t: string, p: string, g: number): string;
 }
 
 /** DuckDB's spelling. */
@@ -62,6 +70,8 @@ export const DUCKDB: Dialect = Object.freeze({
   tryDouble: (c: string) => `TRY_CAST(${c} AS DOUBLE)`,
   rowNumber: "row_number() OVER ()",
   previous: (v: string) => `lag(${v}) OVER ()`,
+  fullMatch: (t: string, p: string) => `regexp_full_match(${t}, ${p})`,
+  capture: (t: string, p: string, g: number) => `regexp_extract(${t}, ${p}, ${g})`,
 });
 
 /** `"name"` with inner quotes doubled. */
@@ -169,32 +179,6 @@ export function reexpressedSql(v: string, r: SqlReexpression): string {
 }
 
 /**
- * Pass 0: rows, present cells (of the cell expression `cell`, see
- * {@linkcode cellExpr}), numbers, non-finite numbers, and the finite range.
- * For a text column, `present − numeric` cells hold text.
- */
-export function countsSql(dialect: Dialect, relation: string, cell: string, v: string): string {
-  const f = dialect.finite("v");
-  return `SELECT CAST(count(*) AS DOUBLE) AS total, CAST(count(c) AS DOUBLE) AS present, ` +
-    `CAST(count(v) AS DOUBLE) AS numeric, ` +
-    `CAST(count(*) FILTER (WHERE v IS NOT NULL AND NOT ${f}) AS DOUBLE) AS nonfinite, ` +
-    `min(v) FILTER (WHERE ${f}) AS lo, max(v) FILTER (WHERE ${f}) AS hi ` +
-    `FROM (SELECT ${cell} AS c, ${v} AS v FROM ${relation}) AS s`;
-}
-
-/**
- * Pass 0 without filters: rows, present cells, numbers and the range. On a
- * Parquet file DuckDB answers it from the file's statistics without reading
- * the data; when the range is finite there is no NaN or ±Infinity (NaN
- * sorts above +Infinity in DuckDB), and {@linkcode countsSql} is not needed.
- */
-export function quickCountsSql(relation: string, column: string, v: string): string {
-  return `SELECT CAST(count(*) AS DOUBLE) AS total, CAST(count(c) AS DOUBLE) AS present, ` +
-    `CAST(count(v) AS DOUBLE) AS numeric, 0.0 AS nonfinite, min(v) AS lo, max(v) AS hi ` +
-    `FROM (SELECT ${quoteIdent(column)} AS c, ${v} AS v FROM ${relation}) AS s`;
-}
-
-/**
  * A group column's cells as text: NULL for empty cells and, in a text
  * column, for missing-value tokens (see {@linkcode cellExpr}), so that such
  * rows belong to no group, as in memory.
@@ -261,16 +245,6 @@ export function residualRelation(
     `FROM (SELECT ${g} AS g, ${v} AS v FROM ${relation}) AS s ` +
     `JOIN (VALUES ${rows}) AS m(g, mu) ON s.g = m.g ` +
     `WHERE s.v IS NOT NULL AND ${dialect.finite("s.v")}) AS res`;
-}
-
-/**
- * A few cells of a text column (its cell expression `cell`, see
- * {@linkcode cellExpr}) that are not numbers, for the error message.
- */
-export function textCellsSql(relation: string, cell: string, v: string, limit: number): string {
-  const c = cell;
-  return `SELECT CAST(${c} AS VARCHAR) FROM ${relation} ` +
-    `WHERE ${c} IS NOT NULL AND ${v} IS NULL LIMIT ${limit}`;
 }
 
 /** The column analysed: where it comes from and which rows hold finite numbers. */

@@ -7,13 +7,16 @@
  * @module
  */
 import { cellExpr, type Dialect, valueExpr } from "./sql.ts";
+import { censoredSideExpr } from "./sql_counts.ts";
 
 /**
  * One pass over several columns: rows, and for each column its present
- * cells and (`textual`) those that read as finite numbers, so that columns not
- * screened still report what they hold; for a column of numbers (`numeric`),
- * its smallest and largest value too (from a Parquet file's statistics when
- * the engine can). Columns: `total`, then `p<i>`, `q<i>`, `lo<i>`, `hi<i>`.
+ * cells and (`textual`) those that read as finite numbers and those that
+ * are censored below and above a limit (see `censoredSideExpr`), so that
+ * columns not screened still report what they hold; for a column of
+ * numbers (`numeric`), its smallest and largest value too (from a Parquet
+ * file's statistics when the engine can). Columns: `total`, then `p<i>`,
+ * `q<i>`, `lo<i>`, `hi<i>`, `l<i>`, `r<i>`.
  */
 export function presenceSql(
   dialect: Dialect,
@@ -26,11 +29,18 @@ export function presenceSql(
 ): string {
   const parts = columns.map((c, i) => {
     const q = cellExpr(c.name, c.textual);
-    const numeric = c.textual ? `count(${valueExpr(dialect, c.name, true, 1)})` : `count(${q})`;
+    const v = valueExpr(dialect, c.name, true, 1);
+    const numeric = c.textual ? `count(${v})` : `count(${q})`;
+    const side = censoredSideExpr(dialect, q, v);
+    const censored = !c.textual
+      ? `0.0 AS l${i}, 0.0 AS r${i}`
+      : `CAST(count(*) FILTER (WHERE ${side} = -1) AS DOUBLE) AS l${i}, ` +
+        `CAST(count(*) FILTER (WHERE ${side} = 1) AS DOUBLE) AS r${i}`;
     const range = !c.numeric
       ? `NULL AS lo${i}, NULL AS hi${i}`
       : `CAST(min(${q}) AS DOUBLE) AS lo${i}, CAST(max(${q}) AS DOUBLE) AS hi${i}`;
-    return `CAST(count(${q}) AS DOUBLE) AS p${i}, CAST(${numeric} AS DOUBLE) AS q${i}, ${range}`;
+    return `CAST(count(${q}) AS DOUBLE) AS p${i}, CAST(${numeric} AS DOUBLE) AS q${i}, ` +
+      `${range}, ${censored}`;
   });
   return `SELECT CAST(count(*) AS DOUBLE) AS total${
     parts.map((x) => `, ${x}`).join("")
