@@ -319,6 +319,29 @@ NOTEBOOKS = {
                  '  kurtosisWithin: +p.maxKurtosisError.toPrecision(1),\n'
                  '  readingSays: light.reading.points.at(-1),\n'
                  '});'),
+        ("md", "## Values below a detection limit\n\nA laboratory reports a result under its detection "
+         "limit as the limit with a sign (`<0.02`). Such a cell is a censored value, not text: leaving it "
+         "out would remove the smallest values and bias every result. The scan counts these cells apart "
+         "from text and refuses the column, even with `dropText`, naming the limits and what to do; in "
+         "memory, the chain runs the analysis for censored data. (Invented rinse-water checks: residual "
+         "chlorine in mg/L, about a quarter below the limit.)"),
+        ("code", 'import { loadTable } from "../mod.ts";\n\n'
+                 'const rinse = `${dir}/rinse_checks.csv`;\n'
+                 'const db3 = await DuckDBInstance.create(":memory:");\n'
+                 'const con3 = await db3.connect();\n'
+                 'await con3.run(`COPY (\n'
+                 '  SELECT i + 1 AS check_no,\n'
+                 '         CASE WHEN c < 0.02 THEN \'<0.02\' ELSE CAST(c AS VARCHAR) END AS chlorine_mg_l\n'
+                 '  FROM (SELECT i, round(exp(-3.5 + 0.6 * ${z(8, 9)}), 3) AS c FROM range(400) t(i)))\n'
+                 '  TO \'${rinse}\' (FORMAT csv, HEADER)`);\n'
+                 'con3.closeSync();\n'
+                 'db3.closeSync();\n'
+                 'try {\n'
+                 '  await plumb(scan(rinse, { progress: false }), "chlorine_mg_l", { dropText: true }).analysis();\n'
+                 '} catch (e) {\n'
+                 '  console.log((e as Error).message);\n'
+                 '}'),
+        ("code", 'plumb(await loadTable(rinse), "chlorine_mg_l");'),
         ("code", "await Deno.remove(dir, { recursive: true });"),
     ],
     "08_models_and_order.ipynb": [
