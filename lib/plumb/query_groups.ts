@@ -68,7 +68,12 @@ export class QueryGroups implements Displayable {
       if (!(s instanceof Error)) return [[g.value!, s.analysis.moments.mean]];
       return g.n >= 2 && Number.isFinite(g.mean) ? [[g.value!, g.mean]] : [];
     });
-    const [res] = means.length
+    // A group with censored cells is refused, and its measured values alone would bias the
+    // pooled residuals (its smallest values left out): none are pooled then.
+    const censored = screened.find((s) => s instanceof PlumbError && s.code === "censored");
+    const [res] = censored !== undefined
+      ? [censored as PlumbError]
+      : means.length
       ? await this.#engine.screen([{
         ...base,
         label: `${label} residuals within ${by}`,

@@ -196,3 +196,16 @@ Deno.test("censored cells: a survey of a scan lists the column as not screened, 
     await Deno.remove(f.dir, { recursive: true });
   }
 });
+
+Deno.test("censored cells: .by() over a scan refuses the groups that hold them, and pools no residuals", async () => {
+  // Line L0 has "<0.5" in every tenth row (i even, i % 10 = 0); line L1 has measured values only.
+  const q = "SELECT 'L' || (i % 2) AS line, CASE WHEN i % 10 = 0 THEN '<0.5' " +
+    "ELSE CAST(1 + (i % 37) / 10.0 AS VARCHAR) END AS zinc FROM range(1, 401) r(i)";
+  const r = await plumb(scan(q, { progress: false }), "zinc").by("line").result();
+  const row = (g: string) => r.groups.find((x) => x.group === g)!;
+  assert.match(row("L0").skipped!, /^40 censored cells \(40 below a limit\): /);
+  assert.equal(row("L0").analysis, undefined);
+  assert.equal(row("L1").analysis?.n, 200);
+  // L0's measured values alone would bias the pooled residuals (its smallest values left out).
+  assert.equal(r.residuals, undefined);
+});
