@@ -5,6 +5,7 @@
  *
  * @module
  */
+import { limitWordSide } from "../data/censored_cell.ts";
 import { PlumbError } from "../errors.ts";
 import type { _Engine } from "./engine.ts";
 import type { ScanOptions } from "./scan.ts";
@@ -71,7 +72,8 @@ export async function _columnQuery(
     throw new PlumbError(
       "non-numeric",
       `Cannot screen ${subject}: ${text} of ${present} cells are text, not numbers ` +
-        `(${shown.map((r) => JSON.stringify(r[0])).join(", ")}${text > 5 ? ", …" : ""}); ` +
+        `(${shown.map((r) => JSON.stringify(r[0])).join(", ")}${text > 5 ? ", …" : ""}` +
+        `${_limitWordHint(shown.map((r) => String(r[0])), name)}); ` +
         `clean them, or pass { dropText: true } to leave them out (they are counted)`,
       { text },
     );
@@ -83,6 +85,26 @@ export async function _columnQuery(
   const keep = nonFinite > 0 ? "finite" : numeric < rows ? "present" : "all";
   const q: ColumnQuery = { engine, dialect: DUCKDB, relation, v, subject, keep };
   return { q, counts: { rows, missing: rows - present, text, nonFinite, n, lo, hi } };
+}
+
+/**
+ * When a shown text cell is a limit word (`ND`, `<LOD`: below a limit that
+ * the cell does not give), what to do: the in-memory reader takes the
+ * column's limit (`detectionLimits`) and runs the censored analysis; the
+ * screening through SQL cannot.
+ */
+function _limitWordHint(cells: readonly string[], column: string): string {
+  const word = cells.find((c) => limitWordSide(c) !== null);
+  if (word === undefined) return "";
+  const below = limitWordSide(word) === -1;
+  const limit = below ? "0.5" : "{ above: 300 }";
+  return `; ${JSON.stringify(word)} says the value is ${below ? "below" : "above"} a limit ` +
+    `without giving it, which the screening through SQL cannot take: load the column into ` +
+    `memory with its limit, loadTable(path, { detectionLimits: { ${JSON.stringify(column)}: ` +
+    `${limit} } }) with your limit in place of ${
+      below ? "0.5" : "300"
+    }, and plumb(table, column) ` +
+    `runs the censored analysis`;
 }
 
 /**

@@ -209,3 +209,24 @@ Deno.test("censored cells: .by() over a scan refuses the groups that hold them, 
   // L0's measured values alone would bias the pooled residuals (its smallest values left out).
   assert.equal(r.residuals, undefined);
 });
+
+Deno.test("censored cells: a limit word in a scanned column is text, and the message says how to give its limit", async () => {
+  const q = "SELECT CASE WHEN i % 10 = 0 THEN 'ND' WHEN i % 10 = 5 THEN 'TNTC' " +
+    "ELSE CAST(i / 10.0 AS VARCHAR) END AS zinc FROM range(1, 101) r(i)";
+  await assert.rejects(scan(q, { progress: false }).analyse("zinc"), (e: unknown) => {
+    assert.ok(e instanceof PlumbError);
+    assert.equal(e.code, "non-numeric");
+    assert.match(
+      e.message,
+      /: 20 of 100 cells are text, not numbers \("TNTC", "ND", .*; "TNTC" says the value is above a limit without giving it, .*loadTable\(path, \{ detectionLimits: \{ "zinc": \{ above: 300 \} \} \}\) with your limit in place of 300, and plumb\(table, column\) runs the censored analysis\); clean them/,
+    );
+    return true;
+  });
+  // Without limit words, no such advice.
+  const plain = "SELECT CASE WHEN i % 10 = 0 THEN 'jam' ELSE CAST(i AS VARCHAR) END AS zinc " +
+    "FROM range(1, 101) r(i)";
+  await assert.rejects(
+    scan(plain, { progress: false }).analyse("zinc"),
+    (e: unknown) => e instanceof PlumbError && !/detectionLimits/.test(e.message),
+  );
+});
