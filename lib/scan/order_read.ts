@@ -20,6 +20,7 @@
  *
  * @module
  */
+import { _quantile7 } from "../stats/histogram_data.ts";
 import { type _HistogramLayout, _histogramLayout } from "../stats/histogram_layout.ts";
 import type { _Shape } from "../stats/moments.ts";
 import { type Cell, locateRanks } from "./cells.ts";
@@ -38,7 +39,7 @@ export interface ScanPrecision {
   readonly maxValueError: number;
   /** The largest possible difference between a bin count and the exact count (0 when exact). */
   readonly maxCountError: number;
-  /** The largest possible difference between the skewness G1's g1 and the exact one (0 when exact). */
+  /** The largest possible difference between the skewness g1 and the exact one (0 when exact). */
   readonly maxSkewnessError: number;
   /** The largest possible difference between the excess kurtosis g2 and the exact one (0 when exact). */
   readonly maxKurtosisError: number;
@@ -82,12 +83,10 @@ export interface _ReadInput {
   readonly step: number | null;
 }
 
-/** The type-7 quantile (Hyndman & Fan 1996) from the values at its two neighbouring ranks. */
-function _q7(n: number, p: number, at: (rank: number) => number): number {
-  const h = (n - 1) * p;
-  const a = at(Math.floor(h) + 1);
-  const b = at(Math.min(n, Math.floor(h) + 2));
-  return h === Math.floor(h) ? a : a + (h - Math.floor(h)) * (b - a);
+/** The type-7 interquartile range (Hyndman & Fan 1996) from the values at the wanted ranks. */
+function _iqr(n: number, valueAt: ReadonlyMap<number, number>): number {
+  const at = (r: number) => valueAt.get(r)!;
+  return _quantile7(at, n, 0.75) - _quantile7(at, n, 0.25);
 }
 
 /** The most values any cell holding one value only has. */
@@ -123,11 +122,7 @@ export async function _readExact(x: _ReadInput): Promise<_OrderRead> {
   const valueAt = new Map<number, number>();
   ranks.forEach((r, i) => valueAt.set(r, got.values[i]));
   const tie = Math.max(_singleValued(cells), got.longestTie) / n;
-  const layout = _layout(
-    x,
-    () => _q7(n, 0.75, (r) => valueAt.get(r)!) - _q7(n, 0.25, (r) => valueAt.get(r)!),
-    () => tie,
-  );
+  const layout = _layout(x, () => _iqr(n, valueAt), () => tie);
   let binCounts: number[];
   // The guess holds unless the pile-up rule or the exact IQR moved the bins.
   if (
@@ -184,11 +179,7 @@ export async function _readFromCells(x: _ReadInput): Promise<_OrderRead> {
       maxValueError = Math.max(maxValueError, c.hi - c.lo);
     }
   });
-  const layout = _layout(
-    x,
-    () => _q7(n, 0.75, (r) => valueAt.get(r)!) - _q7(n, 0.25, (r) => valueAt.get(r)!),
-    () => _singleValued(cells) / n,
-  );
+  const layout = _layout(x, () => _iqr(n, valueAt), () => _singleValued(cells) / n);
   // Values below each interior edge: whole cells below it, and a share of the cell it cuts.
   const edges = layout.edges.slice(1, -1);
   const below: number[] = [];

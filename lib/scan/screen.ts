@@ -15,7 +15,7 @@ import { _fitLambda } from "../reexpress/_fit.ts";
 import { _boxCoxProfile } from "../reexpress/_profile.ts";
 import type { LambdaFit } from "../reexpress/lambda_fit.ts";
 import { _histogramFinish } from "../stats/histogram_layout.ts";
-import { _momentsOf, type _Shape } from "../stats/moments.ts";
+import type { _Shape } from "../stats/moments.ts";
 import type { QqOptions } from "../stats/qq_data.ts";
 import { thinRanks } from "../numeric/thin_ranks.ts";
 import { sortFloat64 } from "../numeric/sort.ts";
@@ -23,7 +23,7 @@ import { cellShape, cellShapeSlack } from "./cells.ts";
 import { cellBoxCoxProfile, seriesHolds } from "./log_profile.ts";
 import { type ColumnQuery, summarise } from "./select.ts";
 import { offGridSql, sampleSql } from "./sql.ts";
-import { _measurementStepSorted, _refine } from "../stats/measurement_step.ts";
+import { _measurementStepSorted, _refine, _stepTolerance } from "../stats/measurement_step.ts";
 import { PILE_UP_SHARE } from "../stats/histogram_bins.ts";
 import { formatCompact, formatCount } from "../results/format.ts";
 import {
@@ -140,8 +140,7 @@ async function _stepOf(
     if (h0 === null) return null;
     const h = _refine(h0, hi - lo);
     if (sorted.length === n) return h;
-    // The sample's own tolerance: a gap within 1e-3 of a step plus a few ulps of the magnitude.
-    const tol = 1e-3 * h + 64 * Number.EPSILON * Math.max(Math.abs(lo), Math.abs(hi));
+    const tol = _stepTolerance(h, Math.max(Math.abs(lo), Math.abs(hi)));
     const more = await q.engine.doubles(
       offGridSql(q, lo, h, tol, _OFF_GRID_MAX + 1),
       "checking the measurement step",
@@ -224,8 +223,6 @@ export async function screenColumn(
     maxSkewnessError: slack.g1,
     maxKurtosisError: slack.g2,
   });
-  // Said last among the reading's points: how the figures were read, not what they show.
-  const said = read.exact ? undefined : _cellsNote(precision, n, _momentsOf(n, shape));
   const screened = screenFromAnswers(
     {
       n,
@@ -247,6 +244,8 @@ export async function screenColumn(
     },
     { qq: options.qq, step },
   );
+  // Said last among the reading's points: how the figures were read, not what they show.
+  const said = read.exact ? undefined : _cellsNote(precision, n, screened.moments);
   const analysis: ScanAnalysis = Object.freeze({
     ...screened,
     ...(said === undefined ? {} : {

@@ -278,7 +278,13 @@ function _finiteValues(src: Values, where: string[] = []): string {
  * Up to `limit` of the finite values off the grid origin + k·step by more
  * than `tol` (none: every value sits on the step found on the sample).
  */
-export function offGridSql(src: Values, origin: number, step: number, tol: number, limit: number) {
+export function offGridSql(
+  src: Values,
+  origin: number,
+  step: number,
+  tol: number,
+  limit: number,
+): string {
   const d = `(v - ${num(origin)})`;
   return `SELECT v FROM ${_finiteValues(src)} ` +
     `WHERE abs(${d} - round(${d} / ${num(step)}) * ${num(step)}) > ${num(tol)} LIMIT ${limit}`;

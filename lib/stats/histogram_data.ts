@@ -111,7 +111,7 @@ export interface HistogramData {
 }
 
 /** Type-7 quantile at probability p, from the two order statistics around it. */
-function _quantile7(at: (rank: number) => number, n: number, p: number): number {
+export function _quantile7(at: (rank: number) => number, n: number, p: number): number {
   const h = (n - 1) * p;
   const lo = Math.floor(h);
   const v = at(lo + 1);

@@ -84,12 +84,10 @@ export function _measurementStepSorted(s: Float64Array): MeasurementStep {
     }
   }
   if (distinct < 2 || !Number.isFinite(smallest)) return Object.freeze({ step: null, distinct, n });
-  // Rounding noise in a gap: a few ulps of the magnitude.
-  const noise = 64 * Number.EPSILON * big;
   for (let m = 1; m <= _MAX_DIVISOR; m++) {
     const h = smallest / m;
     if (h <= same) break;
-    if (_fits(s, h, same, _FIT * h + noise)) {
+    if (_fits(s, h, same, _stepTolerance(h, big))) {
       const step = _refine(h, s[n - 1] - s[0]);
       // Below 5 distinct values a few gaps can fit a grid by chance: accept
       // only a step a recording would use (1, 2, 2.5 or 5 times a power of ten).
@@ -116,6 +114,15 @@ function _roundStep(h: number): boolean {
   const p = 10 ** Math.floor(Math.log10(h));
   const m = h / p;
   return [1, 2, 2.5, 5, 10].some((k) => Math.abs(m - k) <= 1e-9 * k);
+}
+
+/**
+ * How far a gap (or a value's distance from the grid's origin) may be from a
+ * whole multiple of the step h and still fit it: 1e-3 of a step, plus a few
+ * ulps of the largest magnitude for rounding noise.
+ */
+export function _stepTolerance(h: number, big: number): number {
+  return _FIT * h + 64 * Number.EPSILON * big;
 }
 
 /** Whether every gap between distinct values is within `tol` of a whole multiple of h. */
